@@ -1,0 +1,61 @@
+# cellwear: see README.md.  `make`, `make check`, `make install`.
+include config.mk
+
+BIN     = $(patsubst cmd/%.c,bin/%,$(wildcard cmd/*.c))
+LIBSRC  = $(wildcard lib/*.c)
+LIBOBJ  = $(patsubst lib/%.c,build/lib/%.o,$(LIBSRC))
+LIBHDR  = $(wildcard lib/*.h)
+MAN     = $(wildcard man/*.1)
+UNITSRC = $(wildcard tests/unit/test_*.c)
+UNIT    = $(patsubst tests/unit/%.c,build/tests/%,$(UNITSRC))
+TOOLSRC = $(wildcard tests/tools/*.c)
+TOOLS   = $(patsubst tests/tools/%.c,build/tests/%,$(TOOLSRC))
+
+all: $(BIN)
+
+build/lib/%.o: lib/%.c $(LIBHDR) config.mk
+	@mkdir -p build/lib
+	$(CC) $(CWFLAGS) $(CFLAGS) -c -o $@ $<
+
+build/libcw.a: $(LIBOBJ)
+	rm -f $@
+	ar rcs $@ $(LIBOBJ)
+
+bin/%: cmd/%.c build/libcw.a $(LIBHDR)
+	@mkdir -p bin
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
+
+build/tests/%: tests/unit/%.c build/libcw.a $(LIBHDR)
+	@mkdir -p build/tests
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a -lcmocka $(LDLIBS)
+
+build/tests/%: tests/tools/%.c build/libcw.a $(LIBHDR)
+	@mkdir -p build/tests
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
+
+deps:
+	@scripts/deps
+
+tests: $(BIN) $(UNIT) $(TOOLS)
+
+check: deps
+	@$(MAKE) -s tests
+	@tests/run
+
+lint:
+	mandoc -Tlint -Wwarning $(MAN)
+
+install: $(BIN)
+	mkdir -p $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(MANPREFIX)/man1
+	cp -f $(BIN) $(DESTDIR)$(PREFIX)/bin/
+	cp -f $(MAN) $(DESTDIR)$(MANPREFIX)/man1/
+
+uninstall:
+	for f in $(BIN); do rm -f $(DESTDIR)$(PREFIX)/$$f; done
+	for f in $(MAN); do rm -f $(DESTDIR)$(MANPREFIX)/man1/$${f#man/}; done
+
+clean:
+	rm -rf bin build
+
+.PHONY: all deps tests check lint install uninstall clean
+.SECONDARY: $(LIBOBJ)

@@ -1,0 +1,30 @@
+/*
+ * opt.h: option values, validated.  Each *_arg() function takes the option
+ * name for its message and exits 2 (usage error) on a bad value.
+ */
+#ifndef OPT_H
+#define OPT_H
+
+#include "cw.h"
+
+/* A number within [LO, HI]. */
+double	opt_num_arg(const char *opt, const char *s, double lo, double hi);
+/* A whole number within [LO, HI]. */
+long	opt_long_arg(const char *opt, const char *s, long lo, long hi);
+/* A temperature with an optional unit suffix C, F or K; degrees Celsius. */
+double	opt_temp_arg(const char *opt, const char *s);
+/* A duration: 90, 90s, 15m, 2h, 1d (fraction allowed), > 0 unless ZERO_OK. */
+cw_time	opt_dur_arg(const char *opt, const char *s, int zero_ok);
+/*
+ * A comma-separated list of exactly N values, each a number (TEMP zero) or a
+ * temperature (TEMP non-zero), into OUT.  NONDECREASING: values must not
+ * decrease.
+ */
+void	opt_list_arg(const char *opt, const char *s, double *out, int n,
+	    int temp, int nondecreasing);
+
+/* Non-exiting forms: 0 or -1. */
+int	opt_temp(const char *s, double *c);
+int	opt_dur(const char *s, cw_time *us);
+
+#endif
