@@ -1,0 +1,379 @@
+/*
+ * csvin.c: the CSV reader.
+ *
+ * Input arrives in GZSRC_BUFSZ chunks.  Records are found with memchr() on
+ * '\n'; only a line that holds a quote is scanned byte by byte, to see if
+ * a quoted field carries the record over the line end.  Each record is then
+ * parsed by libcsv in strict mode and finished with csv_fini(), so a broken
+ * record never spills into the next one.  Fields go to one arena that is
+ * reused for every record: no allocation per row once warm.
+ */
+#include <stdlib.h>
+#include <string.h>
+
+#include <csv.h>
+
+#include "csvin.h"
+#include "cw.h"
+
+#define CSVIN_MAXREC (64u * 1024 * 1024)	/* longest record accepted */
+
+struct csvin {
+	char delim;
+	const struct csvin_ops *ops;
+	void *ctx;
+	struct csv_parser p;
+	/* Input buffer: bytes [pos, len) are not consumed yet. */
+	char *buf;
+	size_t cap, len, pos;
+	/* The record being parsed. */
+	char *arena;
+	size_t acap, alen;
+	size_t *off, *flen;
+	char **f;
+	size_t fcap, nf;
+	int failed;		/* libcsv reported an error in this record */
+	/* Per file. */
+	const char *src;
+	unsigned long line;	/* line number of the next record */
+	int need_header;
+	char *hdr;
+	size_t hdrlen, hdrcap;
+	struct csvin_stats st;
+};
+
+static void field_cb(void *, size_t, void *);
+static void row_cb(int, void *);
+static int space_fn(unsigned char);
+static int term_fn(unsigned char);
+static int record(struct csvin *, const char *, size_t, unsigned long);
+static int scan_quoted(const struct csvin *, const char *, const char *, int,
+    const char **, unsigned long *);
+
+static int
+space_fn(unsigned char c)
+{
+	return c == ' ';
+}
+
+/* Records are split before libcsv sees them: no terminator inside. */
+static int
+term_fn(unsigned char c)
+{
+	(void)c;
+	return 0;
+}
+
+struct csvin *
+csvin_new(char delim, const struct csvin_ops *ops, void *ctx)
+{
+	struct csvin *r = cw_calloc(1, sizeof(*r));
+
+	r->delim = delim;
+	r->ops = ops;
+	r->ctx = ctx;
+	if (csv_init(&r->p, CSV_STRICT) != 0)
+		cw_die(CW_EXIT_DATA, "cannot start the CSV parser");
+	csv_set_delim(&r->p, (unsigned char)delim);
+	csv_set_space_func(&r->p, space_fn);
+	csv_set_term_func(&r->p, term_fn);
+	r->cap = 2 * GZSRC_BUFSZ;
+	r->buf = cw_malloc(r->cap);
+	r->acap = 4096;
+	r->arena = cw_malloc(r->acap);
+	r->fcap = 64;
+	r->off = cw_malloc(r->fcap * sizeof(*r->off));
+	r->flen = cw_malloc(r->fcap * sizeof(*r->flen));
+	r->f = cw_malloc(r->fcap * sizeof(*r->f));
+	return r;
+}
+
+void
+csvin_free(struct csvin *r)
+{
+	if (r == NULL)
+		return;
+	csv_free(&r->p);
+	free(r->buf);
+	free(r->arena);
+	free(r->off);
+	free(r->flen);
+	free(r->f);
+	free(r->hdr);
+	free(r);
+}
+
+const struct csvin_stats *
+csvin_stats(const struct csvin *r)
+{
+	return &r->st;
+}
+
+int
+csvin_find(const struct csvin_rec *hdr, const char *name)
+{
+	size_t i;
+
+	for (i = 0; i < hdr->nf; i++)
+		if (strcmp(hdr->f[i], name) == 0)
+			return (int)i;
+	return -1;
+}
+
+static void
+field_cb(void *s, size_t n, void *data)
+{
+	struct csvin *r = data;
+
+	if (r->failed)
+		return;
+	if (r->alen + n + 1 > r->acap) {
+		while (r->alen + n + 1 > r->acap)
+			r->acap *= 2;
+		r->arena = cw_realloc(r->arena, r->acap);
+	}
+	if (r->nf == r->fcap) {
+		r->fcap *= 2;
+		r->off = cw_realloc(r->off, r->fcap * sizeof(*r->off));
+		r->flen = cw_realloc(r->flen, r->fcap * sizeof(*r->flen));
+		r->f = cw_realloc(r->f, r->fcap * sizeof(*r->f));
+	}
+	if (n > 0)
+		memcpy(r->arena + r->alen, s, n);
+	r->arena[r->alen + n] = '\0';
+	r->off[r->nf] = r->alen;
+	r->flen[r->nf] = n;
+	r->nf++;
+	r->alen += n + 1;
+}
+
+static void
+row_cb(int c, void *data)
+{
+	(void)c;
+	(void)data;
+}
+
+/*
+ * Handle one record REC[0..N) that starts on LINE: blank, header, repeated
+ * header, bad, or data.
+ */
+static int
+record(struct csvin *r, const char *rec, size_t n, unsigned long line)
+{
+	struct csvin_rec cr;
+	size_t i, done;
+
+	if (n >= 3 && memcmp(rec, "\xEF\xBB\xBF", 3) == 0) {
+		rec += 3;
+		n -= 3;
+	}
+	r->st.records++;
+	cr.src = r->src;
+	cr.line = line;
+	cr.raw = rec;
+	cr.rawlen = n;
+	cr.nf = 0;
+	cr.f = NULL;
+	cr.len = NULL;
+	if (n == 0) {
+		r->st.blank++;
+		return r->ops->blank != NULL ? r->ops->blank(r->ctx, &cr) : 0;
+	}
+	if (!r->need_header && n == r->hdrlen && memcmp(rec, r->hdr, n) == 0) {
+		r->st.header_repeats++;
+		return 0;
+	}
+	r->nf = 0;
+	r->alen = 0;
+	r->failed = 0;
+	done = csv_parse(&r->p, rec, n, field_cb, row_cb, r);
+	if (done != n || csv_error(&r->p) != CSV_SUCCESS)
+		r->failed = 1;
+	if (csv_fini(&r->p, field_cb, row_cb, r) != 0)
+		r->failed = 1;
+	if (r->failed) {
+		r->st.bad++;
+		return r->ops->bad != NULL ?
+		    r->ops->bad(r->ctx, &cr, "malformed quoting") : 0;
+	}
+	for (i = 0; i < r->nf; i++)
+		r->f[i] = r->arena + r->off[i];
+	cr.nf = r->nf;
+	cr.f = r->f;
+	cr.len = r->flen;
+	if (r->need_header) {
+		r->need_header = 0;
+		if (n > r->hdrcap) {
+			r->hdrcap = n;
+			r->hdr = cw_realloc(r->hdr, n);
+		}
+		memcpy(r->hdr, rec, n);
+		r->hdrlen = n;
+		r->st.headers++;
+		return r->ops->header != NULL ? r->ops->header(r->ctx, &cr) : 0;
+	}
+	r->st.rows++;
+	return r->ops->row(r->ctx, &cr);
+}
+
+/*
+ * A line from P holds a quote: scan the record from its start P to see
+ * where it ends, with RFC 4180's rule that only a quote opening a field
+ * starts a quoted field.  Returns 0 with *END at the '\n' that ends the
+ * record and *NL the number of line ends inside it; 1 when the data up to
+ * E ends outside quotes without a line end; -1 when it ends inside quotes.
+ * EOF tells whether more data may follow E.
+ */
+static int
+scan_quoted(const struct csvin *r, const char *p, const char *e, int eof,
+    const char **end, unsigned long *nl)
+{
+	int inq = 0, fstart = 1;
+	unsigned long k = 0;
+
+	for (; p < e; p++) {
+		char c = *p;
+
+		if (inq) {
+			if (c == '"') {
+				if (p + 1 < e && p[1] == '"')
+					p++;
+				else if (p + 1 == e && !eof)
+					return -1;	/* cannot tell yet */
+				else
+					inq = 0;
+			} else if (c == '\n')
+				k++;
+			continue;
+		}
+		if (c == '\n') {
+			*end = p;
+			*nl = k;
+			return 0;
+		}
+		if (fstart && c == '"')
+			inq = 1;
+		fstart = c == r->delim;
+	}
+	*nl = k;
+	return inq ? -1 : 1;
+}
+
+int
+csvin_file(struct csvin *r, const char *path)
+{
+	struct gzsrc src;
+	int rc = 0, eof = 0, skipping = 0;
+
+	if (gzsrc_open(&src, path) < 0)
+		return CW_EXIT_DATA;
+	r->src = src.name;
+	r->line = 1;
+	r->need_header = 1;
+	r->len = r->pos = 0;
+	while (rc == 0) {
+		const char *s, *e, *nlp, *end;
+		unsigned long extra;
+		ssize_t got;
+
+		/* Refill: keep the unconsumed tail, grow for long records. */
+		if (!eof) {
+			if (r->pos > 0) {
+				memmove(r->buf, r->buf + r->pos, r->len - r->pos);
+				r->len -= r->pos;
+				r->pos = 0;
+			}
+			if (r->cap - r->len < GZSRC_BUFSZ) {
+				if (r->cap >= CSVIN_MAXREC + GZSRC_BUFSZ) {
+					/* Nothing fits: drop the record. */
+					cw_warn_at(r->src, r->line, "record "
+					    "longer than %u bytes skipped",
+					    CSVIN_MAXREC);
+					r->st.bad++;
+					r->len = r->pos = 0;
+					skipping = 1;
+				} else {
+					r->cap *= 2;
+					r->buf = cw_realloc(r->buf, r->cap);
+				}
+			}
+			got = gzsrc_read(&src, r->buf + r->len,
+			    r->cap - r->len);
+			if (got < 0) {
+				rc = CW_EXIT_DATA;
+				break;
+			}
+			if (got == 0)
+				eof = 1;
+			r->len += (size_t)got;
+		}
+		s = r->buf + r->pos;
+		e = r->buf + r->len;
+		if (skipping) {
+			nlp = memchr(s, '\n', (size_t)(e - s));
+			if (nlp == NULL) {
+				r->pos = r->len;
+				if (eof)
+					break;
+				continue;
+			}
+			r->line++;
+			r->pos = (size_t)(nlp + 1 - r->buf);
+			skipping = 0;
+			continue;
+		}
+		/* Every complete record in the buffer. */
+		while (rc == 0 && s < e) {
+			size_t n;
+			int q;
+
+			nlp = memchr(s, '\n', (size_t)(e - s));
+			extra = 0;
+			end = nlp;
+			if (memchr(s, '"', (size_t)((nlp ? nlp : e) - s)) != NULL)
+				q = scan_quoted(r, s, e, eof, &end, &extra);
+			else
+				q = nlp != NULL ? 0 : 1;
+			if (q != 0) {
+				if (!eof)
+					break;	/* wait for more data */
+				end = e;	/* the last record */
+			}
+			n = (size_t)(end - s);
+			if (n > 0 && s[n - 1] == '\r')
+				n--;
+			if (q < 0) {
+				struct csvin_rec cr = { r->src, r->line, s, n,
+				    0, NULL, NULL };
+
+				r->st.records++;
+				r->st.bad++;
+				if (r->ops->bad != NULL)
+					rc = r->ops->bad(r->ctx, &cr,
+					    "unterminated quote");
+			} else
+				rc = record(r, s, n, r->line);
+			r->line += 1 + extra;
+			s = end < e ? end + 1 : e;
+		}
+		r->pos = (size_t)(s - r->buf);
+		if (eof && r->pos >= r->len)
+			break;
+	}
+	gzsrc_close(&src);
+	return rc;
+}
+
+int
+csvin_files(struct csvin *r, char **files, int n)
+{
+	int i, rc;
+
+	if (n == 0)
+		return csvin_file(r, "-");
+	for (i = 0; i < n; i++)
+		if ((rc = csvin_file(r, files[i])) != 0)
+			return rc;
+	return 0;
+}

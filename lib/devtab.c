@@ -1,0 +1,228 @@
+/*
+ * devtab.c: device name -> state, open addressing with linear probing and
+ * FNV-1a hashes, kept at most half full.  States live in blocks that never
+ * move; names live in an arena of blocks.
+ */
+#include <stdint.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "devtab.h"
+
+#define DEVTAB_BLOCK 256	/* states per block */
+#define DEVTAB_NAMEBLK 65536	/* bytes per name block */
+
+struct devtab {
+	size_t statesz;
+	size_t count;
+	/* Hash slots hold index + 1, 0 is empty. */
+	size_t *slot;
+	uint32_t *hash;
+	size_t nslot;
+	/* States: blocks of DEVTAB_BLOCK. */
+	char **blocks;
+	size_t nblocks;
+	/* Names. */
+	char **nameblk;
+	size_t nnameblk, nameused;
+};
+
+static uint32_t fnv1a(const char *, size_t);
+static void grow(struct devtab *);
+static const char *keep_name(struct devtab *, const char *, size_t);
+
+static uint32_t
+fnv1a(const char *s, size_t n)
+{
+	uint32_t h = 2166136261u;
+	size_t i;
+
+	for (i = 0; i < n; i++) {
+		h ^= (unsigned char)s[i];
+		h *= 16777619u;
+	}
+	return h;
+}
+
+struct devtab *
+devtab_new(size_t statesz)
+{
+	struct devtab *t = cw_calloc(1, sizeof(*t));
+
+	if (statesz < sizeof(struct devent))
+		statesz = sizeof(struct devent);
+	/* Keep every state aligned for any member type. */
+	t->statesz = (statesz + 15) & ~(size_t)15;
+	t->nslot = 64;
+	t->slot = cw_calloc(t->nslot, sizeof(*t->slot));
+	t->hash = cw_calloc(t->nslot, sizeof(*t->hash));
+	return t;
+}
+
+void *
+devtab_at(const struct devtab *t, size_t i)
+{
+	return t->blocks[i / DEVTAB_BLOCK] + (i % DEVTAB_BLOCK) * t->statesz;
+}
+
+size_t
+devtab_count(const struct devtab *t)
+{
+	return t->count;
+}
+
+static void
+grow(struct devtab *t)
+{
+	size_t n = t->nslot * 2, i, j;
+	size_t *slot = cw_calloc(n, sizeof(*slot));
+	uint32_t *hash = cw_calloc(n, sizeof(*hash));
+
+	for (i = 0; i < t->nslot; i++) {
+		if (t->slot[i] == 0)
+			continue;
+		for (j = t->hash[i] & (n - 1); slot[j] != 0; j = (j + 1) &
+		    (n - 1))
+			;
+		slot[j] = t->slot[i];
+		hash[j] = t->hash[i];
+	}
+	free(t->slot);
+	free(t->hash);
+	t->slot = slot;
+	t->hash = hash;
+	t->nslot = n;
+}
+
+static const char *
+keep_name(struct devtab *t, const char *s, size_t n)
+{
+	char *p;
+
+	if (n + 1 > DEVTAB_NAMEBLK) {
+		/* A very long name gets a block of its own. */
+		t->nameblk = cw_realloc(t->nameblk, (t->nnameblk + 1) *
+		    sizeof(*t->nameblk));
+		p = cw_malloc(n + 1);
+		/* Put it before the current block so that stays current. */
+		if (t->nnameblk > 0) {
+			t->nameblk[t->nnameblk] = t->nameblk[t->nnameblk - 1];
+			t->nameblk[t->nnameblk - 1] = p;
+		} else {
+			t->nameblk[0] = p;
+			t->nameused = DEVTAB_NAMEBLK;
+		}
+		t->nnameblk++;
+	} else {
+		if (t->nnameblk == 0 || t->nameused + n + 1 > DEVTAB_NAMEBLK) {
+			t->nameblk = cw_realloc(t->nameblk, (t->nnameblk + 1) *
+			    sizeof(*t->nameblk));
+			t->nameblk[t->nnameblk++] = cw_malloc(DEVTAB_NAMEBLK);
+			t->nameused = 0;
+		}
+		p = t->nameblk[t->nnameblk - 1] + t->nameused;
+		t->nameused += n + 1;
+	}
+	memcpy(p, s, n);
+	p[n] = '\0';
+	return p;
+}
+
+void *
+devtab_find(struct devtab *t, const char *name, size_t len)
+{
+	uint32_t h = fnv1a(name, len);
+	size_t j;
+
+	for (j = h & (t->nslot - 1); t->slot[j] != 0; j = (j + 1) &
+	    (t->nslot - 1)) {
+		struct devent *d;
+
+		if (t->hash[j] != h)
+			continue;
+		d = devtab_at(t, t->slot[j] - 1);
+		if (d->namelen == len && memcmp(d->name, name, len) == 0)
+			return d;
+	}
+	return NULL;
+}
+
+void *
+devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
+{
+	uint32_t h = fnv1a(name, len);
+	struct devent *d;
+	size_t j;
+
+	for (j = h & (t->nslot - 1); t->slot[j] != 0; j = (j + 1) &
+	    (t->nslot - 1)) {
+		if (t->hash[j] != h)
+			continue;
+		d = devtab_at(t, t->slot[j] - 1);
+		if (d->namelen == len && memcmp(d->name, name, len) == 0) {
+			if (isnew != NULL)
+				*isnew = 0;
+			return d;
+		}
+	}
+	if (t->count % DEVTAB_BLOCK == 0) {
+		t->blocks = cw_realloc(t->blocks, (t->nblocks + 1) *
+		    sizeof(*t->blocks));
+		t->blocks[t->nblocks++] = cw_calloc(DEVTAB_BLOCK, t->statesz);
+	}
+	d = devtab_at(t, t->count);
+	memset(d, 0, t->statesz);
+	d->name = keep_name(t, name, len);
+	d->namelen = len;
+	d->index = t->count;
+	d->last_t = INT64_MIN;
+	t->slot[j] = ++t->count;
+	t->hash[j] = h;
+	if (2 * t->count > t->nslot)
+		grow(t);
+	if (isnew != NULL)
+		*isnew = 1;
+	return d;
+}
+
+static int
+byname(const void *a, const void *b)
+{
+	const struct devent *x = *(void *const *)a, *y = *(void *const *)b;
+	size_t n = x->namelen < y->namelen ? x->namelen : y->namelen;
+	int c = memcmp(x->name, y->name, n);
+
+	if (c != 0)
+		return c;
+	return x->namelen < y->namelen ? -1 : x->namelen > y->namelen;
+}
+
+void **
+devtab_sorted(const struct devtab *t)
+{
+	void **v = cw_malloc((t->count + 1) * sizeof(*v));
+	size_t i;
+
+	for (i = 0; i < t->count; i++)
+		v[i] = devtab_at(t, i);
+	qsort(v, t->count, sizeof(*v), byname);
+	return v;
+}
+
+void
+devtab_free(struct devtab *t)
+{
+	size_t i;
+
+	if (t == NULL)
+		return;
+	for (i = 0; i < t->nblocks; i++)
+		free(t->blocks[i]);
+	for (i = 0; i < t->nnameblk; i++)
+		free(t->nameblk[i]);
+	free(t->blocks);
+	free(t->nameblk);
+	free(t->slot);
+	free(t->hash);
+	free(t);
+}
