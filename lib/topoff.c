@@ -1,0 +1,245 @@
+/* topoff.c: holds near full charge and top-off micro-cycles (topoff.h). */
+#include <string.h>
+
+#include "charge.h"
+#include "topoff.h"
+
+/* Slack for comparisons of levels made of decimal readings. */
+#define TOPOFF_EPS 1e-9
+
+static void	hold_begin(struct topoff *st, int sig, cw_time t, double x,
+		    int rest);
+static void	hold_end(struct topoff *st, const struct topoff_conf *c);
+static void	hold_row(struct topoff *st, const struct topoff_conf *c,
+		    cw_time t, double x, int chg, int rest, double ah);
+static void	peak_reset(struct topoff *st, cw_time t, double x, int rest);
+static int	recovered(const struct topoff *st);
+static void	cycle_emit(struct topoff *st, const struct topoff_conf *c);
+
+void
+topoff_conf_default(struct topoff_conf *c)
+{
+	memset(c, 0, sizeof(*c));
+	c->full_pct = TOPOFF_FULL_PCT;
+	c->full_v = CW_MISSING;
+	c->min_depth = TOPOFF_MIN_DEPTH;
+	c->min_current = TOPOFF_MIN_CURRENT;
+	c->max_gap = CHARGE_MAX_GAP;
+}
+
+void
+topoff_init(struct topoff *st)
+{
+	memset(st, 0, sizeof(*st));
+	st->phase = TOPOFF_OUT;
+}
+
+/* Start watching for a drop from level X at time T. */
+static void
+peak_reset(struct topoff *st, cw_time t, double x, int rest)
+{
+	st->peak = x;
+	st->peak_t = t;
+	st->trough = x;
+	st->idle = rest;
+	st->dropped = 0;
+	st->recharged = 0;
+	st->cyc_ah = 0.0;
+}
+
+static void
+hold_begin(struct topoff *st, int sig, cw_time t, double x, int rest)
+{
+	memset(&st->hold, 0, sizeof(st->hold));
+	st->hold.signal = sig;
+	st->hold.start = t;
+	st->hold.end = t;
+	st->hold.rows = 1;
+	st->lvl_top = sig == TOPOFF_SOC && x >= TOPOFF_AT_TOP_PCT - TOPOFF_EPS;
+	st->rested = rest;
+	st->phase = TOPOFF_WATCH;
+	peak_reset(st, t, x, rest);
+}
+
+/* The recharge has brought the level back up by half the drop or more. */
+static int
+recovered(const struct topoff *st)
+{
+	return st->rise >= st->peak - (st->peak - st->trough) / 2.0 -
+	    TOPOFF_EPS;
+}
+
+static void
+cycle_emit(struct topoff *st, const struct topoff_conf *c)
+{
+	struct topoff_cycle cy;
+
+	cy.signal = st->hold.signal;
+	cy.start = st->peak_t;
+	cy.end = st->chg_t;
+	cy.peak = st->peak;
+	cy.trough = st->trough;
+	cy.depth = st->peak - st->trough;
+	cy.charge_ah = st->cyc_ah;
+	st->hold.cycles++;
+	st->hold.depth_sum += cy.depth;
+	if (cy.depth > st->hold.depth_max)
+		st->hold.depth_max = cy.depth;
+	if (c->on_cycle != NULL)
+		c->on_cycle(c->ctx, st, &cy);
+}
+
+static void
+hold_end(struct topoff *st, const struct topoff_conf *c)
+{
+	struct topoff_totals *tot = &st->tot;
+	struct topoff_hold *h = &st->hold;
+	cw_time d;
+
+	if (st->phase == TOPOFF_OUT)
+		return;
+	if (st->phase == TOPOFF_RECHARGE && recovered(st))
+		cycle_emit(st, c);
+	st->phase = TOPOFF_OUT;
+	d = h->end - h->start;
+	tot->holds++;
+	tot->cycles += h->cycles;
+	tot->held += d;
+	if (h->signal == TOPOFF_SOC)
+		tot->soc_held += d;
+	tot->at_top2 += h->at_top2;
+	tot->depth_sum += h->depth_sum;
+	if (h->depth_max > tot->depth_max)
+		tot->depth_max = h->depth_max;
+	tot->topoff_ah += h->topoff_ah;
+	if (c->on_hold != NULL)
+		c->on_hold(c->ctx, st, h);
+}
+
+/*
+ * A row inside the hold at level X (its own or the carried one); CHG and
+ * REST tell whether it charges or rests, AH is its charge.
+ */
+static void
+hold_row(struct topoff *st, const struct topoff_conf *c, cw_time t,
+    double x, int chg, int rest, double ah)
+{
+	struct topoff_hold *h = &st->hold;
+	int top;
+
+	top = h->signal == TOPOFF_SOC && x >= TOPOFF_AT_TOP_PCT - TOPOFF_EPS;
+	h->at_top2 += (t - h->end) * (cw_time)(st->lvl_top + top);
+	st->lvl_top = top;
+	h->end = t;
+	h->rows++;
+	if (chg && st->rested)
+		h->topoff_ah += ah;
+	if (rest)
+		st->rested = 1;
+
+	if (st->phase == TOPOFF_RECHARGE) {
+		if (x < st->trough)
+			st->trough = x;
+		if (x >= st->rise) {
+			st->rise = x;
+			st->rise_t = t;
+		}
+		if (chg) {
+			st->cyc_ah += ah;
+			st->chg_t = t;
+			return;
+		}
+		if (!rest)
+			return;		/* current unknown: wait */
+		if (recovered(st)) {
+			cycle_emit(st, c);
+			peak_reset(st, st->rise_t, st->rise, 1);
+		} else
+			st->phase = TOPOFF_WATCH;
+		/* This resting row is watched like any other below. */
+	}
+
+	if (x < st->peak) {
+		if (x < st->trough)
+			st->trough = x;
+		if (st->peak - st->trough >= c->min_depth - TOPOFF_EPS)
+			st->dropped = 1;
+	}
+	if (rest)
+		st->idle = 1;
+	if (chg && st->dropped && st->idle) {
+		if (!st->recharged || x > st->rise) {
+			st->rise = x;
+			st->rise_t = t;
+		}
+		st->recharged = 1;
+		st->phase = TOPOFF_RECHARGE;
+		st->cyc_ah += ah;
+		st->chg_t = t;
+	} else if (x >= st->peak)
+		peak_reset(st, t, x, rest);
+}
+
+void
+topoff_push(struct topoff *st, const struct topoff_conf *c, cw_time t,
+    double v, double i_a, double soc)
+{
+	double x, ah = 0.0;
+	int sig, inb, chg, rest, gap;
+
+	st->tot.rows++;
+	gap = st->have_row && t - st->row_t > c->max_gap;
+	if (st->have_row)
+		ah = charge_ah(i_a, st->row_t, t, c->max_gap);
+	st->row_t = t;
+	st->have_row = 1;
+	chg = i_a > c->min_current;
+	rest = i_a <= c->min_current;	/* both 0 when I_A is NaN */
+
+	if (cw_isnum(soc)) {
+		sig = TOPOFF_SOC;
+		x = soc;
+		inb = soc >= c->full_pct;
+	} else if (cw_isnum(c->full_v) && cw_isnum(v)) {
+		sig = TOPOFF_VOLTAGE;
+		x = 100.0 * v / c->full_v;
+		inb = v >= c->full_v;
+	} else {
+		/* No level: keep the hold's last one if it is fresh. */
+		if (st->phase != TOPOFF_OUT && !gap &&
+		    t - st->lvl_t <= c->max_gap) {
+			st->tot.carried++;
+			st->hold.carried++;
+			hold_row(st, c, t, st->lvl, chg, rest, ah);
+			return;
+		}
+		if (st->phase != TOPOFF_OUT) {
+			if (gap)
+				st->tot.gaps++;
+			hold_end(st, c);
+		}
+		st->tot.unjudged++;
+		return;
+	}
+
+	st->lvl = x;
+	st->lvl_t = t;
+	if (st->phase != TOPOFF_OUT &&
+	    (gap || !inb || sig != st->hold.signal)) {
+		if (gap)
+			st->tot.gaps++;
+		hold_end(st, c);
+	}
+	if (!inb)
+		return;
+	if (st->phase == TOPOFF_OUT)
+		hold_begin(st, sig, t, x, rest);
+	else
+		hold_row(st, c, t, x, chg, rest, ah);
+}
+
+void
+topoff_finish(struct topoff *st, const struct topoff_conf *c)
+{
+	hold_end(st, c);
+}
