@@ -3,6 +3,7 @@
  * days-from-civil algorithms of H. Hinnant ("chrono-Compatible Low-Level
  * Date Algorithms"), valid for the proleptic Gregorian calendar.
  */
+#include <stdio.h>
 #include <string.h>
 
 #include "num.h"
