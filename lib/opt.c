@@ -116,7 +116,7 @@ void
 opt_list_arg(const char *opt, const char *s, double *out, int n, int temp,
     int nondecreasing)
 {
-	char buf[256], *p, *q;
+	char buf[256], *p, *q = NULL;
 	int k = 0;
 
 	if (strlen(s) >= sizeof(buf))
