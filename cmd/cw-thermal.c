@@ -1,0 +1,326 @@
+/*
+ * cw-thermal: charging (and discharge) outside the temperature window,
+ * as events per device or as a summary per device.  The engine is
+ * lib/thermal.c; this file holds the options and the output.
+ */
+#include <errno.h>
+#include <getopt.h>
+#include <math.h>
+#include <stddef.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "num.h"
+#include "opt.h"
+#include "outf.h"
+#include "sampin.h"
+#include "thermal.h"
+
+#define EVENT_HEADER "device,kind,zone,start,end,duration_s,temp_min_c," \
+	"temp_max_c,charge_ah,soc_start_pct,soc_end_pct"
+#define SUMMARY_HEADER "device,first,last,charge_ah,ah_below_min,ah_cool," \
+	"ah_normal,ah_warm,ah_above_max,ah_no_temp,outside_pct," \
+	"charge_events,below_min_events,cool_events,warm_events," \
+	"above_max_events,use_events,use_cold_events,use_hot_events," \
+	"unjudged_rows"
+
+/* The per-device state: the devent first, as devtab wants. */
+struct dev {
+	struct devent e;
+	struct thermal_dev th;
+};
+
+struct tool {
+	struct thermal_conf conf;
+	struct csvout out;
+	int summary;
+};
+
+enum {
+	OPT_HYST = 256, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE, OPT_MIN_CURRENT,
+	OPT_MIN_DURATION, OPT_USE_LIMITS, OPT_VERSION
+};
+
+static void	usage(FILE *fp);
+static double	temp_diff_arg(const char *opt, const char *s);
+static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
+static void	on_event(void *ctx, struct thermal_dev *th,
+		    const struct thermal_event *ev);
+static void	write_summary(struct tool *t, const struct dev *d);
+static void	report(const struct devtab *devs, const struct sampin_stats *st);
+
+static void
+usage(FILE *fp)
+{
+	fprintf(fp,
+	    "usage: cw-thermal [-hsv] [--hysteresis DT] "
+	    "[--limits T1,T2,T3,T4]\n"
+	    "                  [--max-gap DUR] [--merge DUR] "
+	    "[--min-current A]\n"
+	    "                  [--min-duration DUR] [-o FILE] "
+	    "[--use-limits LO,HI]\n"
+	    "                  [--version] [FILE ...]\n");
+}
+
+/*
+ * A temperature difference: a number with an optional unit, C or K (the
+ * same step) or F (5/9 of it).  Not an absolute temperature, so 1F is
+ * 0.556 C, not -17.2 C.
+ */
+static double
+temp_diff_arg(const char *opt, const char *s)
+{
+	size_t n = strlen(s);
+	double x, mul = 1.0;
+
+	if (n > 0 && strchr("CcKk", s[n - 1]) != NULL)
+		n--;
+	else if (n > 0 && (s[n - 1] == 'F' || s[n - 1] == 'f')) {
+		mul = 5.0 / 9.0;
+		n--;
+	}
+	if (num_parse(s, n, '.', &x) != NUM_OK || x < 0 || x * mul > 50)
+		cw_usage_error("%s: '%s' is not a temperature difference "
+		    "within 0..50 C (e.g. 0.5, 0.5C, 1F)", opt, s);
+	return x * mul;
+}
+
+static int
+on_row(void *ctx, void *dev, const struct cw_sample *s)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	if (d->e.nrows == 1)
+		thermal_init(&d->th);
+	thermal_push(&d->th, &t->conf, s->t, s->i, s->temp, s->soc);
+	return t->out.err ? CW_EXIT_DATA : 0;
+}
+
+static void
+on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
+{
+	struct tool *t = ctx;
+	const struct dev *d;
+
+	if (t->summary)
+		return;
+	d = (const struct dev *)(const void *)((const char *)th -
+	    offsetof(struct dev, th));
+	csvout_strn(&t->out, d->e.name, d->e.namelen);
+	csvout_str(&t->out, thermal_kind_name(ev->kind));
+	csvout_str(&t->out, thermal_zone_name(ev->zone));
+	csvout_time(&t->out, ev->start);
+	csvout_time(&t->out, ev->end);
+	csvout_num(&t->out, (double)(ev->end - ev->start) / CW_US_PER_S);
+	csvout_num(&t->out, ev->temp_min);
+	csvout_num(&t->out, ev->temp_max);
+	csvout_num(&t->out, ev->charge_ah);
+	csvout_num(&t->out, ev->soc_start);
+	csvout_num(&t->out, ev->soc_end);
+	csvout_endrow(&t->out);
+}
+
+static void
+write_summary(struct tool *t, const struct dev *d)
+{
+	const struct thermal_dev *th = &d->th;
+	const unsigned long *ce = th->events[THERMAL_CHARGE];
+	const unsigned long *ue = th->events[THERMAL_USE];
+	double total = th->ah.no_temp, known;
+	int z;
+
+	for (z = 0; z < THERMAL_NZONE; z++)
+		total += th->ah.zone[z];
+	known = total - th->ah.no_temp;
+	csvout_strn(&t->out, d->e.name, d->e.namelen);
+	csvout_time(&t->out, th->first);
+	csvout_time(&t->out, th->prev_t);
+	csvout_num(&t->out, total);
+	for (z = 0; z < THERMAL_NZONE; z++)
+		csvout_num(&t->out, th->ah.zone[z]);
+	csvout_num(&t->out, th->ah.no_temp);
+	if (known > 0)
+		csvout_num(&t->out, 100.0 * (known -
+		    th->ah.zone[THERMAL_NORMAL]) / known);
+	else
+		csvout_empty(&t->out);
+	csvout_int(&t->out, (long long)(ce[THERMAL_BELOW_MIN] +
+	    ce[THERMAL_COOL] + ce[THERMAL_WARM] + ce[THERMAL_ABOVE_MAX]));
+	csvout_int(&t->out, (long long)ce[THERMAL_BELOW_MIN]);
+	csvout_int(&t->out, (long long)ce[THERMAL_COOL]);
+	csvout_int(&t->out, (long long)ce[THERMAL_WARM]);
+	csvout_int(&t->out, (long long)ce[THERMAL_ABOVE_MAX]);
+	csvout_int(&t->out, (long long)(ue[THERMAL_BELOW_MIN] +
+	    ue[THERMAL_ABOVE_MAX]));
+	csvout_int(&t->out, (long long)ue[THERMAL_BELOW_MIN]);
+	csvout_int(&t->out, (long long)ue[THERMAL_ABOVE_MAX]);
+	csvout_int(&t->out, (long long)th->unjudged);
+	csvout_endrow(&t->out);
+}
+
+static void
+report(const struct devtab *devs, const struct sampin_stats *st)
+{
+	unsigned long ev[THERMAL_NKIND] = { 0, 0 }, unjudged = 0, dropped = 0;
+	unsigned long merges = 0;
+	size_t i, n = devtab_count(devs);
+	int k, z;
+
+	for (i = 0; i < n; i++) {
+		const struct dev *d = devtab_at(devs, i);
+
+		for (k = 0; k < THERMAL_NKIND; k++)
+			for (z = 0; z < THERMAL_NZONE; z++)
+				ev[k] += d->th.events[k][z];
+		unjudged += d->th.unjudged;
+		dropped += d->th.short_dropped;
+		merges += d->th.merges;
+	}
+	sampin_report(st, NULL);
+	cw_warn("%zu devices; %lu rows without temperature or current not "
+	    "judged", n, unjudged);
+	cw_warn("%lu charge events, %lu use events; %lu shorter than "
+	    "--min-duration dropped; %lu joined by --merge",
+	    ev[THERMAL_CHARGE], ev[THERMAL_USE], dropped, merges);
+}
+
+int
+main(int argc, char *argv[])
+{
+	static const struct option longopts[] = {
+		{ "help", no_argument, NULL, 'h' },
+		{ "hysteresis", required_argument, NULL, OPT_HYST },
+		{ "limits", required_argument, NULL, OPT_LIMITS },
+		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+		{ "merge", required_argument, NULL, OPT_MERGE },
+		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
+		{ "min-duration", required_argument, NULL, OPT_MIN_DURATION },
+		{ "output", required_argument, NULL, 'o' },
+		{ "summary", no_argument, NULL, 's' },
+		{ "use-limits", required_argument, NULL, OPT_USE_LIMITS },
+		{ "verbose", no_argument, NULL, 'v' },
+		{ "version", no_argument, NULL, OPT_VERSION },
+		{ NULL, 0, NULL, 0 }
+	};
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of;
+	const char *outpath = NULL;
+	double use[2];
+	void **sorted;
+	size_t i, n;
+	int ch, rc;
+
+	cw_setprog("cw-thermal");
+	memset(&t, 0, sizeof(t));
+	thermal_conf_default(&t.conf);
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":ho:sv", longopts, NULL)) !=
+	    -1) {
+		switch (ch) {
+		case 'h':
+			usage(stdout);
+			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
+		case 'o':
+			outpath = optarg;
+			break;
+		case 's':
+			t.summary = 1;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_HYST:
+			t.conf.lim.hyst = temp_diff_arg("--hysteresis", optarg);
+			break;
+		case OPT_LIMITS:
+			opt_list_arg("--limits", optarg, t.conf.lim.t, 4, 1, 1);
+			break;
+		case OPT_MAX_GAP:
+			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			break;
+		case OPT_MERGE:
+			t.conf.merge = opt_dur_arg("--merge", optarg, 1);
+			break;
+		case OPT_MIN_CURRENT:
+			t.conf.min_current = opt_num_arg("--min-current",
+			    optarg, 0, 1e6);
+			break;
+		case OPT_MIN_DURATION:
+			t.conf.min_duration = opt_dur_arg("--min-duration",
+			    optarg, 1);
+			break;
+		case OPT_USE_LIMITS:
+			opt_list_arg("--use-limits", optarg, use, 2, 1, 1);
+			t.conf.lim.use_lo = use[0];
+			t.conf.lim.use_hi = use[1];
+			break;
+		case OPT_VERSION:
+			cw_print_version();
+		case ':':
+			if (optopt != 0 && optopt < OPT_HYST)
+				cw_usage_error("option '-%c' needs a value",
+				    optopt);
+			cw_usage_error("option '%s' needs a value",
+			    argv[optind - 1]);
+		default:
+			if (optopt != 0 && optopt < OPT_HYST)
+				cw_usage_error("unknown option '-%c'", optopt);
+			cw_usage_error("unknown option '%s'", argv[optind - 1]);
+		}
+	}
+	argc -= optind;
+	argv += optind;
+
+	devs = devtab_new(sizeof(struct dev));
+	of = outf_open(outpath);
+	csvout_init(&t.out, outf_fp(of));
+	csvout_header(&t.out, t.summary ? SUMMARY_HEADER : EVENT_HEADER);
+	t.conf.emit = on_event;
+	t.conf.ctx = &t;
+
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP);
+	sc.row = on_row;
+	sc.ctx = &t;
+	sc.devs = devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (rc != 0) {
+		/* Complete rows written so far stay; the output is not
+		 * committed, so -o FILE keeps its old contents. */
+		csvout_flush(&t.out);
+		if (cw_verbose)
+			report(devs, &st);
+		return rc;
+	}
+
+	/* What is still open ends with the stream, in device name order. */
+	sorted = devtab_sorted(devs);
+	n = devtab_count(devs);
+	for (i = 0; i < n; i++)
+		thermal_finish(&((struct dev *)sorted[i])->th, &t.conf);
+	if (t.summary)
+		for (i = 0; i < n; i++)
+			write_summary(&t, sorted[i]);
+	free(sorted);
+	if (cw_verbose)
+		report(devs, &st);
+	if (csvout_flush(&t.out) != 0) {
+		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
+		    "standard output", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	if (outf_commit(of) != 0)
+		return CW_EXIT_DATA;
+	csvout_free(&t.out);
+	devtab_free(devs);
+	return CW_EXIT_OK;
+}
