@@ -1,0 +1,425 @@
+/* clean.c: see clean.h. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "clean.h"
+#include "csvin.h"
+#include "devtab.h"
+#include "num.h"
+#include "resample.h"
+#include "ts.h"
+
+const char *const clean_reason_name[CR_NREASON] = {
+	"malformed", "missing-field", "bad-number", "bad-time",
+	"out-of-range", "duplicate", "out-of-order", "empty"
+};
+
+struct cdev {
+	struct devent e;
+	struct rs_point *q;	/* pending rows, sorted by time, [qh, qn) */
+	size_t qh, qn, qcap;
+	cw_time max_seen;	/* latest time accepted */
+	cw_time last_out;	/* latest time released */
+	double soc;		/* coulomb-counted SoC */
+	int soc_known;
+	cw_time soc_t;
+	struct rs_state rs;
+};
+
+struct run {
+	const struct clean_conf *c;
+	struct clean_stats *st;
+	struct csvout *out, *rej;
+	struct devtab *devs;
+	struct cdev *last;	/* device of the previous row */
+	struct colmap map;
+	size_t hdr_nf;
+	unsigned required;
+	const char *file_dev;	/* --device @file: this file's name */
+	size_t file_devlen;
+	char file_devbuf[256];
+	struct cdev *cur;	/* for the emit callback */
+};
+
+static int on_header(void *, const struct csvin_rec *);
+static int on_row(void *, const struct csvin_rec *);
+static int on_bad(void *, const struct csvin_rec *, const char *);
+static int on_blank(void *, const struct csvin_rec *);
+static int reject(struct run *, const struct csvin_rec *, int);
+static void release(struct run *, struct cdev *, const struct rs_point *);
+static void emit(void *, const struct rs_point *);
+static void drain(struct run *, struct cdev *, cw_time);
+
+void
+clean_conf_default(struct clean_conf *c)
+{
+	memset(c, 0, sizeof(*c));
+	c->delim = ',';
+	c->dec = '.';
+	c->lo[CM_VOLTAGE] = 1.5;
+	c->hi[CM_VOLTAGE] = 5.0;
+	c->lo[CM_CURRENT] = -1000;
+	c->hi[CM_CURRENT] = 1000;
+	c->lo[CM_TEMP] = -40;
+	c->hi[CM_TEMP] = 100;
+	c->lo[CM_SOC] = 0;
+	c->hi[CM_SOC] = 100;
+	c->reorder = 60 * CW_US_PER_S;
+	c->max_gap = 15 * 60 * CW_US_PER_S;
+}
+
+static int
+reject(struct run *r, const struct csvin_rec *rec, int why)
+{
+	struct csvout *w = r->rej;
+
+	r->st->rejected++;
+	r->st->reason[why]++;
+	if (w == NULL)
+		return 0;
+	csvout_str(w, rec->src);
+	csvout_int(w, (long long)rec->line);
+	csvout_str(w, clean_reason_name[why]);
+	csvout_strn(w, rec->raw, rec->rawlen);
+	csvout_endrow(w);
+	return 0;
+}
+
+/* The base name of PATH without any extensions. */
+static void
+file_device(struct run *r, const char *path)
+{
+	const char *b = strrchr(path, '/'), *dot;
+	size_t n;
+
+	b = b != NULL ? b + 1 : path;
+	dot = strchr(b, '.');
+	n = dot != NULL && dot > b ? (size_t)(dot - b) : strlen(b);
+	if (n >= sizeof(r->file_devbuf))
+		n = sizeof(r->file_devbuf) - 1;
+	memcpy(r->file_devbuf, b, n);
+	r->file_devbuf[n] = '\0';
+	r->file_dev = r->file_devbuf;
+	r->file_devlen = n;
+}
+
+static int
+on_header(void *ctx, const struct csvin_rec *h)
+{
+	struct run *r = ctx;
+
+	if (colmap_resolve(&r->c->spec, h, r->required, &r->map) < 0)
+		return CW_EXIT_DATA;
+	r->hdr_nf = h->nf;
+	if (r->c->device_from_file)
+		file_device(r, h->src);
+	return 0;
+}
+
+/* Field F of REC as a number in canonical units; -1 empty, -2 bad. */
+static int
+field_num(struct run *r, const struct csvin_rec *rec, int f, double *x)
+{
+	int i = r->map.col[f], rc;
+
+	if (i < 0 || rec->len[i] == 0)
+		return -1;
+	rc = num_parse(rec->f[i], rec->len[i], r->c->dec, x);
+	if (rc == NUM_EMPTY)
+		return -1;
+	if (rc != NUM_OK)
+		return -2;
+	switch (r->map.unit[f]) {
+	case CMU_MV:
+	case CMU_MA:
+		*x /= 1000.0;
+		break;
+	case CMU_F:
+		*x = (*x - 32.0) * (5.0 / 9.0);
+		break;
+	case CMU_K:
+		*x -= 273.15;
+		break;
+	case CMU_DK:
+		*x = *x / 10.0 - 273.15;
+		break;
+	case CMU_DC:
+		*x /= 10.0;
+		break;
+	case CMU_FRAC:
+		*x *= 100.0;
+		break;
+	}
+	return 0;
+}
+
+static int
+field_time(struct run *r, const struct csvin_rec *rec, cw_time *t)
+{
+	int i = r->map.col[CM_TIME], kind;
+	const char *s = rec->f[i];
+	size_t n = rec->len[i], k, digits;
+
+	switch (r->map.unit[CM_TIME]) {
+	case CMU_ISO:
+		kind = TS_ISO;
+		break;
+	case CMU_S:
+		kind = TS_EPOCH_S;
+		break;
+	case CMU_MS:
+		kind = TS_EPOCH_MS;
+		break;
+	case CMU_US:
+		kind = TS_EPOCH_US;
+		break;
+	default:
+		/* ISO by its date dashes, else epoch scaled by its size. */
+		if (n >= 10 && s[4] == '-') {
+			kind = TS_ISO;
+			break;
+		}
+		for (k = 0, digits = 0; k < n && s[k] != '.'; k++)
+			if ((unsigned)(s[k] - '0') <= 9)
+				digits++;
+		kind = digits <= 11 ? TS_EPOCH_S : digits <= 14 ?
+		    TS_EPOCH_MS : TS_EPOCH_US;
+		break;
+	}
+	return ts_parse(s, n, kind, r->c->tz_s, t);
+}
+
+static int
+on_row(void *ctx, const struct csvin_rec *rec)
+{
+	static const int fields[] = { CM_VOLTAGE, CM_CURRENT, CM_TEMP,
+	    CM_SOC };
+	struct run *r = ctx;
+	const struct clean_conf *c = r->c;
+	struct rs_point p;
+	double x[CM_NFIELD];
+	struct cdev *d;
+	const char *name;
+	size_t namelen, k, lo, hi;
+	int i, f, rc;
+
+	r->st->lines++;
+	if (rec->nf != r->hdr_nf)
+		return reject(r, rec, CR_MALFORMED);
+	if (c->device != NULL || c->device_from_file) {
+		name = c->device != NULL ? c->device : r->file_dev;
+		namelen = c->device != NULL ? strlen(c->device) :
+		    r->file_devlen;
+	} else {
+		i = r->map.col[CM_DEVICE];
+		if (rec->len[i] == 0)
+			return reject(r, rec, CR_MISSING);
+		name = rec->f[i];
+		namelen = rec->len[i];
+	}
+	if (rec->len[r->map.col[CM_TIME]] == 0)
+		return reject(r, rec, CR_MISSING);
+	if (field_time(r, rec, &p.t) < 0)
+		return reject(r, rec, CR_BADTIME);
+	for (k = 0; k < sizeof(fields) / sizeof(fields[0]); k++) {
+		f = fields[k];
+		rc = field_num(r, rec, f, &x[f]);
+		if (rc == -2)
+			return reject(r, rec, CR_BADNUM);
+		if (rc == -1) {
+			if (f == CM_VOLTAGE || f == CM_CURRENT)
+				return reject(r, rec, CR_MISSING);
+			x[f] = CW_MISSING;
+			continue;
+		}
+		if (f == CM_CURRENT && c->charge_negative)
+			x[f] = -x[f];
+		if (x[f] < c->lo[f] || x[f] > c->hi[f])
+			return reject(r, rec, CR_RANGE);
+	}
+	p.v = x[CM_VOLTAGE];
+	p.i = x[CM_CURRENT];
+	p.temp = x[CM_TEMP];
+	p.soc = x[CM_SOC];
+
+	d = r->last;
+	if (d == NULL || d->e.namelen != namelen ||
+	    memcmp(d->e.name, name, namelen) != 0) {
+		int isnew;
+
+		d = devtab_get(r->devs, name, namelen, &isnew);
+		if (isnew) {
+			d->max_seen = d->last_out = INT64_MIN;
+			r->st->devices++;
+		}
+		r->last = d;
+	}
+	/* Too late for the window, or a time already seen. */
+	if (p.t <= d->last_out)
+		return reject(r, rec, p.t == d->last_out ? CR_DUPLICATE :
+		    CR_ORDER);
+	lo = d->qh;
+	hi = d->qn;
+	while (lo < hi) {	/* first pending row not before p.t */
+		size_t mid = lo + (hi - lo) / 2;
+
+		if (d->q[mid].t < p.t)
+			lo = mid + 1;
+		else
+			hi = mid;
+	}
+	if (lo < d->qn && d->q[lo].t == p.t)
+		return reject(r, rec, CR_DUPLICATE);
+	r->st->accepted++;
+	if (c->reorder == 0 && d->qh == d->qn) {
+		release(r, d, &p);
+		d->max_seen = p.t;
+		return 0;
+	}
+	if (d->qn == d->qcap) {
+		if (d->qh > 0) {
+			memmove(d->q, d->q + d->qh, (d->qn - d->qh) *
+			    sizeof(*d->q));
+			d->qn -= d->qh;
+			lo -= d->qh;
+			d->qh = 0;
+		}
+		if (d->qn == d->qcap) {
+			d->qcap = d->qcap ? 2 * d->qcap : 16;
+			d->q = cw_realloc(d->q, d->qcap * sizeof(*d->q));
+		}
+	}
+	memmove(d->q + lo + 1, d->q + lo, (d->qn - lo) * sizeof(*d->q));
+	d->q[lo] = p;
+	d->qn++;
+	if (p.t > d->max_seen)
+		d->max_seen = p.t;
+	drain(r, d, d->max_seen - c->reorder);
+	return 0;
+}
+
+/* Release pending rows of D up to time UPTO. */
+static void
+drain(struct run *r, struct cdev *d, cw_time upto)
+{
+	while (d->qh < d->qn && d->q[d->qh].t <= upto) {
+		struct rs_point p = d->q[d->qh++];
+
+		release(r, d, &p);
+	}
+	if (d->qh == d->qn)
+		d->qh = d->qn = 0;
+}
+
+/* A row leaves the reorder window, in time order. */
+static void
+release(struct run *r, struct cdev *d, const struct rs_point *p0)
+{
+	const struct clean_conf *c = r->c;
+	struct rs_point p = *p0;
+
+	if (c->soc_ah > 0) {
+		if (d->soc_known) {
+			cw_time dt = p.t - d->soc_t;
+
+			if (dt > c->max_gap || !cw_isnum(p.i))
+				d->soc_known = 0;
+			else {
+				d->soc += p.i * (double)dt / (36.0 *
+				    CW_US_PER_S * c->soc_ah);
+				if (d->soc > 100)
+					d->soc = 100;
+				if (d->soc < 0)
+					d->soc = 0;
+			}
+		}
+		/* Full: at the full voltage with the current below C/20. */
+		if (p.v >= c->full_v && p.i < c->soc_ah / 20 &&
+		    p.i > -c->soc_ah / 20) {
+			d->soc = 100;
+			d->soc_known = 1;
+		}
+		d->soc_t = p.t;
+		p.soc = d->soc_known ? d->soc : CW_MISSING;
+	}
+	d->last_out = p.t;
+	r->cur = d;
+	if (c->step > 0)
+		rs_push(&d->rs, &p, c->step, c->max_gap, emit, r);
+	else
+		emit(r, &p);
+}
+
+static void
+emit(void *ctx, const struct rs_point *p)
+{
+	struct run *r = ctx;
+	struct csvout *w = r->out;
+
+	csvout_strn(w, r->cur->e.name, r->cur->e.namelen);
+	csvout_time(w, p->t);
+	csvout_num(w, p->v);
+	csvout_num(w, p->i);
+	csvout_num(w, p->temp);
+	csvout_num(w, p->soc);
+	csvout_endrow(w);
+	r->st->written++;
+}
+
+static int
+on_bad(void *ctx, const struct csvin_rec *rec, const char *why)
+{
+	struct run *r = ctx;
+
+	(void)why;
+	r->st->lines++;
+	return reject(r, rec, CR_MALFORMED);
+}
+
+static int
+on_blank(void *ctx, const struct csvin_rec *rec)
+{
+	struct run *r = ctx;
+
+	r->st->lines++;
+	return reject(r, rec, CR_EMPTY);
+}
+
+int
+clean_run(const struct clean_conf *c, char **files, int n,
+    struct csvout *out, struct csvout *rej, struct clean_stats *st)
+{
+	static const struct csvin_ops ops = { on_header, on_row, on_bad,
+	    on_blank };
+	struct run r;
+	struct csvin *in;
+	size_t i;
+	int rc;
+
+	memset(st, 0, sizeof(*st));
+	memset(&r, 0, sizeof(r));
+	r.c = c;
+	r.st = st;
+	r.out = out;
+	r.rej = rej;
+	r.devs = devtab_new(sizeof(struct cdev));
+	r.required = (1u << CM_TIME) | (1u << CM_VOLTAGE) | (1u << CM_CURRENT);
+	if (c->device == NULL && !c->device_from_file)
+		r.required |= 1u << CM_DEVICE;
+	csvout_header(out, "device,time,voltage_v,current_a,temp_c,soc_pct");
+	if (rej != NULL)
+		csvout_header(rej, "source,line,reason,record");
+	in = csvin_new(c->delim, &ops, &r);
+	rc = csvin_files(in, files, n);
+	st->header_repeats = csvin_stats(in)->header_repeats;
+	csvin_free(in);
+	/* What is still in the windows leaves now, device by device. */
+	for (i = 0; i < devtab_count(r.devs); i++) {
+		struct cdev *d = devtab_at(r.devs, i);
+
+		drain(&r, d, INT64_MAX);
+		free(d->q);
+	}
+	devtab_free(r.devs);
+	return rc;
+}

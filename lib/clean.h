@@ -1,0 +1,55 @@
+/*
+ * clean.h: the cleaning engine behind cw-clean.  Raw log rows are mapped
+ * to fields, converted to canonical units and sign, checked, de-duplicated
+ * and put back in time order per device within a bounded window, given a
+ * coulomb-counted SoC if asked, then written as the sample stream at their
+ * own times or resampled onto a grid.  Every data line is either accepted
+ * or rejected with a reason.
+ */
+#ifndef CLEAN_H
+#define CLEAN_H
+
+#include <stdio.h>
+
+#include "colmap.h"
+#include "csvout.h"
+
+enum clean_reason {
+	CR_MALFORMED, CR_MISSING, CR_BADNUM, CR_BADTIME, CR_RANGE,
+	CR_DUPLICATE, CR_ORDER, CR_EMPTY, CR_NREASON
+};
+
+extern const char *const clean_reason_name[CR_NREASON];
+
+struct clean_conf {
+	struct colmap_spec spec;
+	const char *device;	/* --device NAME */
+	int device_from_file;	/* --device @file */
+	int charge_negative;
+	char delim, dec;
+	long tz_s;		/* offset of zone-less local times */
+	double lo[CM_NFIELD], hi[CM_NFIELD];	/* bounds, canonical units */
+	cw_time reorder, step, max_gap;	/* step 0: no resampling */
+	double soc_ah;		/* --soc-from-charge, 0 when off */
+	double full_v;		/* full-charge voltage */
+};
+
+struct clean_stats {
+	unsigned long lines;	/* data lines read */
+	unsigned long accepted;
+	unsigned long rejected;
+	unsigned long reason[CR_NREASON];
+	unsigned long written;	/* sample rows written */
+	unsigned long header_repeats;
+	unsigned long devices;
+};
+
+void	clean_conf_default(struct clean_conf *c);
+/*
+ * Clean FILES[0..N) (stdin when N is 0) to OUT; rejected lines to REJ
+ * (may be NULL).  Returns 0 or an exit code (input error, reported).
+ */
+int	clean_run(const struct clean_conf *c, char **files, int n,
+	    struct csvout *out, struct csvout *rej, struct clean_stats *st);
+
+#endif

@@ -1,0 +1,35 @@
+/*
+ * resample.h: one device's samples onto a regular grid.  Grid points are
+ * the multiples of STEP since the epoch.  Voltage, temperature and SoC are
+ * interpolated linearly between the samples around a grid point; current
+ * is the mean over (g - STEP, g] of the piecewise-constant current of the
+ * sample stream (a row's current holds over the interval ending at it), so
+ * the charge of the resampled stream equals the charge of the input.
+ * Nothing is interpolated across an interval longer than MAX_GAP: the grid
+ * starts again after it.
+ */
+#ifndef RESAMPLE_H
+#define RESAMPLE_H
+
+#include "cw.h"
+
+struct rs_point {
+	cw_time t;
+	double v, i, temp, soc;
+};
+
+struct rs_state {
+	int have;		/* prev holds a sample */
+	struct rs_point prev;
+	cw_time g_next;		/* next grid point to emit */
+	cw_time acc_start;	/* start of the current grid interval */
+	cw_time acc_pos;	/* charge accumulated up to here */
+	double acc;		/* integral of current, A*us, since acc_start */
+};
+
+typedef void (*rs_emit_fn)(void *ctx, const struct rs_point *p);
+
+void	rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
+	    cw_time max_gap, rs_emit_fn emit, void *ctx);
+
+#endif
