@@ -326,7 +326,7 @@ thermal_push(struct thermal_dev *d, const struct thermal_conf *c, cw_time t,
 		}
 		if (side != 0) {
 			if (r->pending && r->pend_side == side &&
-			    t0 - r->pend.end <= c->merge) {
+			    c->merge > 0 && t0 - r->pend.end <= c->merge) {
 				run_join(d, r);
 			} else {
 				if (r->pending)

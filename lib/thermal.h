@@ -112,7 +112,8 @@ struct thermal_conf {
 	struct thermal_limits lim;
 	double min_current;	/* A; charging above it, discharge below -it */
 	cw_time min_duration;	/* shorter events are dropped */
-	cw_time merge;		/* events at most this far apart are joined */
+	cw_time merge;		/* events at most this far apart are joined;
+				   0: never */
 	cw_time max_gap;	/* a longer interval ends an event */
 	void	(*emit)(void *ctx, struct thermal_dev *dev,
 		    const struct thermal_event *ev);
@@ -137,7 +138,8 @@ struct thermal_run {
 };
 
 /*
- * The per-device state; set it up with thermal_init().  Besides the
+ * The per-device state; set it up with thermal_init() (all-zero memory is
+ * the same state, so a zeroed devtab entry will do).  Besides the
  * detector it keeps what a summary needs: the first and last time, the Ah
  * charged per zone (rows with current above the minimum, each in the zone
  * of its own temperature, no hysteresis) and the events emitted per kind
