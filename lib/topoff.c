@@ -38,6 +38,7 @@ topoff_init(struct topoff *st)
 static void
 peak_reset(struct topoff *st, cw_time t, double x, int rest)
 {
+	st->phase = TOPOFF_WATCH;
 	st->peak = x;
 	st->peak_t = t;
 	st->trough = x;
@@ -57,7 +58,6 @@ hold_begin(struct topoff *st, int sig, cw_time t, double x, int rest)
 	st->hold.rows = 1;
 	st->lvl_top = sig == TOPOFF_SOC && x >= TOPOFF_AT_TOP_PCT - TOPOFF_EPS;
 	st->rested = rest;
-	st->phase = TOPOFF_WATCH;
 	peak_reset(st, t, x, rest);
 }
 
