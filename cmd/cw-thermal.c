@@ -182,8 +182,8 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 		merges += d->th.merges;
 	}
 	sampin_report(st, NULL);
-	cw_warn("%zu devices; %lu rows without temperature or current not "
-	    "judged", n, unjudged);
+	cw_warn("%zu device%s; %lu rows without temperature or current not "
+	    "judged", n, n == 1 ? "" : "s", unjudged);
 	cw_warn("%lu charge events, %lu use events; %lu shorter than "
 	    "--min-duration dropped; %lu joined by --merge",
 	    ev[THERMAL_CHARGE], ev[THERMAL_USE], dropped, merges);
