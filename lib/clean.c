@@ -258,6 +258,8 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	if (p.t <= d->last_out)
 		return reject(r, rec, p.t == d->last_out ? CR_DUPLICATE :
 		    CR_ORDER);
+	if (d->max_seen != INT64_MIN && p.t < d->max_seen - c->reorder)
+		return reject(r, rec, CR_ORDER);
 	lo = d->qh;
 	hi = d->qn;
 	while (lo < hi) {	/* first pending row not before p.t */
