@@ -21,6 +21,7 @@ struct outf {
 	char *path;		/* NULL: standard output */
 	char tmp[4096];
 	int live;		/* temporary exists, not yet renamed */
+	int direct;		/* not a regular file: written in place */
 };
 
 static struct outf slots[OUTF_MAX];
@@ -61,6 +62,7 @@ outf_open(const char *path)
 	static char obuf[256 * 1024];
 	struct outf *o;
 	const char *slash, *base;
+	struct stat st;
 	int fd;
 
 	if (nslots == OUTF_MAX)
@@ -84,6 +86,20 @@ outf_open(const char *path)
 			sigaction(sigs[i], &sa, NULL);
 		atexit(cleanup);
 		hooked = 1;
+	}
+	/*
+	 * A path that exists and is not a regular file (/dev/stderr, a FIFO,
+	 * a symbolic link) is written in place: renaming over it would
+	 * replace the device or the link with a plain file.
+	 */
+	if (lstat(path, &st) == 0 && !S_ISREG(st.st_mode)) {
+		o->fp = fopen(path, "w");
+		if (o->fp == NULL)
+			cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));
+		o->path = cw_strdup(path);
+		o->direct = 1;
+		nslots++;
+		return o;
 	}
 	slash = strrchr(path, '/');
 	base = slash ? slash + 1 : path;
@@ -129,6 +145,16 @@ outf_commit(struct outf *o)
 		return 0;
 	}
 	bad = fflush(o->fp) != 0 || ferror(o->fp);
+	if (o->direct) {
+		bad |= fclose(o->fp) != 0;
+		o->fp = NULL;
+		if (bad) {
+			cw_warn("%s: write error: %s", o->path,
+			    strerror(errno));
+			return -1;
+		}
+		return 0;
+	}
 	bad |= fsync(fileno(o->fp)) != 0 && errno != EINVAL;
 	bad |= fclose(o->fp) != 0;
 	o->fp = NULL;
