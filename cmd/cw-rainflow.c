@@ -1,0 +1,397 @@
+/*
+ * cw-rainflow: rainflow cycle counting per device (ASTM E1049-85) over
+ * the sample stream.  The counting is lib/rainflow.c; this is the glue.
+ */
+#include <errno.h>
+#include <getopt.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "num.h"
+#include "opt.h"
+#include "outf.h"
+#include "rainflow.h"
+#include "sampin.h"
+
+enum { OUT_CYCLES, OUT_HISTOGRAM, OUT_MATRIX, OUT_SUMMARY };
+
+enum {
+	OPT_HISTOGRAM = 256, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
+	OPT_SIGNAL, OPT_SUMMARY, OPT_VERSION
+};
+
+/* One device's state; the devtab header comes first. */
+struct dev {
+	struct devent e;
+	int ready;		/* rf and hist initialised */
+	struct rf_state rf;
+	struct rf_hist hist;
+	struct rf_sum sum;
+	cw_time first, last;	/* of the samples with a numeric signal */
+	unsigned long nsig;	/* how many */
+};
+
+struct run {
+	int out;		/* OUT_* */
+	int residue;		/* RF_RESIDUE_* */
+	int col;		/* the signal's sampin column */
+	const char *signal;	/* its name */
+	int efc;		/* the signal is SoC: write efc */
+	double hyst, rw, mw;
+	struct csvout w;
+	struct devtab *devs;
+	struct dev *cur;	/* the device emit() counts for */
+	unsigned long nosig;	/* rows without a numeric signal */
+};
+
+static void usage(FILE *, int);
+static double width_arg(const char *, const char *);
+static void matrix_arg(struct run *, const char *);
+static void signal_arg(struct run *, const char *);
+static int on_row(void *, void *, const struct cw_sample *);
+static void emit(void *, const struct rf_cycle *);
+static void write_device(struct run *, struct dev *);
+static void write_summary(struct run *, struct dev *);
+static void flush_or_die(struct run *);
+
+static void
+usage(FILE *fp, int code)
+{
+	fprintf(fp,
+	    "usage: %s [-v] [-o file] [--signal column] [--hysteresis x]\n"
+	    "       [--histogram width | --matrix width[,mean_width] | "
+	    "--summary]\n"
+	    "       [--residue half|full|repeat] [file ...]\n", cw_prog);
+	exit(code);
+}
+
+static double
+width_arg(const char *opt, const char *s)
+{
+	double w = opt_num_arg(opt, s, 0, 1e300);
+
+	if (!(w > 0))
+		cw_usage_error("%s: the width must be above 0", opt);
+	return w;
+}
+
+/* --matrix W or W,MW: range bin width, mean bin width (default W). */
+static void
+matrix_arg(struct run *r, const char *s)
+{
+	const char *comma = strchr(s, ',');
+	char buf[64];
+
+	if (comma == NULL) {
+		r->rw = r->mw = width_arg("--matrix", s);
+		return;
+	}
+	if ((size_t)(comma - s) >= sizeof(buf))
+		cw_usage_error("--matrix: '%s' is not a width", s);
+	memcpy(buf, s, (size_t)(comma - s));
+	buf[comma - s] = '\0';
+	r->rw = width_arg("--matrix", buf);
+	r->mw = width_arg("--matrix", comma + 1);
+}
+
+static void
+signal_arg(struct run *r, const char *s)
+{
+	int k;
+
+	if (s[0] == '\0')
+		cw_usage_error("--signal: empty column name");
+	r->signal = s;
+	for (k = 0; k < SAMP_EXTRA; k++)
+		if (strcmp(s, sampin_colname[k]) == 0)
+			break;
+	if (k == SAMP_DEVICE || k == SAMP_TIME)
+		cw_usage_error("--signal: '%s' is not a numeric column", s);
+	r->col = k;		/* SAMP_EXTRA when not a stream column */
+}
+
+static void
+emit(void *ctx, const struct rf_cycle *c)
+{
+	struct run *r = ctx;
+	struct dev *d = r->cur;
+
+	rf_sum_add(&d->sum, c);
+	switch (r->out) {
+	case OUT_CYCLES:
+		csvout_strn(&r->w, d->e.name, d->e.namelen);
+		csvout_num(&r->w, c->range);
+		csvout_num(&r->w, c->mean);
+		csvout_num(&r->w, c->count);
+		csvout_time(&r->w, c->start);
+		csvout_time(&r->w, c->end);
+		csvout_num(&r->w, c->aux_mean);
+		csvout_endrow(&r->w);
+		break;
+	case OUT_HISTOGRAM:
+	case OUT_MATRIX:
+		rf_hist_add(&d->hist, c);
+		break;
+	}
+}
+
+static int
+on_row(void *ctx, void *dp, const struct cw_sample *s)
+{
+	struct run *r = ctx;
+	struct dev *d = dp;
+	double x;
+
+	if (!d->ready) {
+		rf_init(&d->rf, r->hyst);
+		rf_hist_init(&d->hist, r->rw, r->out == OUT_MATRIX ? r->mw :
+		    0);
+		d->ready = 1;
+	}
+	switch (r->col) {
+	case SAMP_VOLTAGE:
+		x = s->v;
+		break;
+	case SAMP_CURRENT:
+		x = s->i;
+		break;
+	case SAMP_TEMP:
+		x = s->temp;
+		break;
+	case SAMP_SOC:
+		x = s->soc;
+		break;
+	default:
+		x = s->x;
+		break;
+	}
+	if (!cw_isnum(x)) {
+		r->nosig++;
+		return 0;
+	}
+	if (d->nsig++ == 0)
+		d->first = s->t;
+	d->last = s->t;
+	r->cur = d;
+	rf_push(&d->rf, s->t, x, s->temp, emit, r);
+	return r->w.err ? CW_EXIT_DATA : 0;
+}
+
+/* The rows of one device at the end of the stream. */
+static void
+write_device(struct run *r, struct dev *d)
+{
+	struct rf_cell *c;
+	size_t i, n;
+
+	r->cur = d;
+	rf_finish(&d->rf, r->residue, emit, r);
+	if (r->out == OUT_SUMMARY) {
+		write_summary(r, d);
+		return;
+	}
+	if (r->out == OUT_CYCLES)
+		return;
+	c = rf_hist_sorted(&d->hist, &n);
+	for (i = 0; i < n; i++) {
+		csvout_strn(&r->w, d->e.name, d->e.namelen);
+		csvout_num(&r->w, (double)c[i].ri * r->rw);
+		csvout_num(&r->w, (double)(c[i].ri + 1) * r->rw);
+		if (r->out == OUT_MATRIX) {
+			csvout_num(&r->w, (double)c[i].mi * r->mw);
+			csvout_num(&r->w, (double)(c[i].mi + 1) * r->mw);
+		}
+		csvout_num(&r->w, c[i].cycles);
+		csvout_endrow(&r->w);
+	}
+	free(c);
+}
+
+static void
+write_summary(struct run *r, struct dev *d)
+{
+	csvout_strn(&r->w, d->e.name, d->e.namelen);
+	csvout_num(&r->w, d->sum.cycles);
+	if (r->efc)
+		csvout_num(&r->w, d->sum.range_sum / 100);
+	else
+		csvout_empty(&r->w);
+	if (d->sum.cycles > 0)
+		csvout_num(&r->w, d->sum.max_range);
+	else
+		csvout_empty(&r->w);
+	csvout_num(&r->w, rf_sum_mean_range(&d->sum));
+	if (d->nsig > 0) {
+		csvout_time(&r->w, d->first);
+		csvout_time(&r->w, d->last);
+	} else {
+		csvout_empty(&r->w);
+		csvout_empty(&r->w);
+	}
+	csvout_endrow(&r->w);
+}
+
+static void
+flush_or_die(struct run *r)
+{
+	if (csvout_flush(&r->w) != 0)
+		cw_die(CW_EXIT_DATA, "write error: %s", strerror(errno));
+}
+
+int
+main(int argc, char *argv[])
+{
+	static const struct option longopts[] = {
+		{ "help", no_argument, NULL, 'h' },
+		{ "histogram", required_argument, NULL, OPT_HISTOGRAM },
+		{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
+		{ "matrix", required_argument, NULL, OPT_MATRIX },
+		{ "output", required_argument, NULL, 'o' },
+		{ "residue", required_argument, NULL, OPT_RESIDUE },
+		{ "signal", required_argument, NULL, OPT_SIGNAL },
+		{ "summary", no_argument, NULL, OPT_SUMMARY },
+		{ "verbose", no_argument, NULL, 'v' },
+		{ "version", no_argument, NULL, OPT_VERSION },
+		{ NULL, 0, NULL, 0 }
+	};
+	static const char *const header[] = {
+		"device,range,mean,count,start,end,temp_c",
+		"device,range_lo,range_hi,cycles",
+		"device,range_lo,range_hi,mean_lo,mean_hi,cycles",
+		"device,cycles,efc,max_range,mean_range,first,last"
+	};
+	struct run r;
+	struct sampin_conf conf;
+	struct sampin_stats st;
+	struct outf *o;
+	const char *outpath = NULL;
+	void **sorted;
+	size_t i, n;
+	int ch, nout = 0, rc;
+
+	cw_setprog("cw-rainflow");
+	memset(&r, 0, sizeof(r));
+	r.out = OUT_CYCLES;
+	r.residue = RF_RESIDUE_HALF;
+	r.hyst = 1;
+	r.rw = 1;
+	signal_arg(&r, "soc_pct");
+	while ((ch = getopt_long(argc, argv, "ho:v", longopts, NULL)) != -1) {
+		switch (ch) {
+		case 'h':
+			usage(stdout, CW_EXIT_OK);
+			break;
+		case 'o':
+			outpath = optarg;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_HISTOGRAM:
+			r.out = OUT_HISTOGRAM;
+			r.rw = width_arg("--histogram", optarg);
+			nout++;
+			break;
+		case OPT_HYSTERESIS:
+			r.hyst = opt_num_arg("--hysteresis", optarg, 0, 1e300);
+			break;
+		case OPT_MATRIX:
+			r.out = OUT_MATRIX;
+			matrix_arg(&r, optarg);
+			nout++;
+			break;
+		case OPT_RESIDUE:
+			if (strcmp(optarg, "half") == 0)
+				r.residue = RF_RESIDUE_HALF;
+			else if (strcmp(optarg, "full") == 0)
+				r.residue = RF_RESIDUE_FULL;
+			else if (strcmp(optarg, "repeat") == 0)
+				r.residue = RF_RESIDUE_REPEAT;
+			else
+				cw_usage_error("--residue: '%s' is not half, "
+				    "full or repeat", optarg);
+			break;
+		case OPT_SIGNAL:
+			signal_arg(&r, optarg);
+			break;
+		case OPT_SUMMARY:
+			r.out = OUT_SUMMARY;
+			nout++;
+			break;
+		case OPT_VERSION:
+			cw_print_version();
+			break;
+		default:
+			usage(stderr, CW_EXIT_USAGE);
+		}
+	}
+	if (nout > 1)
+		cw_usage_error("--histogram, --matrix and --summary exclude "
+		    "each other");
+	r.efc = strcmp(r.signal, "soc_pct") == 0;
+
+	memset(&conf, 0, sizeof(conf));
+	conf.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
+	conf.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(r.col);
+	conf.row = on_row;
+	conf.ctx = &r;
+	r.devs = devtab_new(sizeof(struct dev));
+	conf.devs = r.devs;
+
+	o = outf_open(outpath);
+	csvout_init(&r.w, outf_fp(o));
+	csvout_header(&r.w, header[r.out]);
+	rc = sampin_run(&conf, argv + optind, argc - optind, &st);
+	if (rc != 0) {
+		/*
+		 * Rows written to standard output stay (they are whole); an
+		 * output file is not put in place.
+		 */
+		csvout_flush(&r.w);
+		outf_abort(o);
+		return rc;
+	}
+	sorted = devtab_sorted(r.devs);
+	n = devtab_count(r.devs);
+	for (i = 0; i < n; i++)
+		write_device(&r, sorted[i]);
+	flush_or_die(&r);
+	if (outf_commit(o) != 0)
+		return CW_EXIT_DATA;
+
+	if (cw_verbose) {
+		struct rf_sum all = { 0 };
+
+		for (i = 0; i < n; i++) {
+			struct dev *d = sorted[i];
+
+			all.cycles += d->sum.cycles;
+			all.full += d->sum.full;
+			all.half += d->sum.half;
+		}
+		sampin_report(&st, conf.extra);
+		cw_warn("%zu devices, %g cycles (%lu full, %lu half)", n,
+		    all.cycles, all.full, all.half);
+		cw_warn("%lu rows without a numeric %s value skipped",
+		    r.nosig, r.signal);
+	} else if (st.used > 0 && r.nosig == st.used)
+		cw_warn("no row has a numeric %s value (%lu rows)", r.signal,
+		    st.used);
+	for (i = 0; i < n; i++) {
+		struct dev *d = sorted[i];
+
+		if (d->ready) {
+			rf_free(&d->rf);
+			rf_hist_free(&d->hist);
+		}
+	}
+	free(sorted);
+	devtab_free(r.devs);
+	csvout_free(&r.w);
+	return CW_EXIT_OK;
+}
