@@ -1,6 +1,15 @@
 # cellwear: see README.md.  `make`, `make check`, `make install`.
 include config.mk
 
+# make check SANITIZE=1: the whole suite under ASan and UBSan (clang).
+SANITIZE =
+ifeq ($(SANITIZE),1)
+SANFLAGS = -fsanitize=address,undefined -fno-sanitize-recover=all -fno-omit-frame-pointer
+CC = clang
+CFLAGS = -O1 -g $(SANFLAGS)
+LDFLAGS = $(SANFLAGS)
+endif
+
 BIN     = $(patsubst cmd/%.c,bin/%,$(wildcard cmd/*.c))
 LIBSRC  = $(wildcard lib/*.c)
 LIBOBJ  = $(patsubst lib/%.c,build/lib/%.o,$(LIBSRC))
@@ -13,7 +22,14 @@ TOOLS   = $(patsubst tests/tools/%.c,build/tests/%,$(TOOLSRC))
 
 all: $(BIN)
 
-build/lib/%.o: lib/%.c $(LIBHDR) config.mk
+# Objects are rebuilt whenever the compiler or flags change.
+FLAGSTAMP = build/flags.stamp
+$(FLAGSTAMP): FORCE
+	@mkdir -p build
+	@echo '$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS)' > $@.new
+	@if cmp -s $@.new $@; then rm -f $@.new; else mv $@.new $@; fi
+
+build/lib/%.o: lib/%.c $(LIBHDR) config.mk $(FLAGSTAMP)
 	@mkdir -p build/lib
 	$(CC) $(CWFLAGS) $(CFLAGS) -c -o $@ $<
 
@@ -21,15 +37,15 @@ build/libcw.a: $(LIBOBJ)
 	rm -f $@
 	ar rcs $@ $(LIBOBJ)
 
-bin/%: cmd/%.c build/libcw.a $(LIBHDR)
+bin/%: cmd/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p bin
 	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
 
-build/tests/%: tests/unit/%.c build/libcw.a $(LIBHDR)
+build/tests/%: tests/unit/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
 	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a -lcmocka $(LDLIBS)
 
-build/tests/%: tests/tools/%.c build/libcw.a $(LIBHDR)
+build/tests/%: tests/tools/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
 	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
 
@@ -57,5 +73,7 @@ uninstall:
 clean:
 	rm -rf bin build
 
-.PHONY: all deps tests check lint install uninstall clean
+FORCE:
+
+.PHONY: all deps tests check lint install uninstall clean FORCE
 .SECONDARY: $(LIBOBJ)
