@@ -292,8 +292,10 @@ scan_quoted(const struct csvin *r, const char *p, const char *e, int eof,
 		}
 		if (fstart && c == '"')
 			inq = 1;
-		/* libcsv skips blanks before an opening quote: so do we. */
-		fstart = c == r->delim || (fstart && c == ' ');
+		/* libcsv skips blanks (space, tab unless it is the
+		 * delimiter) before an opening quote: so do we. */
+		fstart = c == r->delim || (fstart && (c == ' ' ||
+		    (c == '\t' && r->delim != '\t')));
 	}
 	*nl = k;
 	return inq ? -1 : 1;
