@@ -138,9 +138,12 @@ hold_row(struct topoff *st, const struct topoff_conf *c, cw_time t,
 		st->rested = 1;
 
 	if (st->phase == TOPOFF_RECHARGE) {
-		if (x < st->trough)
+		if (x < st->trough) {
+			/* Still falling: the rise counts from here. */
 			st->trough = x;
-		if (x >= st->rise) {
+			st->rise = x;
+			st->rise_t = t;
+		} else if (x >= st->rise) {
 			st->rise = x;
 			st->rise_t = t;
 		}
@@ -160,8 +163,11 @@ hold_row(struct topoff *st, const struct topoff_conf *c, cw_time t,
 	}
 
 	if (x < st->peak) {
-		if (x < st->trough)
+		if (x < st->trough) {
+			/* A deeper trough: an earlier rise no longer counts. */
 			st->trough = x;
+			st->recharged = 0;
+		}
 		if (st->peak - st->trough >= c->min_depth - TOPOFF_EPS)
 			st->dropped = 1;
 	}

@@ -24,8 +24,10 @@
  *	2. the level falls at least min_depth below the peak;
  *	3. the charger takes over again: a row with current above
  *	   min_current (the recharge);
- *	4. the recharge brings the level back up by at least half the drop,
- *	   to peak - depth / 2 or higher;
+ *	4. the recharge brings the level back up from the trough by at least
+ *	   half the drop, to peak - depth / 2 or higher (the levels that
+ *	   count are those of the charging rows and of the resting row that
+ *	   ends them, after the trough: a rebound without charge does not);
  *
  * and it ends at the last charging row of the recharge, that is when a
  * row with current at or below min_current follows, or when the hold ends.
@@ -144,8 +146,9 @@ struct topoff {
 	cw_time peak_t;
 	int idle;		/* the charger rested since the peak */
 	int dropped;		/* the level went min_depth below the peak */
-	int recharged;		/* a charging row came after the drop */
-	double rise;		/* highest level since the recharge began */
+	int recharged;		/* a charging row came after the trough */
+	double rise;		/* highest level since then, charging rows and
+				 * the resting row that ends a recharge */
 	cw_time rise_t;
 	cw_time chg_t;		/* last charging row of the recharge */
 	double cyc_ah;		/* charge of the recharge so far */

@@ -488,6 +488,35 @@ test_pulsed(void **unused)
 }
 
 /*
+ * Regenerative pulses during use, at whole percent: 100, down to 99, a
+ * pulse that holds it at 99 (half of the drop of 1 would be 99.5: not
+ * back), on down to 98, a pulse holding 98.  The rise of the first pulse
+ * (99) came before the deeper trough and must not count against it: no
+ * micro-cycle.  The real case that showed it: tests/ref/topoff_fleet.sh.
+ */
+static void
+test_regen_deeper(void **unused)
+{
+	static const double lvl[] = { 100, 100, 99, 99, 99, 99, 98, 98, 98,
+	    98, 97, 96, 95, 94 };
+	static const double cur[] = { 0, 0, -9, 4, 4, -9, -9, 4, 4, -9, -9,
+	    -9, -9, -9 };
+	struct topoff_conf c;
+	struct topoff st;
+	size_t k;
+
+	(void)unused;
+	conf_init(&c);
+	topoff_init(&st);
+	for (k = 0; k < sizeof(lvl) / sizeof(lvl[0]); k++)
+		topoff_push(&st, &c, (cw_time)k * 10 * S, CW_MISSING, cur[k],
+		    lvl[k]);
+	topoff_finish(&st, &c);
+	assert_int_equal(rec.nh, 1);
+	assert_int_equal(rec.nc, 0);
+}
+
+/*
  * The stream ends in the middle of a recharge: counted when it has come
  * back half way (100 -> 97 -> 99), not when it has not (100 -> 97 -> 98).
  */
@@ -860,6 +889,7 @@ main(void)
 		cmocka_unit_test(test_deep_cycling),
 		cmocka_unit_test(test_charge_noise),
 		cmocka_unit_test(test_pulsed),
+		cmocka_unit_test(test_regen_deeper),
 		cmocka_unit_test(test_end_in_recharge),
 		cmocka_unit_test(test_gap),
 		cmocka_unit_test(test_voltage),
