@@ -217,7 +217,7 @@ run_close(struct thermal_run *r)
 	r->gap_ah = 0.0;
 	r->gap_tmin = INFINITY;
 	r->gap_tmax = -INFINITY;
-	r->gap_soc = CW_MISSING;
+	r->gap_soc0 = r->gap_soc = CW_MISSING;
 	r->gap_rows = 0;
 }
 
@@ -233,6 +233,8 @@ run_join(struct thermal_dev *d, struct thermal_run *r)
 		ev->temp_min = r->gap_tmin;
 	if (r->gap_tmax > ev->temp_max)
 		ev->temp_max = r->gap_tmax;
+	if (!cw_isnum(ev->soc_start))
+		ev->soc_start = r->gap_soc0;
 	if (cw_isnum(r->gap_soc))
 		ev->soc_end = r->gap_soc;
 	ev->rows += r->gap_rows;
@@ -268,8 +270,11 @@ gap_add(struct thermal_run *r, double ah, double temp_c, double soc)
 		if (temp_c > r->gap_tmax)
 			r->gap_tmax = temp_c;
 	}
-	if (cw_isnum(soc))
+	if (cw_isnum(soc)) {
+		if (!cw_isnum(r->gap_soc0))
+			r->gap_soc0 = soc;
 		r->gap_soc = soc;
+	}
 	r->gap_rows++;
 }
 

@@ -133,6 +133,7 @@ struct thermal_run {
 	struct thermal_event pend;
 	double gap_ah;		/* charge since PEND ended */
 	double gap_tmin, gap_tmax;
+	double gap_soc0;	/* first known SoC since PEND ended, or NaN */
 	double gap_soc;		/* last known SoC since PEND ended, or NaN */
 	unsigned long gap_rows;
 };

@@ -499,6 +499,32 @@ test_unjudged(void **st)
 	near(d.ah.no_temp, 60.0 / 3600, 1e-12);
 }
 
+/*
+ * SoC at the start of a merged event whose first part knows none: the
+ * first SoC known inside the event, a row between the parts included
+ * (found by tests/ref/thermal_events.sh).
+ */
+static void
+test_merge_soc(void **st)
+{
+	static const double rows[][4] = {
+		{ 0, 0.0, 20, NA }, { 60, 1.0, 5, NA }, { 120, 1.0, NA, 31.2 },
+		{ 180, 1.0, 5, 31.3 }, { 240, 1.0, 5, 31.4 },
+		{ 300, 0.0, 20, 31.4 },
+	};
+	struct thermal_conf c;
+	struct thermal_dev d;
+
+	(void)st;
+	setup_conf(&c);
+	thermal_init(&d);
+	feed(&d, &c, rows, sizeof(rows) / sizeof(rows[0]));
+	assert_int_equal(ngot, 1);
+	assert_int_equal(got[0].parts, 2);
+	near(got[0].soc_start, 31.2, 0);
+	near(got[0].soc_end, 31.4, 0);
+}
+
 int
 main(void)
 {
@@ -518,6 +544,7 @@ main(void)
 		cmocka_unit_test(test_min_duration),
 		cmocka_unit_test(test_max_gap),
 		cmocka_unit_test(test_unjudged),
+		cmocka_unit_test(test_merge_soc),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
