@@ -2,8 +2,8 @@
  * test_theilsen.c: the Theil-Sen line (theilsen.h).
  *
  * References.  The slope is by definition the median of the pairwise
- * slopes (y_j - y_i) / (x_j - x_i) over pairs with x_i < x_j (H. Theil,
- * 1950; P. K. Sen, JASA 63, 1968); the hand-worked example below lists
+ * slopes (y_j - y_i) / (x_j - x_i) over pairs with x_i < x_j (Theil
+ * 1950; Sen 1968, JASA 63); the hand-worked example below lists
  * them.  The confidence interval follows Sen (1968) eq. 2.6; it is checked
  * against scipy.stats.theilslopes in tests/ref/dcir-theilsen.sh, not here.
  * The counting path (inversions of y - t x) is checked against listing

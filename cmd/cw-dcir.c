@@ -1,0 +1,405 @@
+/*
+ * cw-dcir: DC internal resistance from the current steps of the sample
+ * stream, corrected to a reference temperature, one row per step; or with
+ * --trend its growth per device.  The engine is lib/dcir.c (steps, the
+ * Arrhenius correction, the trend) and lib/theilsen.c (the robust fit);
+ * this file holds the options and the output.
+ */
+#include <errno.h>
+#include <getopt.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "dcir.h"
+#include "devtab.h"
+#include "opt.h"
+#include "outf.h"
+#include "sampin.h"
+#include "ts.h"
+
+#define STEP_HEADER "device,time,soc_pct,temp_c,delta_i_a,delta_v_v," \
+	"r_ohm,r_ref_ohm,dt_s,i_pre_a"
+#define TREND_HEADER "device,steps,first,last,r_start_ohm,r_end_ohm," \
+	"growth_pct,growth_pct_per_30d,eol_date,fit_steps," \
+	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day"
+
+/* Points kept per device for the trend before thinning sets in. */
+#define MAX_POINTS_DEFAULT 2048
+
+/* The per-device state: the devent first, as devtab wants. */
+struct dev {
+	struct devent e;
+	struct dcir_dev det;
+	struct dcir_series ser;
+};
+
+struct tool {
+	struct dcir_conf conf;
+	struct dcir_trend_conf tconf;
+	struct dcir_counts cnt;
+	struct csvout out;
+	size_t max_points;
+	int trend;
+};
+
+enum {
+	OPT_ALLOW_NO_SOC = 256, OPT_CONFIDENCE, OPT_EA, OPT_EOL, OPT_MAX_DT,
+	OPT_MAX_POINTS, OPT_MIN_SPAN, OPT_MIN_STEP, OPT_MIN_STEPS,
+	OPT_REF_TEMP, OPT_SOC, OPT_STEADY, OPT_STEADY_TOL, OPT_TEMP,
+	OPT_VERSION
+};
+
+static void	usage(FILE *fp);
+static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
+static void	write_step(struct tool *t, const struct dev *d,
+		    const struct dcir_step *st);
+static void	write_trend(struct tool *t, struct dev *d);
+static void	write_date(struct csvout *w, cw_time t);
+static void	report(const struct tool *t, const struct devtab *devs,
+		    const struct sampin_stats *st);
+
+static void
+usage(FILE *fp)
+{
+	fprintf(fp,
+	    "usage: cw-dcir [-htv] [--allow-no-soc] [--confidence P] "
+	    "[--ea KJ] [--eol PCT]\n"
+	    "               [--max-dt DUR] [--max-points N] "
+	    "[--min-span DUR] [--min-step A]\n"
+	    "               [--min-steps N] [-o FILE] [--ref-temp T] "
+	    "[--soc LO,HI]\n"
+	    "               [--steady N] [--steady-tol FRAC] "
+	    "[--temp LO,HI] [--version]\n"
+	    "               [FILE ...]\n");
+}
+
+static int
+on_row(void *ctx, void *dev, const struct cw_sample *s)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+	struct dcir_step st;
+	struct dcir_pt p;
+
+	p.t = s->t;
+	p.v = s->v;
+	p.i = s->i;
+	p.temp = s->temp;
+	p.soc = s->soc;
+	if (dcir_feed(&t->conf, &d->det, &p, &t->cnt, &st) != 1)
+		return 0;
+	if (t->trend)
+		dcir_series_add(&d->ser, st.t, st.r_ref, t->max_points);
+	else
+		write_step(t, d, &st);
+	return t->out.err ? CW_EXIT_DATA : 0;
+}
+
+static void
+write_step(struct tool *t, const struct dev *d, const struct dcir_step *st)
+{
+	csvout_strn(&t->out, d->e.name, d->e.namelen);
+	csvout_time(&t->out, st->t);
+	csvout_num(&t->out, st->soc);
+	csvout_num(&t->out, st->temp);
+	csvout_num(&t->out, st->di);
+	csvout_num(&t->out, st->dv);
+	csvout_num(&t->out, st->r);
+	csvout_num(&t->out, st->r_ref);
+	csvout_num(&t->out, (double)st->dt / CW_US_PER_S);
+	csvout_num(&t->out, st->i_pre);
+	csvout_endrow(&t->out);
+}
+
+/* The calendar date (UTC) of T as YYYY-MM-DD. */
+static void
+write_date(struct csvout *w, cw_time t)
+{
+	char buf[16];
+	long days, y;
+	unsigned m, dd;
+	int k;
+
+	days = (long)(t / (86400 * CW_US_PER_S));
+	if (t < 0 && t % (86400 * CW_US_PER_S) != 0)
+		days--;
+	ts_civil_from_days(days, &y, &m, &dd);
+	if (y < 0 || y > 9999) {
+		csvout_empty(w);
+		return;
+	}
+	for (k = 3; k >= 0; k--, y /= 10)
+		buf[k] = (char)('0' + y % 10);
+	buf[4] = '-';
+	buf[5] = (char)('0' + m / 10);
+	buf[6] = (char)('0' + m % 10);
+	buf[7] = '-';
+	buf[8] = (char)('0' + dd / 10);
+	buf[9] = (char)('0' + dd % 10);
+	csvout_strn(w, buf, 10);
+}
+
+static void
+write_trend(struct tool *t, struct dev *d)
+{
+	struct dcir_trend tr;
+	struct csvout *w = &t->out;
+
+	dcir_trend_fit(&d->ser, &t->tconf, &tr);
+	csvout_strn(w, d->e.name, d->e.namelen);
+	csvout_int(w, (long long)d->ser.steps);
+	if (d->ser.steps > 0) {
+		csvout_time(w, d->ser.first);
+		csvout_time(w, d->ser.last);
+	} else {
+		csvout_empty(w);
+		csvout_empty(w);
+	}
+	csvout_num(w, tr.r_start);
+	csvout_num(w, tr.r_end);
+	csvout_num(w, tr.growth_pct);
+	csvout_num(w, tr.growth_30d);
+	if (tr.has_eol)
+		write_date(w, tr.eol_t);
+	else
+		csvout_empty(w);
+	if (tr.fitted)
+		csvout_int(w, (long long)tr.used);
+	else
+		csvout_empty(w);
+	csvout_num(w, tr.slope);
+	csvout_num(w, tr.slope_lo);
+	csvout_num(w, tr.slope_hi);
+	csvout_endrow(w);
+	dcir_series_free(&d->ser);
+}
+
+static void
+report(const struct tool *t, const struct devtab *devs,
+    const struct sampin_stats *st)
+{
+	const unsigned long *n = t->cnt.n;
+	unsigned long cand = 0, thinned = 0, few = 0;
+	size_t i, nd = devtab_count(devs);
+	int k;
+
+	sampin_report(st, NULL);
+	for (k = 0; k < DCIR_NREASON; k++)
+		if (k != DCIR_NO_I)
+			cand += n[k];
+	cw_warn("%zu devices; %lu steps of at least %g A, %lu accepted",
+	    nd, cand, t->conf.min_step, n[DCIR_OK]);
+	cw_warn("rejected: %lu gap, %lu unsteady, %lu no-voltage, "
+	    "%lu soc-unknown, %lu soc-outside, %lu temp-unknown, "
+	    "%lu temp-outside, %lu non-positive", n[DCIR_GAP],
+	    n[DCIR_UNSTEADY], n[DCIR_NO_V], n[DCIR_SOC_UNKNOWN],
+	    n[DCIR_SOC_OUT], n[DCIR_TEMP_UNKNOWN], n[DCIR_TEMP_OUT],
+	    n[DCIR_NONPOS]);
+	cw_warn("%lu sample pairs not tested for a step: a current missing",
+	    n[DCIR_NO_I]);
+	if (!t->trend)
+		return;
+	for (i = 0; i < nd; i++) {
+		const struct dev *d = devtab_at(devs, i);
+
+		if (d->ser.stride > 1)
+			thinned++;
+		if (d->ser.steps < t->tconf.min_steps ||
+		    d->ser.last - d->ser.first < t->tconf.min_span)
+			few++;
+	}
+	cw_warn("trend: %lu devices with too few steps or too short a span, "
+	    "%lu thinned to at most %zu points", few, thinned,
+	    t->max_points);
+}
+
+int
+main(int argc, char *argv[])
+{
+	static const struct option longopts[] = {
+		{ "allow-no-soc", no_argument, NULL, OPT_ALLOW_NO_SOC },
+		{ "confidence", required_argument, NULL, OPT_CONFIDENCE },
+		{ "ea", required_argument, NULL, OPT_EA },
+		{ "eol", required_argument, NULL, OPT_EOL },
+		{ "help", no_argument, NULL, 'h' },
+		{ "max-dt", required_argument, NULL, OPT_MAX_DT },
+		{ "max-points", required_argument, NULL, OPT_MAX_POINTS },
+		{ "min-span", required_argument, NULL, OPT_MIN_SPAN },
+		{ "min-step", required_argument, NULL, OPT_MIN_STEP },
+		{ "min-steps", required_argument, NULL, OPT_MIN_STEPS },
+		{ "output", required_argument, NULL, 'o' },
+		{ "ref-temp", required_argument, NULL, OPT_REF_TEMP },
+		{ "soc", required_argument, NULL, OPT_SOC },
+		{ "steady", required_argument, NULL, OPT_STEADY },
+		{ "steady-tol", required_argument, NULL, OPT_STEADY_TOL },
+		{ "temp", required_argument, NULL, OPT_TEMP },
+		{ "trend", no_argument, NULL, 't' },
+		{ "verbose", no_argument, NULL, 'v' },
+		{ "version", no_argument, NULL, OPT_VERSION },
+		{ NULL, 0, NULL, 0 }
+	};
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of;
+	const char *outpath = NULL;
+	double w[2];
+	void **sorted;
+	size_t i, n;
+	int ch, rc;
+
+	cw_setprog("cw-dcir");
+	memset(&t, 0, sizeof(t));
+	dcir_conf_default(&t.conf);
+	dcir_trend_conf_default(&t.tconf);
+	t.max_points = MAX_POINTS_DEFAULT;
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":ho:tv", longopts, NULL)) !=
+	    -1) {
+		switch (ch) {
+		case 'h':
+			usage(stdout);
+			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
+		case 'o':
+			outpath = optarg;
+			break;
+		case 't':
+			t.trend = 1;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_ALLOW_NO_SOC:
+			t.conf.unknown_soc_ok = 1;
+			break;
+		case OPT_CONFIDENCE:
+			t.tconf.conf = opt_num_arg("--confidence", optarg,
+			    0.5, 1);
+			if (t.tconf.conf <= 0.5 || t.tconf.conf >= 1)
+				cw_usage_error("--confidence: %s is not "
+				    "between 0.5 and 1 (exclusive)", optarg);
+			break;
+		case OPT_EA:
+			t.conf.ea_kj = opt_num_arg("--ea", optarg, 0, 1000);
+			break;
+		case OPT_EOL:
+			t.tconf.eol_pct = opt_num_arg("--eol", optarg, 100,
+			    100000);
+			if (t.tconf.eol_pct <= 100)
+				cw_usage_error("--eol: %s is not above 100 "
+				    "(percent of r_start)", optarg);
+			break;
+		case OPT_MAX_DT:
+			t.conf.max_dt = opt_dur_arg("--max-dt", optarg, 0);
+			break;
+		case OPT_MAX_POINTS:
+			t.max_points = (size_t)opt_long_arg("--max-points",
+			    optarg, 16, 1L << 24);
+			break;
+		case OPT_MIN_SPAN:
+			t.tconf.min_span = opt_dur_arg("--min-span", optarg,
+			    1);
+			break;
+		case OPT_MIN_STEP:
+			t.conf.min_step = opt_num_arg("--min-step", optarg, 0,
+			    1e6);
+			if (t.conf.min_step <= 0)
+				cw_usage_error("--min-step: %s is not above 0",
+				    optarg);
+			break;
+		case OPT_MIN_STEPS:
+			t.tconf.min_steps = (unsigned long)opt_long_arg(
+			    "--min-steps", optarg, 2, 1000000000L);
+			break;
+		case OPT_REF_TEMP:
+			t.conf.ref_temp_c = opt_temp_arg("--ref-temp", optarg);
+			if (t.conf.ref_temp_c <= -DCIR_KELVIN)
+				cw_usage_error("--ref-temp: %s is not above "
+				    "absolute zero", optarg);
+			break;
+		case OPT_SOC:
+			opt_list_arg("--soc", optarg, w, 2, 0, 1);
+			if (w[0] < 0 || w[1] > 100)
+				cw_usage_error("--soc: %s is not within "
+				    "0..100", optarg);
+			t.conf.soc_lo = w[0];
+			t.conf.soc_hi = w[1];
+			break;
+		case OPT_STEADY:
+			t.conf.steady_n = (int)opt_long_arg("--steady", optarg,
+			    1, DCIR_HIST_MAX);
+			break;
+		case OPT_STEADY_TOL:
+			t.conf.steady_tol = opt_num_arg("--steady-tol", optarg,
+			    0, 100);
+			break;
+		case OPT_TEMP:
+			opt_list_arg("--temp", optarg, w, 2, 1, 1);
+			if (w[0] <= -DCIR_KELVIN)
+				cw_usage_error("--temp: %s: the window must "
+				    "lie above absolute zero", optarg);
+			t.conf.temp_lo = w[0];
+			t.conf.temp_hi = w[1];
+			break;
+		case OPT_VERSION:
+			cw_print_version();
+		case ':':
+			if (optopt != 0 && optopt < OPT_ALLOW_NO_SOC)
+				cw_usage_error("option '-%c' needs a value",
+				    optopt);
+			cw_usage_error("option '%s' needs a value",
+			    argv[optind - 1]);
+		default:
+			if (optopt != 0 && optopt < OPT_ALLOW_NO_SOC)
+				cw_usage_error("unknown option '-%c'", optopt);
+			cw_usage_error("unknown option '%s'", argv[optind - 1]);
+		}
+	}
+	argc -= optind;
+	argv += optind;
+
+	devs = devtab_new(sizeof(struct dev));
+	of = outf_open(outpath);
+	csvout_init(&t.out, outf_fp(of));
+	csvout_header(&t.out, t.trend ? TREND_HEADER : STEP_HEADER);
+
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT);
+	sc.row = on_row;
+	sc.ctx = &t;
+	sc.devs = devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (rc != 0) {
+		/* Complete rows written so far stay; the output is not
+		 * committed, so -o FILE keeps its old contents. */
+		csvout_flush(&t.out);
+		if (cw_verbose)
+			report(&t, devs, &st);
+		return rc;
+	}
+	if (cw_verbose)
+		report(&t, devs, &st);
+
+	if (t.trend) {
+		sorted = devtab_sorted(devs);
+		n = devtab_count(devs);
+		for (i = 0; i < n; i++)
+			write_trend(&t, sorted[i]);
+		free(sorted);
+	}
+	if (csvout_flush(&t.out) != 0) {
+		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
+		    "standard output", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	if (outf_commit(of) != 0)
+		return CW_EXIT_DATA;
+	csvout_free(&t.out);
+	devtab_free(devs);
+	return CW_EXIT_OK;
+}

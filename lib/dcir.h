@@ -1,0 +1,149 @@
+/*
+ * dcir.h: DC internal resistance from the current steps of a field log,
+ * its correction to a reference temperature, and its trend per device.
+ *
+ * A step is a pair of consecutive samples of one device, "pre" and "post",
+ * with |I_post - I_pre| >= min_step and 0 < t_post - t_pre <= max_dt, the
+ * current steady before it: the steady_n samples ending with pre all have
+ * a current, follow each other at most max_dt apart, and span no more than
+ * steady_tol * |I_post - I_pre| from lowest to highest current.  Then
+ * R = (V_post - V_pre) / (I_post - I_pre), current positive while charging,
+ * so a healthy cell gives R > 0 for a step either way.  The SoC and the
+ * temperature of a step are those of pre (of post when pre has none); the
+ * step is kept only inside the SoC and temperature windows and with R > 0.
+ *
+ * Memory: a ring of the last samples per device (fixed size) for the
+ * detector; for the trend, the points of a device up to a cap, thinned
+ * evenly by step count beyond it.
+ */
+#ifndef DCIR_H
+#define DCIR_H
+
+#include <stddef.h>
+#include "cw.h"
+
+/* The molar gas constant, J/(mol K): CODATA 2018 (exact since the 2019 SI). */
+#define DCIR_RGAS	8.314462618
+#define DCIR_KELVIN	273.15
+/* The most samples the steadiness test can look back over. */
+#define DCIR_HIST_MAX	32
+
+struct dcir_conf {
+	double min_step;	/* A, |delta I| at least this */
+	cw_time max_dt;		/* samples of a step at most this far apart */
+	int steady_n;		/* samples before the step that must be steady */
+	double steady_tol;	/* their current spread, a fraction of |dI| */
+	double soc_lo, soc_hi;	/* SoC window, percent */
+	double temp_lo, temp_hi;	/* temperature window, C */
+	int unknown_soc_ok;	/* keep steps whose SoC is unknown */
+	double ref_temp_c;	/* Arrhenius reference temperature, C */
+	double ea_kj;		/* activation energy, kJ/mol */
+};
+
+/* Defaults as SPEC.md and the manual page give them. */
+void	dcir_conf_default(struct dcir_conf *c);
+
+struct dcir_pt {
+	cw_time t;
+	double v, i, temp, soc;	/* NaN when missing */
+};
+
+/* Detector state of one device; zeroed is the start state. */
+struct dcir_dev {
+	struct dcir_pt hist[DCIR_HIST_MAX];
+	unsigned head;		/* slot of the next sample */
+	unsigned n;		/* samples held, at most DCIR_HIST_MAX */
+};
+
+/* What became of each candidate: the first gate it failed, or DCIR_OK. */
+enum dcir_reason {
+	DCIR_OK,		/* accepted */
+	DCIR_NO_I,		/* a sample pair with a current missing */
+	DCIR_GAP,		/* a step across more than max_dt */
+	DCIR_UNSTEADY,		/* current not steady before the step */
+	DCIR_NO_V,		/* voltage missing on either side */
+	DCIR_SOC_UNKNOWN,	/* no SoC on either side */
+	DCIR_SOC_OUT,		/* SoC outside the window */
+	DCIR_TEMP_UNKNOWN,	/* no temperature on either side */
+	DCIR_TEMP_OUT,		/* temperature outside the window */
+	DCIR_NONPOS,		/* R <= 0: not a resistance */
+	DCIR_NREASON
+};
+
+struct dcir_counts {
+	unsigned long n[DCIR_NREASON];
+};
+
+/* Short names of the reasons, for -v: "accepted", "no-current", ... */
+extern const char *const dcir_reason_name[DCIR_NREASON];
+
+struct dcir_step {
+	cw_time t;		/* time of the post sample */
+	double soc, temp;	/* of the step, as above */
+	double di, dv;		/* I_post - I_pre, V_post - V_pre */
+	double i_pre;		/* I_pre, A */
+	cw_time dt;		/* t_post - t_pre */
+	double r;		/* dv / di, ohm */
+	double r_ref;		/* r at the reference temperature */
+};
+
+/*
+ * Feed sample S of the device with state D.  Returns 1 and fills *OUT when
+ * S completes an accepted step, else 0.  Every pair of samples that shows
+ * a step, or cannot be tested for one because a current is missing, adds
+ * one to exactly one count of *CNT.
+ */
+int	dcir_feed(const struct dcir_conf *c, struct dcir_dev *d,
+	    const struct dcir_pt *s, struct dcir_counts *cnt,
+	    struct dcir_step *out);
+
+/*
+ * Arrhenius correction of R measured at TEMP_C to REF_C:
+ * R_ref = R * exp(-(Ea / Rg) * (1 / T - 1 / T_ref)), T in kelvin,
+ * Ea = EA_KJ * 1000 J/mol, Rg = DCIR_RGAS.
+ */
+double	dcir_arrhenius(double r, double temp_c, double ref_c, double ea_kj);
+
+/* The steps of one device kept for the trend; zeroed is empty. */
+struct dcir_series {
+	unsigned long steps;	/* accepted steps, all of them */
+	cw_time first, last;	/* times of the first and last step */
+	cw_time *t;		/* kept points */
+	double *r;
+	size_t n, cap;
+	unsigned long stride;	/* a step is kept when its number % stride
+				 * is 0; doubles each time the cap is hit */
+};
+
+/* Add a step; MAXPTS (>= 2) caps the points kept. */
+void	dcir_series_add(struct dcir_series *s, cw_time t, double r_ref,
+	    size_t maxpts);
+void	dcir_series_free(struct dcir_series *s);
+
+struct dcir_trend_conf {
+	unsigned long min_steps;	/* fewer steps: no estimate */
+	cw_time min_span;		/* shorter first..last: no estimate */
+	double eol_pct;			/* end of life at this % of r_start */
+	double conf;			/* confidence level of the slope */
+};
+
+void	dcir_trend_conf_default(struct dcir_trend_conf *c);
+
+struct dcir_trend {
+	int fitted;		/* the estimates below are set */
+	size_t used;		/* points in the fit */
+	double slope;		/* ohm per day, Theil-Sen */
+	double slope_lo, slope_hi;	/* its confidence interval */
+	double r_start, r_end;	/* the fitted line at first and last */
+	double growth_pct;	/* 100 (r_end - r_start) / r_start */
+	double growth_30d;	/* percent of r_start per 30 days */
+	int has_eol;		/* eol_t is set */
+	cw_time eol_t;		/* when the line reaches eol_pct of r_start */
+};
+
+/* Fit the trend of S.  Estimates are NaN (fitted 0) when S has too few
+ * steps, too short a span or fewer than two distinct times. */
+void	dcir_trend_fit(const struct dcir_series *s,
+	    const struct dcir_trend_conf *c, struct dcir_trend *out);
+
+#endif

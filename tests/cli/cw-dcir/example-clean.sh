@@ -1,0 +1,8 @@
+# cw-dcir(1) EXAMPLES: through gzip and cw-clean at the log's own rate.
+# The log is already clean, so the trend must equal that of the file.
+gzip -c testdata/dcir-fleet.csv |
+    cw-clean --bounds voltage=1.5:70 | cw-dcir -t
+cw-dcir -t testdata/dcir-fleet.csv >"$TMPDIR_CASE/direct.csv"
+gzip -c testdata/dcir-fleet.csv |
+    cw-clean --bounds voltage=1.5:70 | cw-dcir -t |
+    cmp - "$TMPDIR_CASE/direct.csv" && echo same as the file read directly

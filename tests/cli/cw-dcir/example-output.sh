@@ -1,0 +1,11 @@
+# cw-dcir(1) EXAMPLES: Ea 35 kJ/mol, cold steps to 0 C, EOL at 150 %, to
+# a file.  EB-0042 now keeps its two steps at 5 C (38 steps).  The data
+# were made with Ea = 30, so with 35 the corrected values keep a factor
+# exp(-(5000 / 8.314462618) (1/T - 1/298.15)): warm steps read high, cold
+# ones low, and EB-0042, whose temperature wanders from day to day, is no
+# longer flat and gets a wide interval.  The output file appears only
+# after success, and stdout stays empty.
+cw-dcir -t --ea 35 --temp 0,45 --eol 150 -o "$TMPDIR_CASE/trend.csv" \
+    testdata/dcir-fleet.csv
+echo "rc=$?"
+cat "$TMPDIR_CASE/trend.csv"

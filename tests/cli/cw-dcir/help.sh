@@ -1,0 +1,5 @@
+# -h prints the usage to stdout and exits 0; --version prints the version.
+cw-dcir -h
+echo "rc=$?"
+cw-dcir --help | head -n 1
+cw-dcir --version | sed 's/[0-9][0-9.]*$/VERSION/'
