@@ -1,0 +1,336 @@
+/*
+ * cw-topoff: holds near full charge and the top-off micro-cycles a
+ * charger makes during them, per hold, per micro-cycle or per device.
+ * The engine is lib/topoff.c; this file holds the options and the output.
+ */
+#include <errno.h>
+#include <getopt.h>
+#include <stddef.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "opt.h"
+#include "outf.h"
+#include "sampin.h"
+#include "topoff.h"
+
+#define HOLD_HEADER "device,start,end,duration_s,micro_cycles," \
+	"mean_depth_pct,max_depth_pct,topoff_ah"
+#define EVENT_HEADER "device,start,end,depth_pct,charge_ah"
+#define SUMMARY_HEADER "device,first,last,holds,hours_held,share_held," \
+	"micro_cycles,micro_cycles_per_day,share_at_100,topoff_ah," \
+	"mean_depth_pct,max_depth_pct,longest_hold_h,unjudged_rows"
+
+/* The per-device state: the devent first, as devtab wants. */
+struct dev {
+	struct devent e;
+	cw_time first;		/* time of the first row */
+	cw_time longest;	/* the longest hold, us */
+	struct topoff top;
+};
+
+enum mode { MODE_HOLDS, MODE_EVENTS, MODE_SUMMARY };
+
+struct tool {
+	struct topoff_conf conf;
+	struct csvout out;
+	int mode;		/* enum mode */
+};
+
+enum {
+	OPT_FULL = 256, OPT_FULL_VOLTAGE, OPT_MAX_GAP, OPT_MIN_CURRENT,
+	OPT_MIN_DEPTH, OPT_VERSION
+};
+
+static void	usage(FILE *fp);
+static struct dev *dev_of(struct topoff *top);
+static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
+static void	on_cycle(void *ctx, struct topoff *top,
+		    const struct topoff_cycle *cy);
+static void	on_hold(void *ctx, struct topoff *top,
+		    const struct topoff_hold *h);
+static void	write_summary(struct tool *t, const struct dev *d);
+static void	report(const struct devtab *devs, const struct sampin_stats *st);
+
+static void
+usage(FILE *fp)
+{
+	fprintf(fp,
+	    "usage: cw-topoff [-ehsv] [--full PCT] [--full-voltage V] "
+	    "[--max-gap DUR]\n"
+	    "                 [--min-current A] [--min-depth PCT] "
+	    "[-o FILE] [--version]\n"
+	    "                 [FILE ...]\n");
+}
+
+/* The device state that embeds TOP. */
+static struct dev *
+dev_of(struct topoff *top)
+{
+	return (struct dev *)(void *)((char *)top - offsetof(struct dev, top));
+}
+
+static int
+on_row(void *ctx, void *dev, const struct cw_sample *s)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	if (d->e.nrows == 1) {
+		topoff_init(&d->top);
+		d->first = s->t;
+	}
+	topoff_push(&d->top, &t->conf, s->t, s->v, s->i, s->soc);
+	return t->out.err ? CW_EXIT_DATA : 0;
+}
+
+static void
+on_cycle(void *ctx, struct topoff *top, const struct topoff_cycle *cy)
+{
+	struct tool *t = ctx;
+	const struct dev *d = dev_of(top);
+
+	if (t->mode != MODE_EVENTS)
+		return;
+	csvout_strn(&t->out, d->e.name, d->e.namelen);
+	csvout_time(&t->out, cy->start);
+	csvout_time(&t->out, cy->end);
+	csvout_num(&t->out, cy->depth);
+	csvout_num(&t->out, cy->charge_ah);
+	csvout_endrow(&t->out);
+}
+
+static void
+on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev_of(top);
+
+	if (h->end - h->start > d->longest)
+		d->longest = h->end - h->start;
+	if (t->mode != MODE_HOLDS)
+		return;
+	csvout_strn(&t->out, d->e.name, d->e.namelen);
+	csvout_time(&t->out, h->start);
+	csvout_time(&t->out, h->end);
+	csvout_num(&t->out, (double)(h->end - h->start) / CW_US_PER_S);
+	csvout_int(&t->out, (long long)h->cycles);
+	if (h->cycles > 0) {
+		csvout_num(&t->out, h->depth_sum / (double)h->cycles);
+		csvout_num(&t->out, h->depth_max);
+	} else {
+		csvout_empty(&t->out);
+		csvout_empty(&t->out);
+	}
+	csvout_num(&t->out, h->topoff_ah);
+	csvout_endrow(&t->out);
+}
+
+static void
+write_summary(struct tool *t, const struct dev *d)
+{
+	const struct topoff_totals *tot = &d->top.tot;
+	double hours = (double)tot->held / (3600.0 * CW_US_PER_S);
+	cw_time span = d->e.last_t - d->first;
+
+	csvout_strn(&t->out, d->e.name, d->e.namelen);
+	csvout_time(&t->out, d->first);
+	csvout_time(&t->out, d->e.last_t);
+	csvout_int(&t->out, (long long)tot->holds);
+	csvout_num(&t->out, hours);
+	if (span > 0)
+		csvout_num(&t->out, (double)tot->held / (double)span);
+	else
+		csvout_empty(&t->out);
+	csvout_int(&t->out, (long long)tot->cycles);
+	if (tot->held > 0)
+		csvout_num(&t->out, (double)tot->cycles / (hours / 24.0));
+	else
+		csvout_empty(&t->out);
+	if (tot->soc_held > 0)
+		csvout_num(&t->out, (double)tot->at_top2 / 2.0 /
+		    (double)tot->soc_held);
+	else
+		csvout_empty(&t->out);
+	csvout_num(&t->out, tot->topoff_ah);
+	if (tot->cycles > 0) {
+		csvout_num(&t->out, tot->depth_sum / (double)tot->cycles);
+		csvout_num(&t->out, tot->depth_max);
+	} else {
+		csvout_empty(&t->out);
+		csvout_empty(&t->out);
+	}
+	csvout_num(&t->out, (double)d->longest / (3600.0 * CW_US_PER_S));
+	csvout_int(&t->out, (long long)tot->unjudged);
+	csvout_endrow(&t->out);
+}
+
+static void
+report(const struct devtab *devs, const struct sampin_stats *st)
+{
+	unsigned long holds = 0, cycles = 0, unjudged = 0, carried = 0;
+	unsigned long gaps = 0;
+	size_t i, n = devtab_count(devs);
+
+	for (i = 0; i < n; i++) {
+		const struct topoff_totals *tot =
+		    &((const struct dev *)devtab_at(devs, i))->top.tot;
+
+		holds += tot->holds;
+		cycles += tot->cycles;
+		unjudged += tot->unjudged;
+		carried += tot->carried;
+		gaps += tot->gaps;
+	}
+	sampin_report(st, NULL);
+	cw_warn("%zu devices, %lu holds, %lu micro-cycles; %lu holds ended by "
+	    "a gap longer than --max-gap", n, holds, cycles, gaps);
+	cw_warn("%lu rows without SoC (nor voltage with --full-voltage) not "
+	    "judged; %lu such rows kept the level of their hold",
+	    unjudged, carried);
+}
+
+int
+main(int argc, char *argv[])
+{
+	static const struct option longopts[] = {
+		{ "events", no_argument, NULL, 'e' },
+		{ "full", required_argument, NULL, OPT_FULL },
+		{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
+		{ "help", no_argument, NULL, 'h' },
+		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
+		{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
+		{ "output", required_argument, NULL, 'o' },
+		{ "summary", no_argument, NULL, 's' },
+		{ "verbose", no_argument, NULL, 'v' },
+		{ "version", no_argument, NULL, OPT_VERSION },
+		{ NULL, 0, NULL, 0 }
+	};
+	static const char *const header[] = { HOLD_HEADER, EVENT_HEADER,
+	    SUMMARY_HEADER };
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of;
+	const char *outpath = NULL;
+	int events = 0, summary = 0;
+	void **sorted;
+	size_t i, n;
+	int ch, rc;
+
+	cw_setprog("cw-topoff");
+	memset(&t, 0, sizeof(t));
+	topoff_conf_default(&t.conf);
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":eho:sv", longopts, NULL)) !=
+	    -1) {
+		switch (ch) {
+		case 'e':
+			events = 1;
+			break;
+		case 'h':
+			usage(stdout);
+			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
+		case 'o':
+			outpath = optarg;
+			break;
+		case 's':
+			summary = 1;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_FULL:
+			t.conf.full_pct = opt_num_arg("--full", optarg, 0, 100);
+			break;
+		case OPT_FULL_VOLTAGE:
+			t.conf.full_v = opt_num_arg("--full-voltage", optarg,
+			    0.001, 10000);
+			break;
+		case OPT_MAX_GAP:
+			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			break;
+		case OPT_MIN_CURRENT:
+			t.conf.min_current = opt_num_arg("--min-current",
+			    optarg, 0, 1e6);
+			break;
+		case OPT_MIN_DEPTH:
+			t.conf.min_depth = opt_num_arg("--min-depth", optarg,
+			    0.001, 100);
+			break;
+		case OPT_VERSION:
+			cw_print_version();
+		case ':':
+			if (optopt != 0 && optopt < OPT_FULL)
+				cw_usage_error("option '-%c' needs a value",
+				    optopt);
+			cw_usage_error("option '%s' needs a value",
+			    argv[optind - 1]);
+		default:
+			if (optopt != 0 && optopt < OPT_FULL)
+				cw_usage_error("unknown option '-%c'", optopt);
+			cw_usage_error("unknown option '%s'", argv[optind - 1]);
+		}
+	}
+	argc -= optind;
+	argv += optind;
+	if (events && summary)
+		cw_usage_error("-e (--events) and -s (--summary) exclude each "
+		    "other");
+	t.mode = events ? MODE_EVENTS : summary ? MODE_SUMMARY : MODE_HOLDS;
+
+	devs = devtab_new(sizeof(struct dev));
+	of = outf_open(outpath);
+	csvout_init(&t.out, outf_fp(of));
+	csvout_header(&t.out, header[t.mode]);
+	t.conf.on_cycle = on_cycle;
+	t.conf.on_hold = on_hold;
+	t.conf.ctx = &t;
+
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT);
+	sc.need_any = SAMP_BIT(SAMP_SOC);
+	if (cw_isnum(t.conf.full_v))
+		sc.need_any |= SAMP_BIT(SAMP_VOLTAGE);
+	sc.row = on_row;
+	sc.ctx = &t;
+	sc.devs = devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (rc != 0) {
+		/* Complete rows written so far stay; the output is not
+		 * committed, so -o FILE keeps its old contents. */
+		csvout_flush(&t.out);
+		if (cw_verbose)
+			report(devs, &st);
+		return rc;
+	}
+
+	/* Holds still open end with the stream, in device name order. */
+	sorted = devtab_sorted(devs);
+	n = devtab_count(devs);
+	for (i = 0; i < n; i++)
+		topoff_finish(&((struct dev *)sorted[i])->top, &t.conf);
+	if (t.mode == MODE_SUMMARY)
+		for (i = 0; i < n; i++)
+			write_summary(&t, sorted[i]);
+	free(sorted);
+	if (cw_verbose)
+		report(devs, &st);
+	if (csvout_flush(&t.out) != 0) {
+		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
+		    "standard output", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	if (outf_commit(of) != 0)
+		return CW_EXIT_DATA;
+	csvout_free(&t.out);
+	devtab_free(devs);
+	return CW_EXIT_OK;
+}
