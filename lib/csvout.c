@@ -209,8 +209,14 @@ csvout_fmtnum(double x, char *buf)
 		for (e = -1; e > -6 && a * p10[-e] < 1; e--)
 			;
 	dec = CSVOUT_SIG - 1 - e;
-	if (dec < 0)
-		dec = 0;
+	if (dec < 0) {
+		/* More integer digits than CSVOUT_SIG: round to CSVOUT_SIG
+		 * digits, the rest are zeros. */
+		size_t n = fmt_dec(x / p10[-dec], 0, buf);
+
+		memset(buf + n, '0', (size_t)-dec);
+		return n + (size_t)-dec;
+	}
 	if (dec > 20)
 		dec = 20;
 	return fmt_dec(x, dec, buf);
