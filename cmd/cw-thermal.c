@@ -315,6 +315,8 @@ main(int argc, char *argv[])
 		csvout_flush(&t.out);
 		if (cw_verbose)
 			report(devs, &st);
+		csvout_free(&t.out);
+		devtab_free(devs);
 		return rc;
 	}
 
