@@ -240,11 +240,25 @@ csvout_fixed(struct csvout *w, double x, int digits)
 		digits = 0;
 	if (digits > 12)
 		digits = 12;
-	reserve(w, 40);
-	if (fabs(x) * p10[digits] >= 9e18)
-		w->n += (size_t)snprintf(w->buf + w->n, 40, "%.*f", digits, x);
-	else
+	if (fabs(x) * p10[digits] >= 9e18) {
+		/* Too large for fmt_dec(): printf (%.12f of DBL_MAX takes 322
+		 * bytes), then drop the trailing zeros. */
+		char t[400];
+		int n = snprintf(t, sizeof(t), "%.*f", digits, x);
+
+		if (digits > 0) {
+			while (t[n - 1] == '0')
+				n--;
+			if (t[n - 1] == '.')
+				n--;
+		}
+		reserve(w, (size_t)n);
+		memcpy(w->buf + w->n, t, (size_t)n);
+		w->n += (size_t)n;
+	} else {
+		reserve(w, 40);
 		w->n += fmt_dec(x, digits, w->buf + w->n);
+	}
 }
 
 void
