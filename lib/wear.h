@@ -1,0 +1,167 @@
+/*
+ * wear.h: wear stress and modelled fade of one device, accumulated row by
+ * row from the sample stream (the engine of cw-wear).
+ *
+ * What each row adds:
+ * - charge: the row's current over the interval that ends at it
+ *   (charge.h); charging is current above min_current, and its Ah go to
+ *   the thermal zone of the row's temperature (thermal.h);
+ * - time at high SoC and at high temperature: between two rows that both
+ *   know the value, linearly interpolated, so a crossing inside an
+ *   interval counts in part;
+ * - calendar damage: the model's calendar rate at the row's SoC and
+ *   temperature, integrated by the trapezoid rule between consecutive
+ *   rows that know both (never one mean SoC over the span);
+ * - cycle damage: the SoC goes through rainflow counting (rainflow.h)
+ *   with the temperature as the auxiliary value, and each counted cycle
+ *   adds count * the model's cycle damage at its depth, its mean SoC and
+ *   the mean temperature of its turning points;
+ * - top-off micro-cycles: the cw-topoff detector (topoff.h).
+ *
+ * An interval longer than max_gap carries no charge (the current is not
+ * known), but the pack still ages through it: the time measures and the
+ * calendar term hold the state of the row before the gap (it is assumed
+ * to have rested as last seen).  Such gaps are counted.
+ *
+ * Rows missing SoC or temperature are left out of the terms that need
+ * them and counted.  A cycle whose turning points carry no temperature is
+ * counted in efc and depth but left out of the damage, and counted.
+ *
+ * The totals (struct wear_acc) are plain sums, minima and maxima, kept
+ * without the model's --cycle-life and --calendar-life scales, so that
+ * totals of two spans can be added (wear_acc_merge) and reported later.
+ */
+#ifndef WEAR_H
+#define WEAR_H
+
+#include "cw.h"
+#include "model.h"
+#include "rainflow.h"
+#include "thermal.h"
+#include "topoff.h"
+
+/* The fixed thresholds of the hours_soc_ge_95 and hours_temp_ge_45
+ * columns (SPEC.md). */
+#define WEAR_HIGH_SOC	95.0
+#define WEAR_HIGH_TEMP	45.0
+/* End of life: 20 % fade, 80 % state of health (common practice). */
+#define WEAR_EOL_FADE	0.20
+/* cold-charge dominates at this share of all charge (SPEC.md). */
+#define WEAR_COLD_SHARE	0.02
+
+/* The damage sums, unscaled, in the four forms of struct model_eval. */
+enum { WEAR_FULL, WEAR_SOC_CAPPED, WEAR_TEMP_CAPPED, WEAR_DEPTH_ONLY,
+	WEAR_NFORM };
+
+/* Totals of one device over a span: plain data, mergeable. */
+struct wear_acc {
+	int have;		/* at least one row */
+	cw_time first, last;
+	unsigned long rows;
+	unsigned long rows_no_current;
+	unsigned long rows_no_soc;	/* missing or outside 0..100 */
+	unsigned long rows_no_temp;	/* missing or below absolute zero */
+	unsigned long rows_model;	/* rows with both, in the model */
+	/* Charge. */
+	double charge_ah;	/* Ah charged: current above min_current */
+	double charge_s;	/* seconds of those intervals */
+	double max_charge_a;	/* highest charging current, 0 if none */
+	struct thermal_ah zone_ah;	/* charge per zone of the row's temp */
+	/* Time, seconds. */
+	double soc_s, soc_high_s;	/* covered by SoC, and at >= 95 % */
+	double temp_s, temp_high_s;	/* covered by temp, and at >= 45 C */
+	double model_s;			/* covered by the calendar term */
+	double gap_s;			/* of that, in gaps over max_gap */
+	unsigned long gaps;
+	/* Rainflow: every cycle, and the count left out for no temp. */
+	struct rf_sum rf;
+	double cycles_no_temp;
+	unsigned long topoff_cycles;
+	unsigned long topoff_judged;	/* rows the detector could judge */
+	/* Damage, unscaled: cycle and calendar, in each form. */
+	double cyc[WEAR_NFORM];
+	double cal[WEAR_NFORM];
+};
+
+/* Settings shared by every device. */
+struct wear_conf {
+	const struct model *model;
+	double cycle_scale;	/* multiplies the cycle damage (1) */
+	double cal_scale;	/* multiplies the calendar damage (1) */
+	struct thermal_limits lim;
+	double min_current;	/* A; charging above it */
+	cw_time max_gap;
+	double hysteresis;	/* rainflow, % SoC */
+	int residue;		/* RF_RESIDUE_* */
+	struct topoff_conf topoff;
+};
+
+/* The per-device streaming state; set it up with wear_init(). */
+struct wear_dev {
+	struct wear_acc acc;
+	struct rf_state rf;
+	struct topoff top;
+	int have_prev;			/* the previous row, for charge */
+	cw_time prev_t;
+	int have_soc;			/* the last row with SoC */
+	cw_time soc_t;
+	double soc;
+	int have_temp;			/* the last row with temperature */
+	cw_time temp_t;
+	double temp;
+	int have_model;			/* the last row with both */
+	cw_time model_t;
+	struct model_eval rate;		/* its calendar rate */
+};
+
+/* A device's report: NaN (an empty field) for what is not known. */
+struct wear_result {
+	double days;
+	double charge_ah;
+	double efc;
+	double max_depth_pct;
+	double hours_soc_ge_95;
+	double hours_temp_ge_45;
+	double cold_charge_ah;	/* below T2 */
+	double hot_charge_ah;	/* above T3 */
+	double topoff_cycles;
+	double share_cycling;
+	double share_high_soc;
+	double share_heat;
+	double fade_pct;
+	double days_to_eol;
+	const char *dominant;	/* "" when not known */
+	double damage;		/* f, scaled */
+	double max_charge_c;	/* with a capacity, else NaN */
+	double mean_charge_c;
+	double fade_ah;
+};
+
+/* Defaults: xu2018 unscaled, thermal and topoff defaults, 0.05 A, 15 min,
+ * hysteresis 1 %, residue as half cycles. */
+void	wear_conf_default(struct wear_conf *c);
+/*
+ * Scale the cycle damage so that N full cycles at the model's reference
+ * SoC and temperature give WEAR_EOL_FADE alone (a datasheet's cycle
+ * rating), or the calendar damage so that DAYS at rest there do.
+ */
+void	wear_set_cycle_life(struct wear_conf *c, double n);
+void	wear_set_calendar_life(struct wear_conf *c, double days);
+
+void	wear_init(struct wear_dev *d, const struct wear_conf *c);
+/* One row: time T (not before the previous row's), voltage V, current
+ * I_A (positive while charging), TEMP_C and SOC (percent); NaN when
+ * missing. */
+void	wear_push(struct wear_dev *d, const struct wear_conf *c, cw_time t,
+	    double v, double i_a, double temp_c, double soc);
+/* The end of the device's rows: the rainflow residue and the open hold. */
+void	wear_finish(struct wear_dev *d, const struct wear_conf *c);
+void	wear_free(struct wear_dev *d);
+
+/* Add the totals of B to A (B's span may come before or after A's). */
+void	wear_acc_merge(struct wear_acc *a, const struct wear_acc *b);
+/* The report of totals A; CAPACITY_AH > 0 adds C-rates and Ah lost. */
+void	wear_report(const struct wear_conf *c, const struct wear_acc *a,
+	    double capacity_ah, struct wear_result *r);
+
+#endif

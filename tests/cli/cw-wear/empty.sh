@@ -1,0 +1,3 @@
+# A header and no rows: the header alone, exit 0.
+printf 'device,time,current_a,temp_c,soc_pct\n' | cw-wear
+echo "rc $?"

@@ -1,0 +1,2 @@
+# A stream with neither soc_pct nor temp_c: exit 1 naming them.
+printf 'device,time,voltage_v,current_a\nA,0,3.7,1\n' | cw-wear
