@@ -21,7 +21,7 @@ enum { OUT_CYCLES, OUT_HISTOGRAM, OUT_MATRIX, OUT_SUMMARY };
 
 enum {
 	OPT_HISTOGRAM = 256, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
-	OPT_SIGNAL, OPT_SUMMARY, OPT_VERSION
+	OPT_SIGNAL, OPT_VERSION
 };
 
 /* One device's state; the devtab header comes first. */
@@ -48,8 +48,9 @@ struct run {
 	unsigned long nosig;	/* rows without a numeric signal */
 };
 
-static void usage(FILE *, int);
+static void usage(FILE *);
 static double width_arg(const char *, const char *);
+static double nonneg_arg(const char *, const char *);
 static void matrix_arg(struct run *, const char *);
 static void signal_arg(struct run *, const char *);
 static int on_row(void *, void *, const struct cw_sample *);
@@ -59,24 +60,34 @@ static void write_summary(struct run *, struct dev *);
 static void flush_or_die(struct run *);
 
 static void
-usage(FILE *fp, int code)
+usage(FILE *fp)
 {
 	fprintf(fp,
-	    "usage: %s [-v] [-o file] [--signal column] [--hysteresis x]\n"
-	    "       [--histogram width | --matrix width[,mean_width] | "
-	    "--summary]\n"
-	    "       [--residue half|full|repeat] [file ...]\n", cw_prog);
-	exit(code);
+	    "usage: %s [-hsv] [--histogram WIDTH] [--hysteresis X]\n"
+	    "                   [--matrix WIDTH[,MEAN_WIDTH]] [-o FILE]\n"
+	    "                   [--residue half|full|repeat] "
+	    "[--signal COLUMN]\n"
+	    "                   [--version] [FILE ...]\n", cw_prog);
 }
 
 static double
 width_arg(const char *opt, const char *s)
 {
-	double w = opt_num_arg(opt, s, 0, 1e300);
+	double w = opt_num_arg(opt, s, -1e300, 1e300);
 
 	if (!(w > 0))
 		cw_usage_error("%s: the width must be above 0", opt);
 	return w;
+}
+
+static double
+nonneg_arg(const char *opt, const char *s)
+{
+	double x = opt_num_arg(opt, s, -1e300, 1e300);
+
+	if (x < 0)
+		cw_usage_error("%s: %s is below 0", opt, s);
+	return x;
 }
 
 /* --matrix W or W,MW: range bin width, mean bin width (default W). */
@@ -253,7 +264,7 @@ main(int argc, char *argv[])
 		{ "output", required_argument, NULL, 'o' },
 		{ "residue", required_argument, NULL, OPT_RESIDUE },
 		{ "signal", required_argument, NULL, OPT_SIGNAL },
-		{ "summary", no_argument, NULL, OPT_SUMMARY },
+		{ "summary", no_argument, NULL, 's' },
 		{ "verbose", no_argument, NULL, 'v' },
 		{ "version", no_argument, NULL, OPT_VERSION },
 		{ NULL, 0, NULL, 0 }
@@ -280,11 +291,13 @@ main(int argc, char *argv[])
 	r.hyst = 1;
 	r.rw = 1;
 	signal_arg(&r, "soc_pct");
-	while ((ch = getopt_long(argc, argv, "ho:v", longopts, NULL)) != -1) {
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":ho:sv", longopts, NULL)) !=
+	    -1) {
 		switch (ch) {
 		case 'h':
-			usage(stdout, CW_EXIT_OK);
-			break;
+			usage(stdout);
+			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
 		case 'o':
 			outpath = optarg;
 			break;
@@ -297,7 +310,7 @@ main(int argc, char *argv[])
 			nout++;
 			break;
 		case OPT_HYSTERESIS:
-			r.hyst = opt_num_arg("--hysteresis", optarg, 0, 1e300);
+			r.hyst = nonneg_arg("--hysteresis", optarg);
 			break;
 		case OPT_MATRIX:
 			r.out = OUT_MATRIX;
@@ -318,15 +331,23 @@ main(int argc, char *argv[])
 		case OPT_SIGNAL:
 			signal_arg(&r, optarg);
 			break;
-		case OPT_SUMMARY:
+		case 's':
 			r.out = OUT_SUMMARY;
 			nout++;
 			break;
 		case OPT_VERSION:
 			cw_print_version();
 			break;
+		case ':':
+			if (optopt != 0 && optopt < OPT_HISTOGRAM)
+				cw_usage_error("option '-%c' needs a value",
+				    optopt);
+			cw_usage_error("option '%s' needs a value",
+			    argv[optind - 1]);
 		default:
-			usage(stderr, CW_EXIT_USAGE);
+			if (optopt != 0 && optopt < OPT_HISTOGRAM)
+				cw_usage_error("unknown option '-%c'", optopt);
+			cw_usage_error("unknown option '%s'", argv[optind - 1]);
 		}
 	}
 	if (nout > 1)
@@ -375,8 +396,8 @@ main(int argc, char *argv[])
 			all.half += d->sum.half;
 		}
 		sampin_report(&st, conf.extra);
-		cw_warn("%zu devices, %g cycles (%lu full, %lu half)", n,
-		    all.cycles, all.full, all.half);
+		cw_warn("%zu device%s, %g cycles (%lu full, %lu half)", n,
+		    n == 1 ? "" : "s", all.cycles, all.full, all.half);
 		cw_warn("%lu rows without a numeric %s value skipped",
 		    r.nosig, r.signal);
 	} else if (st.used > 0 && r.nosig == st.used)

@@ -3,6 +3,7 @@
  * ASTM E1049-85 section 5.4.4 (see rainflow.h).
  */
 #include <float.h>
+#include <limits.h>
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
@@ -267,10 +268,16 @@ rf_finish(struct rf_state *s, int residue_mode, rf_emit_fn *emit,
 long
 rf_bin_index(double v, double w)
 {
+	const double lim = fmin(1e15, (double)(LONG_MAX / 2));
 	double q = v / w, r = nearbyint(q);
 
 	if (fabs(q - r) <= 1e-9 * fmax(1.0, fabs(q)))
 		q = r;
+	/* Far beyond any real bin count; keeps the conversion defined. */
+	if (!(q < lim))
+		q = lim;
+	if (q < -lim)
+		q = -lim;
 	return (long)ceil(q) - 1;
 }
 

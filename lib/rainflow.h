@@ -112,7 +112,7 @@ size_t	rf_residue_len(const struct rf_state *s);
  * Bins for histograms and range-mean matrices.  Bin K of width W holds
  * the values V with K*W < V <= (K+1)*W (a value on an edge belongs to the
  * lower bin), decided up to rounding, so ranges, which are never 0, start
- * at bin 0, (0, W].
+ * at bin 0, (0, W].  Indices are clamped to +-1e15 (or half of LONG_MAX).
  */
 long	rf_bin_index(double v, double w);
 

@@ -1,0 +1,7 @@
+# cw-rainflow(1) EXAMPLES: every cycle of the invented fleet.  Full cycles
+# come as they close (SC-0203's 58-66 once its next valley, 52, is
+# confirmed by the rise to 54), the residues at the end in device order.  CT-0305 is held at 100 % from
+# 08:30 to 08:50: its 40-100 cycle ends at 08:30, the first row of the
+# hold.  SC-0203's 52-64 cycle closes only at the end, when the last
+# valley (50) is no longer provisional.
+cw-rainflow testdata/rainflow-fleet.csv
