@@ -52,7 +52,8 @@ static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
 static void	write_summary(struct tool *t, const struct dev *d);
-static void	report(const struct devtab *devs, const struct sampin_stats *st);
+static void	report(const struct devtab *devs,
+		    const struct sampin_stats *st);
 
 static void
 usage(FILE *fp)

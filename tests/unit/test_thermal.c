@@ -218,7 +218,8 @@ static void
 test_hysteresis_cold(void **st)
 {
 	static const double rows[][4] = {
-		{ 0, 2.0, 12, NA }, { 60, 2.0, 9.9, NA }, { 120, 2.0, 10.3, NA },
+		{ 0, 2.0, 12, NA }, { 60, 2.0, 9.9, NA },
+		{ 120, 2.0, 10.3, NA },
 		{ 180, 2.0, 9.8, NA }, { 240, 2.0, 10.4, NA },
 		{ 300, 2.0, 10.5, NA }, { 360, 2.0, 12, NA },
 		{ 420, 2.0, 12, NA }, { 480, 2.0, 12, NA },
@@ -253,7 +254,8 @@ static void
 test_hysteresis_hot(void **st)
 {
 	static const double rows[][4] = {
-		{ 0, 2.0, 40, NA }, { 60, 2.0, 45.1, NA }, { 120, 2.0, 44.6, NA },
+		{ 0, 2.0, 40, NA }, { 60, 2.0, 45.1, NA },
+		{ 120, 2.0, 44.6, NA },
 		{ 180, 2.0, 45.2, NA }, { 240, 2.0, 44.5, NA },
 		{ 300, 2.0, 44.9, NA }, { 360, 2.0, 40, NA },
 	};
@@ -305,7 +307,8 @@ test_side_switch(void **st)
 {
 	static const double rows[][4] = {
 		{ 0, 1.0, 5, NA }, { 60, 1.0, 5, NA }, { 120, 1.0, 5, NA },
-		{ 180, 1.0, 50, NA }, { 240, 1.0, 50, NA }, { 300, 1.0, 25, NA },
+		{ 180, 1.0, 50, NA }, { 240, 1.0, 50, NA },
+		{ 300, 1.0, 25, NA },
 	};
 	struct thermal_conf c;
 	struct thermal_dev d;
@@ -445,7 +448,8 @@ test_max_gap(void **st)
 {
 	static const double rows[][4] = {
 		{ 0, 1.0, 5, NA }, { 60, 1.0, 5, NA }, { 120, 1.0, 5, NA },
-		{ 1080, 1.0, 5, NA }, { 1140, 1.0, 5, NA }, { 1200, 1.0, 5, NA },
+		{ 1080, 1.0, 5, NA }, { 1140, 1.0, 5, NA },
+		{ 1200, 1.0, 5, NA },
 		{ 1260, 1.0, 20, NA },
 	};
 	struct thermal_conf c;

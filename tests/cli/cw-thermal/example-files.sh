@@ -6,5 +6,7 @@ cw-thermal testdata/thermal-fleet.csv >"$TMPDIR_CASE/whole.csv"
 cw-thermal testdata/thermal-fleet-a.csv testdata/thermal-fleet-b.csv |
     cmp - "$TMPDIR_CASE/whole.csv" && echo same as the whole file
 # The same through standard input, gzipped, as two gzip members.
-{ gzip -c testdata/thermal-fleet-a.csv; gzip -c testdata/thermal-fleet-b.csv; } |
-    cw-thermal | cmp - "$TMPDIR_CASE/whole.csv" && echo same from two gzip members
+{ gzip -c testdata/thermal-fleet-a.csv
+  gzip -c testdata/thermal-fleet-b.csv; } |
+    cw-thermal | cmp - "$TMPDIR_CASE/whole.csv" &&
+    echo same from two gzip members

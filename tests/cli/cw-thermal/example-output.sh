@@ -3,7 +3,8 @@
 # example's own command line is used.  EB-0042's use event lasts 8 min
 # and is dropped; CART-07 (20 min) and TERM-12 (12 min) remain.
 top=$(pwd)
-cd "$TMPDIR_CASE" && mkdir testdata && cp "$top/testdata/thermal-fleet.csv" testdata/
+cd "$TMPDIR_CASE" && mkdir testdata &&
+    cp "$top/testdata/thermal-fleet.csv" testdata/
 cw-thermal --min-duration 10m --merge 5m -o long.csv \
     testdata/thermal-fleet.csv
 echo "rc=$?"
