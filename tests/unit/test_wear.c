@@ -49,6 +49,7 @@ test_time_at_high_soc(void **st)
 	wear_finish(&d, &c);
 	wear_report(&c, &d.acc, 0, &r);
 	near(r.hours_soc_ge_95, 15.0 / 60, 1e-12);
+	wear_free(&d);
 	/* Temperature 40 -> 50 C: 45 C crossed half way, likewise. */
 	wear_init(&d, &c);
 	wear_push(&d, &c, T0, 4.0, 0, 40, 50);
