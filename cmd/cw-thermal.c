@@ -5,7 +5,6 @@
  */
 #include <errno.h>
 #include <getopt.h>
-#include <math.h>
 #include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -47,7 +46,6 @@ enum {
 
 static void	usage(FILE *fp);
 static double	temp_diff_arg(const char *opt, const char *s);
-static double	snap(double c);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
@@ -88,20 +86,7 @@ temp_diff_arg(const char *opt, const char *s)
 	if (num_parse(s, n, '.', &x) != NUM_OK || x < 0 || x * mul > 50)
 		cw_usage_error("%s: '%s' is not a temperature difference "
 		    "within 0..50 C (e.g. 0.5, 0.5C, 1F)", opt, s);
-	return snap(x * mul);
-}
-
-/*
- * Round a converted temperature to 1e-9 C, far below any sensor's
- * resolution, so that binary rounding in the conversion does not move a
- * threshold off its decimal value: 53.6F is then exactly 12 C (not
- * 12.000000000000002) and a reading of 12.0 is at the threshold, not
- * below it.
- */
-static double
-snap(double c)
-{
-	return round(c * 1e9) / 1e9;
+	return x * mul;
 }
 
 static int
@@ -257,8 +242,6 @@ main(int argc, char *argv[])
 			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, t.conf.lim.t, 4, 1, 1);
-			for (i = 0; i < 4; i++)
-				t.conf.lim.t[i] = snap(t.conf.lim.t[i]);
 			break;
 		case OPT_MAX_GAP:
 			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
@@ -276,8 +259,8 @@ main(int argc, char *argv[])
 			break;
 		case OPT_USE_LIMITS:
 			opt_list_arg("--use-limits", optarg, use, 2, 1, 1);
-			t.conf.lim.use_lo = snap(use[0]);
-			t.conf.lim.use_hi = snap(use[1]);
+			t.conf.lim.use_lo = use[0];
+			t.conf.lim.use_hi = use[1];
 			break;
 		case OPT_VERSION:
 			cw_print_version();
@@ -295,6 +278,7 @@ main(int argc, char *argv[])
 	}
 	argc -= optind;
 	argv += optind;
+	thermal_limits_snap(&t.conf.lim);
 
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);

@@ -105,6 +105,31 @@ test_zones_and_boundaries(void **st)
 	assert_string_equal(thermal_kind_name(THERMAL_USE), "use");
 }
 
+/*
+ * Limits converted from F land on their decimal value in C after
+ * thermal_limits_snap(): C = (F - 32) * 5 / 9 (definition of the scale),
+ * so 26.6F = -3C and 30.2F = -1C exactly, which plain binary arithmetic
+ * misses by one unit in the last place.
+ */
+static void
+test_snap(void **st)
+{
+	struct thermal_limits l;
+
+	(void)st;
+	thermal_limits_default(&l);
+	l.t[0] = (26.6 - 32.0) * 5.0 / 9.0;
+	l.t[1] = (30.2 - 32.0) * 5.0 / 9.0;
+	l.hyst = 0.9 * 5.0 / 9.0;
+	assert_true(l.t[0] != -3.0);	/* the binary result is off */
+	thermal_limits_snap(&l);
+	assert_true(l.t[0] == -3.0);
+	assert_true(l.t[1] == -1.0);
+	assert_true(l.t[2] == 45.0 && l.t[3] == 60.0);
+	assert_true(l.hyst == 0.5);
+	assert_int_equal(thermal_zone_of(&l, -3.0), THERMAL_COOL);
+}
+
 /* Degenerate limits: T1 = T2 leaves no cool zone, T3 = T4 no warm zone. */
 static void
 test_equal_thresholds(void **st)
@@ -535,6 +560,7 @@ main(void)
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_zones_and_boundaries),
 		cmocka_unit_test(test_equal_thresholds),
+		cmocka_unit_test(test_snap),
 		cmocka_unit_test(test_cold_charge_ah),
 		cmocka_unit_test(test_warm_charge_uneven),
 		cmocka_unit_test(test_exactly_at_threshold),
