@@ -1,4 +1,5 @@
 /* opt.c: validated option values (numbers, temperatures, durations). */
+#include <math.h>
 #include <string.h>
 
 #include "num.h"
@@ -55,7 +56,11 @@ opt_temp(const char *s, double *c)
 	}
 	if (x < -273.15)
 		return -1;
-	*c = x;
+	/*
+	 * Round away the last-place error of the conversion (26.6F must be
+	 * -3 C exactly, or a reading of -3 C falls on the wrong side).
+	 */
+	*c = round(x * 1e9) / 1e9;
 	return 0;
 }
 
