@@ -11,6 +11,8 @@
 #   three-point rule of ASTM E1049-85 (reapproved 2017) section 5.4.4 with
 #   its step 6 (the standard's own Fig. 6 example is in
 #   tests/unit/test_rainflow.c and tests/cli/cw-rainflow/astm-fig6.sh);
+#   also the three-point rule exactly as section 5.4.4 writes it (step 5
+#   half cycles at the starting point), for the counts by range and mean;
 #   --residue repeat: the history taken as periodic (turning points
 #   rotated to start and end at the maximum), every range closed by the
 #   four-point method; --residue full: the residue counted as full cycles.
@@ -122,6 +124,32 @@ def fourpoint(tp, periodic=False):
                 break
     return full, st
 
+def astm3(tp):
+    """ASTM E1049-85 5.4.4 as written: the three-point rule with the
+    starting point S, half cycles at S (step 5), the residue as halves."""
+    rows, st, s = [], [], 0
+    for p in tp:
+        st.append(p)
+        while len(st) - s >= 3:
+            a, b, c = st[-3:]
+            y, x = abs(a[0] - b[0]), abs(b[0] - c[0])
+            if x < y:
+                break
+            if len(st) - 3 == s:
+                rows.append(row(a, b, 0.5))
+                s += 1
+            else:
+                rows.append(row(a, b, 1.0))
+                del st[-3:-1]
+    rows += [row(st[i], st[i + 1], 0.5) for i in range(s, len(st) - 1)]
+    return rows
+
+def by_range_mean(rows):
+    out = {}
+    for r in rows:
+        out[(r[0], r[1])] = out.get((r[0], r[1]), 0.0) + r[2]
+    return out
+
 def row(a, b, count):
     t0, t1 = sorted((a[1], b[1]))
     return (abs(a[0] - b[0]), a[0] + b[0], count, t0, t1)  # mean * 2
@@ -199,6 +227,15 @@ for h in (1, 2000, 7500):		# thousandths: 0.001, 2 and 7.5 percent
                       all(r[3] == "1" for r in got))
             if mode != "half":
                 continue
+            # Counts by (range, mean) equal those of the standard as
+            # written, ties (U3) included.
+            g = {}
+            for r in got:
+                k = (round(float(r[1]) * 1000), round(float(r[2]) * 2000))
+                g[k] = g.get(k, 0.0) + float(r[3])
+            a = by_range_mean(astm3(tp))
+            check("%s h=%s: counts by range and mean vs ASTM as written"
+                  % (d, hs), g == a)
             # Row by row: range, mean, count, start, end.
             wset = sorted(("%.3f" % (r[0] / 1000.0), "%.4f" % (r[1] / 2000.0),
                            "%g" % r[2], iso(r[3]), iso(r[4])) for r in want)
