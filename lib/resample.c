@@ -14,9 +14,12 @@ grid_ceil(cw_time t, cw_time step)
 	return q < t ? q + step : q;
 }
 
+/* A grid point on the later sample (F 1) takes its value, known or not. */
 static double
 lerp(double a, double b, double f)
 {
+	if (f >= 1)
+		return b;
 	return a + (b - a) * f;
 }
 
