@@ -22,7 +22,9 @@ opt_long_arg(const char *opt, const char *s, long lo, long hi)
 {
 	double x;
 
-	if (num_parse_str(s, &x) != NUM_OK || x != (double)(long)x)
+	/* No (long) cast before the value is known to fit: that is
+	 * undefined behaviour for 1e30. */
+	if (num_parse_str(s, &x) != NUM_OK || x != floor(x) || fabs(x) > 9e18)
 		cw_usage_error("%s: '%s' is not a whole number", opt, s);
 	if (x < lo || x > hi)
 		cw_usage_error("%s: %s is outside %ld..%ld", opt, s, lo, hi);
