@@ -59,8 +59,13 @@ gzsrc_read(struct gzsrc *s, void *buf, size_t n)
 	else if (err == Z_BUF_ERROR)
 		cw_warn("%s: truncated gzip stream (unexpected end of file)",
 		    s->name);
-	else
+	else {
+		/* zlib names the stream "<fd:N>: ": the file is named here. */
+		if (msg != NULL && strncmp(msg, "<fd:", 4) == 0 &&
+		    strstr(msg, ": ") != NULL)
+			msg = strstr(msg, ": ") + 2;
 		cw_warn("%s: corrupt gzip stream: %s", s->name, msg);
+	}
 	return -1;
 }
 
