@@ -48,7 +48,7 @@
 
 /* One counted cycle or half cycle. */
 struct rf_cycle {
-	double range;		/* absolute difference of the turning points */
+	double range;		/* |difference| of its turning points */
 	double mean;		/* their average */
 	double count;		/* 0.5 or 1 */
 	cw_time start, end;	/* times of the earlier and later of them */
@@ -66,8 +66,8 @@ struct rf_point {
 enum {
 	RF_RESIDUE_HALF,	/* each open range is half a cycle (ASTM) */
 	RF_RESIDUE_FULL,	/* each open range is a full cycle */
-	RF_RESIDUE_REPEAT	/* count the residue as if the history repeated:
-				   every range closes, the largest last */
+	RF_RESIDUE_REPEAT	/* as if the history repeated: every range
+				   closes, the largest last */
 };
 
 typedef void rf_emit_fn(void *ctx, const struct rf_cycle *c);
@@ -79,7 +79,7 @@ typedef void rf_emit_fn(void *ctx, const struct rf_cycle *c);
 struct rf_state {
 	double hyst;		/* hysteresis H, >= 0 */
 	int dir;		/* RF_DIR_* in rainflow.c */
-	struct rf_point lo, hi;	/* before the first move: extremes so far */
+	struct rf_point lo, hi;	/* before the first move: the extremes */
 	struct rf_point cand;	/* the provisional extreme */
 	struct rf_point *pt;	/* residue: pt[0..start) the start side, */
 	size_t n, cap, start;	/* pt[start..n) the open stack */
@@ -129,7 +129,8 @@ struct rf_hist {
 };
 
 /* RANGE_WIDTH > 0; MEAN_WIDTH > 0 for a matrix, 0 for ranges only. */
-void	rf_hist_init(struct rf_hist *h, double range_width, double mean_width);
+void	rf_hist_init(struct rf_hist *h, double range_width,
+	    double mean_width);
 void	rf_hist_add(struct rf_hist *h, const struct rf_cycle *c);
 /* A new array (free() it) of the N non-empty cells in range, then mean
  * bin order; NULL when N is 0. */
