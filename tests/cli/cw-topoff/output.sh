@@ -1,0 +1,10 @@
+# -o writes atomically: on success the file appears whole; on a data
+# error an existing file keeps its contents and no temporary is left.
+cd "$TMPDIR_CASE" || exit 1
+top=$OLDPWD
+cw-topoff -o out.csv "$top/testdata/topoff-hand.csv"; echo "rc=$?"
+cat out.csv
+printf 'device,time\nA,0\n' >bad.csv
+cw-topoff -o out.csv bad.csv; echo "rc=$?"
+cat out.csv
+ls
