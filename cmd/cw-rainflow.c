@@ -11,7 +11,6 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
-#include "num.h"
 #include "opt.h"
 #include "outf.h"
 #include "rainflow.h"
@@ -189,7 +188,11 @@ on_row(void *ctx, void *dp, const struct cw_sample *s)
 	d->last = s->t;
 	r->cur = d;
 	rf_push(&d->rf, s->t, x, s->temp, emit, r);
-	return r->w.err ? CW_EXIT_DATA : 0;
+	if (r->w.err) {
+		cw_warn("write error: %s", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	return 0;
 }
 
 /* The rows of one device at the end of the stream. */
