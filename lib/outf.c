@@ -14,7 +14,7 @@
 #include "cw.h"
 #include "outf.h"
 
-#define OUTF_MAX 4
+#define OUTF_MAX 8
 
 struct outf {
 	FILE *fp;
@@ -63,21 +63,33 @@ outf_open(const char *path)
 	struct outf *o;
 	const char *slash, *base;
 	struct stat st;
-	int fd;
+	int fd, i;
 
-	if (nslots == OUTF_MAX)
-		cw_die(CW_EXIT_DATA, "too many output files");
-	o = &slots[nslots];
+	/* A slot whose file was committed can serve again. */
+	for (o = NULL, i = 0; i < nslots; i++)
+		if (slots[i].path != NULL && slots[i].fp == NULL &&
+		    !slots[i].live) {
+			o = &slots[i];
+			free(o->path);
+			o->path = NULL;
+			break;
+		}
+	if (o == NULL) {
+		if (nslots == OUTF_MAX)
+			cw_die(CW_EXIT_DATA, "too many output files");
+		o = &slots[nslots];
+	}
 	memset(o, 0, sizeof(*o));
 	if (path == NULL || strcmp(path, "-") == 0) {
 		o->fp = stdout;
 		setvbuf(stdout, obuf, _IOFBF, sizeof(obuf));
-		nslots++;
+		if (o == &slots[nslots])
+			nslots++;
 		return o;
 	}
 	if (!hooked) {
 		struct sigaction sa;
-		int sigs[] = { SIGINT, SIGTERM, SIGHUP, SIGPIPE }, i;
+		int sigs[] = { SIGINT, SIGTERM, SIGHUP, SIGPIPE };
 
 		memset(&sa, 0, sizeof(sa));
 		sa.sa_handler = on_signal;
@@ -98,7 +110,8 @@ outf_open(const char *path)
 			cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));
 		o->path = cw_strdup(path);
 		o->direct = 1;
-		nslots++;
+		if (o == &slots[nslots])
+			nslots++;
 		return o;
 	}
 	slash = strrchr(path, '/');
@@ -118,7 +131,8 @@ outf_open(const char *path)
 		fchmod(fd, 0666 & ~um);
 	}
 	o->path = cw_strdup(path);
-	nslots++;
+	if (o == &slots[nslots])
+		nslots++;
 	o->fp = fdopen(fd, "w");
 	if (o->fp == NULL)
 		cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));

@@ -1,0 +1,934 @@
+/*
+ * synth.c: the invented fleet's physics, daily plans and truth (synth.h).
+ *
+ * Every constant below is invented for the scenario unless a comment says
+ * otherwise; cw-synth(1) lists them with their sources.
+ */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "synth.h"
+#include "ts.h"
+
+#define PI 3.14159265358979323846
+
+/* Sub-step of the integration: at most this many seconds. */
+#define SUBSTEP_MAX 10.0
+
+/* Thermal exchange (W/K) and outside heat (W at full sun) by location. */
+#define UA_DEPOT 2.0
+#define UA_DOCK 1.6
+#define UA_PARK 1.6
+#define UA_RIDE 4.5
+#define SUN_DOCK_W 35.0
+#define SUN_PARK_W 10.0
+#define SUN_RIDE_W 8.0
+
+/* The truth's event rules: SPEC.md's cw-thermal defaults. */
+#define EV_MIN_A 0.05
+#define EV_MIN_DUR (60 * CW_US_PER_S)
+#define EV_MERGE (120 * CW_US_PER_S)
+
+const char *const synth_profile_name[SYNTH_NPROFILE] = {
+	"deep-depot", "topup-dock", "idle-dock", "topup-nocutoff"
+};
+
+const char *const synth_zone_name[5] = {
+	"below-min", "cool", "normal", "warm", "above-max"
+};
+
+/* How the depot and the docks charge (see synth_charger_current()). */
+static const struct synth_charger ch_depot = {
+	"depot", 14.0, SYNTH_VMAX, 0.7, 0.0, 1, 10.0, 0.0
+};
+static const struct synth_charger ch_dock = {
+	"dock", 2.8, SYNTH_VMAX, 0.7, 41.4, 1, 10.0, 30.0
+};
+static const struct synth_charger ch_nocutoff = {
+	"dock-nocutoff", 5.0, SYNTH_VMAX, 0.7, 41.4, 0, -273.15, 0.0
+};
+
+/* How much sun reaches a docked pack, by site (0: the indoor depot). */
+static const double site_sun[8] = {
+	0.0, 0.9, 0.5, 1.0, 0.3, 0.7, 0.6, 1.0
+};
+#define SITE_NOCUTOFF 7
+
+struct synth_fleet {
+	struct synth_conf c;
+	struct synth_hooks h;
+	struct synth_dev *devs;		/* by index */
+	struct synth_dev **order;	/* by phase, then index */
+	long ndev, rpd, nsub;
+	double hsub;
+	long day;
+	long day_utc_s;			/* UTC second of local midnight */
+	double season_c, daylen_h, sun_peak;
+	double *wx, *clear;		/* per day, ndays + 1 of each */
+	long env_slot;
+	double amb, sun;
+	int started;
+};
+
+static uint64_t rotl(uint64_t, int);
+static void add_seg(struct synth_dev *, long, int, double);
+static void plan_day(struct synth_dev *);
+static void slot_env(struct synth_fleet *, long);
+static void dev_env(const struct synth_fleet *, const struct synth_dev *,
+	    struct synth_env *);
+static void enter(struct synth_fleet *, struct synth_dev *, int, cw_time);
+static void mc_end(struct synth_fleet *, struct synth_dev *, cw_time, int);
+static void ev_close(struct synth_fleet *, struct synth_dev *);
+static int zone_of(double);
+static int cmp_phase(const void *, const void *);
+
+/* Random numbers. */
+
+uint64_t
+synth_splitmix64(uint64_t *state)
+{
+	uint64_t z = (*state += 0x9e3779b97f4a7c15ULL);
+
+	z = (z ^ (z >> 30)) * 0xbf58476d1ce4e5b9ULL;
+	z = (z ^ (z >> 27)) * 0x94d049bb133111ebULL;
+	return z ^ (z >> 31);
+}
+
+void
+synth_rng_seed(struct synth_rng *r, uint64_t seed, uint64_t stream)
+{
+	uint64_t x = stream * 0xd1b54a32d192ed03ULL + 0x632be59bd9b4e019ULL;
+	int i;
+
+	x = synth_splitmix64(&x) ^ seed;
+	for (i = 0; i < 4; i++)
+		r->s[i] = synth_splitmix64(&x);
+	r->has_spare = 0;
+	r->spare = 0;
+}
+
+static uint64_t
+rotl(uint64_t x, int k)
+{
+	return (x << k) | (x >> (64 - k));
+}
+
+uint64_t
+synth_rng_next(struct synth_rng *r)
+{
+	uint64_t *s = r->s;
+	uint64_t res = rotl(s[1] * 5, 7) * 9;
+	uint64_t t = s[1] << 17;
+
+	s[2] ^= s[0];
+	s[3] ^= s[1];
+	s[1] ^= s[2];
+	s[0] ^= s[3];
+	s[2] ^= t;
+	s[3] = rotl(s[3], 45);
+	return res;
+}
+
+double
+synth_rng_unif(struct synth_rng *r)
+{
+	return (double)(synth_rng_next(r) >> 11) * 0x1.0p-53;
+}
+
+double
+synth_rng_range(struct synth_rng *r, double lo, double hi)
+{
+	return lo + (hi - lo) * synth_rng_unif(r);
+}
+
+double
+synth_rng_gauss(struct synth_rng *r)
+{
+	double u1, u2, m;
+
+	if (r->has_spare) {
+		r->has_spare = 0;
+		return r->spare;
+	}
+	u1 = 1.0 - synth_rng_unif(r);	/* (0, 1]: the log is finite */
+	u2 = synth_rng_unif(r);
+	m = sqrt(-2.0 * log(u1));
+	r->spare = m * sin(2.0 * PI * u2);
+	r->has_spare = 1;
+	return m * cos(2.0 * PI * u2);
+}
+
+/* The cell and the pack. */
+
+/*
+ * An invented NMC-like curve, not fitted to any cell: 3.00 V empty,
+ * 4.20 V full, a gently rising middle near 3.7 V, a knee below 15 % and a
+ * steeper last few percent.  It rises everywhere, so SoC follows from it.
+ */
+double
+synth_ocv_cell(double soc)
+{
+	double s = soc < -0.05 ? -0.05 : soc > 1.05 ? 1.05 : soc;
+	double s2 = s * s, s4 = s2 * s2;
+
+	return 3.25 + 0.85 * s - 0.25 * exp(-15.0 * s) + 0.10 * s4 * s4;
+}
+
+double
+synth_docv_cell(double soc)
+{
+	double s = soc < -0.05 ? -0.05 : soc > 1.05 ? 1.05 : soc;
+	double s2 = s * s, s4 = s2 * s2;
+
+	return 0.85 + 3.75 * exp(-15.0 * s) + 0.80 * s4 * s2 * s;
+}
+
+double
+synth_arrhenius(double ea, double t_c)
+{
+	return exp(-(ea / SYNTH_RGAS) * (1.0 / (t_c + SYNTH_T0_K) -
+	    1.0 / (SYNTH_TREF_C + SYNTH_T0_K)));
+}
+
+void
+synth_pack_init(struct synth_pack *p, double cap_ah, double r0_ref,
+    double r1_ref, double tau1_s, double temp_c)
+{
+	memset(p, 0, sizeof(*p));
+	p->soc = 1.0;
+	p->cap_ah = cap_ah;
+	p->r0_ref = r0_ref;
+	p->r1_ref = r1_ref;
+	p->tau1_s = tau1_s;
+	p->temp_c = temp_c;
+	p->heat_cap = 3200.0;
+	p->v = SYNTH_CELLS * synth_ocv_cell(1.0);
+}
+
+double
+synth_pack_r0(const struct synth_pack *p)
+{
+	return p->r0_ref * (1.0 + p->growth) /
+	    synth_arrhenius(SYNTH_EA_R, p->temp_c);
+}
+
+double
+synth_pack_r1(const struct synth_pack *p)
+{
+	return p->r1_ref * (1.0 + p->growth) /
+	    synth_arrhenius(SYNTH_EA_R, p->temp_c);
+}
+
+double
+synth_pack_rstep25(const struct synth_pack *p, double dt)
+{
+	return (p->r0_ref + p->r1_ref * (1.0 - exp(-dt / p->tau1_s))) *
+	    (1.0 + p->growth);
+}
+
+double
+synth_pack_current_for(const struct synth_pack *p, double v, double dt)
+{
+	double f = (1.0 + p->growth) / synth_arrhenius(SYNTH_EA_R, p->temp_c);
+	double r0 = p->r0_ref * f, r1 = p->r1_ref * f;
+	double e = exp(-dt / p->tau1_s);
+	double ocv = SYNTH_CELLS * synth_ocv_cell(p->soc);
+	double slope = SYNTH_CELLS * synth_docv_cell(p->soc) /
+	    (3600.0 * p->cap_ah);
+
+	return (v - ocv - p->v_rc * e) / (r0 + r1 * (1.0 - e) + slope * dt);
+}
+
+/*
+ * One step with constant current: the RC pair and the temperature follow
+ * their exact exponential responses, the SoC the charge, the resistance
+ * growth its rates at the temperature at the start of the step.  The
+ * resistances are those at the start of the step too, which is what
+ * synth_pack_current_for() assumes.
+ */
+double
+synth_pack_step(struct synth_pack *p, double i_a, double dt,
+    const struct synth_env *env)
+{
+	double fr = synth_arrhenius(SYNTH_EA_R, p->temp_c);
+	double r0 = p->r0_ref * (1.0 + p->growth) / fr;
+	double r1 = p->r1_ref * (1.0 + p->growth) / fr;
+	double e = exp(-dt / p->tau1_s);
+	double vrc = p->v_rc * e + r1 * i_a * (1.0 - e);
+	double heat = i_a * i_a * r0 + vrc * vrc / r1;
+	double tinf = env->amb_c + (heat + env->gain_w) / env->ua;
+	double et = exp(-dt * env->ua / p->heat_cap);
+	double fa = synth_arrhenius(SYNTH_EA_AGE, p->temp_c);
+	double s = p->soc, dq = fabs(i_a) * dt / 3600.0;
+
+	p->growth += fa * (p->k_cal * (0.3 + 0.7 * s * s) * dt +
+	    p->k_cyc * dq / (2.0 * p->cap_ah));
+	if (i_a > 0 && p->temp_c < 10.0)
+		p->growth += p->k_cold * dq / p->cap_ah *
+		    (10.0 - p->temp_c) / 10.0;
+	p->soc += i_a * dt / (3600.0 * p->cap_ah);
+	p->v_rc = vrc;
+	p->temp_c = tinf + (p->temp_c - tinf) * et;
+	p->heat_w = heat;
+	p->v = SYNTH_CELLS * synth_ocv_cell(p->soc) + vrc + r0 * i_a;
+	return p->v;
+}
+
+/*
+ * The charger's rules: it waits while the pack is colder than its hold
+ * temperature; with the JEITA rules it also waits outside 0..60 C, halves
+ * the current below 10 C and lowers the voltage to 4.10 V per cell above
+ * 45 C; a terminated charger starts again when the resting pack falls
+ * below the re-start voltage (lowered as the charge voltage is); it gives
+ * the constant
+ * current until the voltage limit binds, then the current that holds the
+ * voltage; it terminates when that current falls below I_TERM.  The bike's
+ * electronics draw I_PAR throughout, from the charger while it charges.
+ */
+double
+synth_charger_current(const struct synth_charger *c,
+    const struct synth_pack *p, int *state, double i_par, double dt,
+    int *event)
+{
+	double icc = c->i_cc, vcv = c->v_cv, icv, i;
+	int paused = p->temp_c < c->hold_c;
+
+	*event = 0;
+	if (*state == SYNTH_CH_OFF)
+		return -i_par;
+	if (c->jeita) {
+		if (p->temp_c < 0.0 || p->temp_c > 60.0)
+			paused = 1;
+		else if (p->temp_c < 10.0)
+			icc *= 0.5;
+		else if (p->temp_c > 45.0)
+			vcv = SYNTH_CELLS * 4.10;
+	}
+	if (*state == SYNTH_CH_DONE) {
+		/* The re-start gap below the charge voltage in force. */
+		if (c->v_restart <= 0 ||
+		    p->v >= c->v_restart - (c->v_cv - vcv))
+			return -i_par;
+		*state = SYNTH_CH_CHARGING;
+		*event = 2;
+	}
+	if (paused)
+		return -i_par;
+	icv = synth_pack_current_for(p, vcv, dt);
+	i = icc - i_par;
+	if (icv < i) {
+		i = icv;
+		if (i + i_par < c->i_term) {
+			*state = SYNTH_CH_DONE;
+			*event = vcv >= c->v_cv ? 1 : 3;
+			return -i_par;
+		}
+	}
+	return i < -i_par ? -i_par : i;
+}
+
+/* Plans. */
+
+static void
+add_seg(struct synth_dev *d, long at, int loc, double mean_a)
+{
+	if (d->nseg == SYNTH_MAXSEG)
+		return;
+	d->seg[d->nseg].at = at;
+	d->seg[d->nseg].loc = loc;
+	d->seg[d->nseg].mean_a = mean_a;
+	d->nseg++;
+}
+
+#define H(x) ((long)((x) * 3600.0))
+#define MIN(x) ((long)((x) * 60.0))
+
+/*
+ * A device's day, local time.  The first segment, at midnight, is where
+ * the previous day ended, so days join.
+ */
+static void
+plan_day(struct synth_dev *d)
+{
+	struct synth_rng *r = &d->rng;
+	long t, t2, dur, pick;
+	int n;
+
+	d->nseg = 0;
+	d->cur = 0;
+	switch (d->profile) {
+	case SYNTH_DEEP:
+		add_seg(d, 0, SYNTH_AT_DEPOT, 0);
+		pick = H(synth_rng_range(r, 6.0, 7.0));
+		add_seg(d, pick, SYNTH_PARKED, 0);
+		t = (long)synth_rng_range(r, (double)(pick + MIN(10) > H(7.0) ?
+		    pick + MIN(10) : H(7.0)), (double)H(8.75));
+		dur = MIN(synth_rng_range(r, 40, 95));
+		add_seg(d, t, SYNTH_RIDING, synth_rng_range(r, 5.0, 8.5));
+		add_seg(d, t + dur, SYNTH_PARKED, 0);
+		if (synth_rng_unif(r) < 0.75) {
+			t = H(synth_rng_range(r, 16.5, 18.0));
+			dur = MIN(synth_rng_range(r, 15, 50));
+			add_seg(d, t, SYNTH_RIDING, synth_rng_range(r, 4.0,
+			    8.0));
+			add_seg(d, t + dur, SYNTH_PARKED, 0);
+		}
+		add_seg(d, H(synth_rng_range(r, 19.0, 21.0)), SYNTH_AT_DEPOT,
+		    0);
+		break;
+	case SYNTH_TOPUP:
+	case SYNTH_NOCUTOFF:
+		add_seg(d, 0, SYNTH_AT_DOCK, 0);
+		t = H(synth_rng_range(r, 6.5, d->profile == SYNTH_TOPUP ? 8.0 :
+		    8.5));
+		while (t < H(21.0) && d->nseg + 2 <= SYNTH_MAXSEG) {
+			dur = MIN(synth_rng_range(r, 5, 25));
+			add_seg(d, t, SYNTH_RIDING, synth_rng_range(r, 3.0,
+			    7.0));
+			add_seg(d, t + dur, SYNTH_AT_DOCK, 0);
+			t += dur + (d->profile == SYNTH_TOPUP ?
+			    MIN(synth_rng_range(r, 20, 110)) :
+			    MIN(synth_rng_range(r, 40, 180)));
+		}
+		break;
+	default:	/* SYNTH_IDLE */
+		add_seg(d, 0, SYNTH_AT_DOCK, 0);
+		t = synth_rng_unif(r) < 0.3 ? 0 : 1;
+		n = t == 0 ? 0 : synth_rng_unif(r) < 0.64 ? 1 : 2;
+		t = H(synth_rng_range(r, 8.0, 14.0));
+		t2 = t + H(synth_rng_range(r, 1.0, 6.0));
+		if (n >= 1) {
+			dur = MIN(synth_rng_range(r, 10, 30));
+			add_seg(d, t, SYNTH_RIDING, synth_rng_range(r, 3.0,
+			    6.0));
+			add_seg(d, t + dur, SYNTH_AT_DOCK, 0);
+		}
+		if (n == 2) {
+			dur = MIN(synth_rng_range(r, 10, 30));
+			add_seg(d, t2, SYNTH_RIDING, synth_rng_range(r, 3.0,
+			    6.0));
+			add_seg(d, t2 + dur, SYNTH_AT_DOCK, 0);
+		}
+		break;
+	}
+}
+
+/* The weather. */
+
+/*
+ * Ambient temperature and sunshine at slot SLOT of the current day: a
+ * seasonal mean from -1 C in mid January to 28 C in mid July, a daily
+ * swing of 8 K peaking at 15:00, a random offset per day (smoothed over
+ * the day), and sun from sunrise to sunset, weaker in winter, scaled by
+ * the day's clear-sky fraction.
+ */
+static void
+slot_env(struct synth_fleet *f, long slot)
+{
+	double h = (double)(slot * f->c.period_s) / 3600.0, x, rise;
+	long d = f->day;
+
+	x = h / 24.0;
+	f->amb = f->season_c + f->wx[d] + (f->wx[d + 1] - f->wx[d]) * x +
+	    8.0 * cos(2.0 * PI * (h - 15.0) / 24.0);
+	rise = 12.0 - f->daylen_h / 2.0;
+	x = sin(PI * (h - rise) / f->daylen_h);
+	f->sun = h > rise && h < rise + f->daylen_h && x > 0 ?
+	    x * f->sun_peak * (f->clear[d] + (f->clear[d + 1] -
+	    f->clear[d]) * h / 24.0) : 0.0;
+	f->env_slot = slot;
+}
+
+static void
+dev_env(const struct synth_fleet *f, const struct synth_dev *d,
+    struct synth_env *e)
+{
+	switch (d->loc) {
+	case SYNTH_AT_DEPOT:
+		/* Heated in winter, it follows part of the summer heat. */
+		e->amb_c = 18.0 + (f->amb > 18.0 ? 0.6 * (f->amb - 18.0) : 0);
+		e->ua = UA_DEPOT;
+		e->gain_w = 0;
+		break;
+	case SYNTH_AT_DOCK:
+		e->amb_c = f->amb;
+		e->ua = UA_DOCK;
+		e->gain_w = SUN_DOCK_W * f->sun * site_sun[d->site];
+		if (d->heat_on)
+			e->gain_w += d->dock->heater_w;
+		break;
+	case SYNTH_PARKED:
+		e->amb_c = f->amb;
+		e->ua = UA_PARK;
+		e->gain_w = SUN_PARK_W * f->sun;
+		break;
+	default:
+		e->amb_c = f->amb;
+		e->ua = UA_RIDE;
+		e->gain_w = SUN_RIDE_W * f->sun;
+		break;
+	}
+}
+
+/* The fleet. */
+
+void
+synth_conf_default(struct synth_conf *c)
+{
+	int k;
+
+	memset(c, 0, sizeof(*c));
+	c->ndev = 10;
+	c->ndays = 7;
+	c->start_day = ts_days_from_civil(2026, 1, 12);
+	c->tz_s = 3600;
+	c->period_s = 10;
+	c->seed = 1;
+	c->mix[SYNTH_DEEP] = 3;
+	c->mix[SYNTH_TOPUP] = 3;
+	c->mix[SYNTH_IDLE] = 3;
+	c->mix[SYNTH_NOCUTOFF] = 1;
+	c->aging = 1.0;
+	for (k = 0; k < SYNTH_NFAULT; k++)
+		c->rate[k] = synth_fault_default[k];
+	c->formats = SYNTH_FMT_A;
+	c->level = 1;
+	c->outdir = ".";
+}
+
+static int
+cmp_phase(const void *a, const void *b)
+{
+	const struct synth_dev *x = *(const struct synth_dev *const *)a;
+	const struct synth_dev *y = *(const struct synth_dev *const *)b;
+
+	if (x->phase_s != y->phase_s)
+		return x->phase_s < y->phase_s ? -1 : 1;
+	return x->idx < y->idx ? -1 : x->idx > y->idx;
+}
+
+struct synth_fleet *
+synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
+{
+	struct synth_fleet *f = cw_calloc(1, sizeof(*f));
+	struct synth_rng wr;
+	double cur[SYNTH_NPROFILE] = { 0 }, total = 0;
+	long i, k, w, ndock = 0;
+	int p, best;
+
+	f->c = *c;
+	if (h != NULL)
+		f->h = *h;
+	f->ndev = c->ndev;
+	f->rpd = 86400 / c->period_s;
+	f->nsub = (long)ceil((double)c->period_s / SUBSTEP_MAX);
+	f->hsub = (double)c->period_s / (double)f->nsub;
+	f->devs = cw_calloc((size_t)f->ndev, sizeof(*f->devs));
+	f->order = cw_calloc((size_t)f->ndev, sizeof(*f->order));
+	f->wx = cw_calloc((size_t)c->ndays + 1, sizeof(*f->wx));
+	f->clear = cw_calloc((size_t)c->ndays + 1, sizeof(*f->clear));
+	f->env_slot = -1;
+	synth_rng_seed(&wr, c->seed, 0);
+	for (i = 0; i <= c->ndays; i++) {
+		f->wx[i] = 2.5 * synth_rng_gauss(&wr);
+		f->clear[i] = synth_rng_range(&wr, 0.3, 1.0);
+	}
+	for (p = 0; p < SYNTH_NPROFILE; p++)
+		total += c->mix[p];
+	w = 4;
+	for (k = c->ndev; k > 9999; k /= 10)
+		w++;
+	for (i = 0; i < f->ndev; i++) {
+		struct synth_dev *d = &f->devs[i];
+		struct synth_rng *r = &d->rng;
+		double cap, r0, a = c->aging;
+		char *q;
+
+		/* Smooth weighted round robin: the mix, evenly spread. */
+		best = -1;
+		for (p = 0; p < SYNTH_NPROFILE; p++) {
+			cur[p] += c->mix[p];
+			if (c->mix[p] > 0 && (best < 0 || cur[p] > cur[best]))
+				best = p;
+		}
+		cur[best] -= total;
+		d->idx = i;
+		d->profile = best;
+		memcpy(d->name, "EB-", 3);
+		q = d->name + 3 + w;
+		*q = '\0';
+		for (k = i + 1; q > d->name + 3; k /= 10)
+			*--q = (char)('0' + k % 10);
+		d->namelen = 3 + (size_t)w;
+		synth_rng_seed(r, c->seed, 2 * (uint64_t)i + 1);
+		synth_rng_seed(&d->frng, c->seed, 2 * (uint64_t)i + 2);
+		cap = SYNTH_CAP_AH * synth_rng_range(r, 0.96, 1.03);
+		r0 = synth_rng_range(r, 0.090, 0.125);
+		synth_pack_init(&d->pack, cap, r0,
+		    r0 * synth_rng_range(r, 0.30, 0.45),
+		    synth_rng_range(r, 25, 45), 15.0);
+		d->pack.soc = synth_rng_range(r, 0.985, 0.995);
+		d->pack.heat_cap *= synth_rng_range(r, 0.9, 1.1);
+		d->pack.k_cal = a * 0.03 / (30 * 86400.0) *
+		    synth_rng_range(r, 0.8, 1.2);
+		d->pack.k_cyc = a * 0.001 * synth_rng_range(r, 0.8, 1.2);
+		d->pack.k_cold = a * 0.005 * synth_rng_range(r, 0.8, 1.2);
+		d->i_park = synth_rng_range(r, 0.01, 0.03);
+		d->i_dock = synth_rng_range(r, 0.08, 0.25);
+		d->gauge_int = synth_rng_unif(r) < 0.4;
+		d->g_gain = synth_rng_range(r, -0.015, 0.015);
+		d->g_off = 0.003 * synth_rng_gauss(r);
+		d->phase_s = (long)(synth_rng_unif(r) * (double)c->period_s);
+		if (d->profile == SYNTH_DEEP)
+			d->site = 0;
+		else if (d->profile == SYNTH_NOCUTOFF)
+			d->site = SITE_NOCUTOFF;
+		else
+			d->site = 1 + (int)(ndock++ % 6);
+		d->dock = d->profile == SYNTH_NOCUTOFF ? &ch_nocutoff :
+		    &ch_dock;
+		d->r_start25 = synth_pack_rstep25(&d->pack,
+		    (double)c->period_s);
+		f->order[i] = d;
+	}
+	qsort(f->order, (size_t)f->ndev, sizeof(*f->order), cmp_phase);
+	return f;
+}
+
+void
+synth_fleet_free(struct synth_fleet *f)
+{
+	if (f == NULL)
+		return;
+	free(f->devs);
+	free(f->order);
+	free(f->wx);
+	free(f->clear);
+	free(f);
+}
+
+long
+synth_fleet_ndev(const struct synth_fleet *f)
+{
+	return f->ndev;
+}
+
+struct synth_dev *
+synth_fleet_dev(struct synth_fleet *f, long i)
+{
+	return f->order[i];
+}
+
+long
+synth_fleet_rows_per_day(const struct synth_fleet *f)
+{
+	return f->rpd;
+}
+
+const char *
+synth_dev_charger(const struct synth_dev *d)
+{
+	return d->profile == SYNTH_DEEP ? ch_depot.name : d->dock->name;
+}
+
+void
+synth_dev_site(const struct synth_dev *d, char buf[16])
+{
+	if (d->site == 0) {
+		memcpy(buf, "depot", 6);
+		return;
+	}
+	memcpy(buf, "dock-0", 6);
+	buf[6] = (char)('0' + d->site);
+	buf[7] = '\0';
+}
+
+void
+synth_fleet_day(struct synth_fleet *f, long day)
+{
+	long y, i, z = f->c.start_day + day, doy;
+	unsigned m, dd;
+	double sx;
+
+	f->day = day;
+	f->day_utc_s = z * 86400 - f->c.tz_s;
+	ts_civil_from_days(z, &y, &m, &dd);
+	doy = z - ts_days_from_civil(y, 1, 1) + 1;
+	sx = cos(2.0 * PI * ((double)doy - 15.0) / 365.25);
+	f->season_c = 13.5 - 14.5 * sx;
+	f->daylen_h = 12.0 - 3.5 * sx;
+	f->sun_peak = 0.55 - 0.45 * sx;
+	f->env_slot = -1;
+	for (i = 0; i < f->ndev; i++)
+		plan_day(&f->devs[i]);
+	if (f->started)
+		return;
+	/* The first day: every pack starts full, resting where it is. */
+	f->started = 1;
+	slot_env(f, 0);
+	for (i = 0; i < f->ndev; i++) {
+		struct synth_dev *d = &f->devs[i];
+		struct synth_env e;
+
+		d->loc = d->seg[0].loc;
+		d->ch_state = SYNTH_CH_DONE;
+		dev_env(f, d, &e);
+		d->pack.temp_c = e.amb_c + e.gain_w / e.ua;
+		d->pack.v = SYNTH_CELLS * synth_ocv_cell(d->pack.soc);
+		d->g_deficit = (1.0 - d->pack.soc) * SYNTH_CAP_AH;
+		d->tr.soc_start = 100.0 * d->pack.soc;
+		d->tr.peak_soc = d->tr.soc_start;
+	}
+}
+
+/* A micro-cycle ends at T; COMPLETED: by termination. */
+static void
+mc_end(struct synth_fleet *f, struct synth_dev *d, cw_time t, int completed)
+{
+	d->mc.end = t;
+	d->mc.completed = completed;
+	d->mc.depth = 100.0 * (d->mc_peak - d->mc_low);
+	if (f->h.topoff != NULL)
+		f->h.topoff(f->h.ctx, d, &d->mc);
+	d->mc_on = 0;
+}
+
+/* D moves to LOC at (about) time T. */
+static void
+enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
+{
+	int was_ch = d->loc == SYNTH_AT_DEPOT || d->loc == SYNTH_AT_DOCK;
+	int is_ch = loc == SYNTH_AT_DEPOT || loc == SYNTH_AT_DOCK;
+
+	if (loc == d->loc)
+		return;
+	if (was_ch) {
+		if (d->mc_on)
+			mc_end(f, d, t, 0);
+		d->held = 0;
+		d->ch_state = SYNTH_CH_OFF;
+	}
+	d->loc = loc;
+	if (is_ch) {
+		d->ch_state = SYNTH_CH_CHARGING;
+		d->held = 0;
+		d->tr.plugins++;
+	}
+	if (loc == SYNTH_RIDING) {
+		d->tr.rides++;
+		d->ride_mean = d->seg[d->cur].mean_a;
+		d->ride_left = 0;
+		d->ride_cut = 0;
+	}
+}
+
+static int
+zone_of(double t)
+{
+	if (t < 0.0)
+		return 0;
+	if (t < 10.0)
+		return 1;
+	if (t <= 45.0)
+		return 2;
+	if (t <= 60.0)
+		return 3;
+	return 4;
+}
+
+static void
+ev_close(struct synth_fleet *f, struct synth_dev *d)
+{
+	d->ev_on = 0;
+	if (d->ev.end - d->ev.start < EV_MIN_DUR)
+		return;
+	d->tr.cevents++;
+	if (f->h.cevent != NULL)
+		f->h.cevent(f->h.ctx, d, &d->ev);
+}
+
+void
+synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
+    struct synth_sample *s)
+{
+	/* Severity of a zone: the prohibited ones first. */
+	static const int rank[5] = { 3, 1, 0, 2, 4 };
+	struct synth_pack *p = &d->pack;
+	struct synth_env env;
+	const struct synth_charger *ch;
+	double per = (double)f->c.period_s, h = f->hsub, q = 0, i, lim, gs;
+	double soc0 = 100.0 * p->soc, tloc, hr, t_c, soc_pct, iavg;
+	cw_time t = (cw_time)(f->day_utc_s + slot * f->c.period_s +
+	    d->phase_s) * CW_US_PER_S, t0;
+	long j;
+	int ev, z;
+
+	if (f->env_slot != slot)
+		slot_env(f, slot);
+	tloc = (double)(slot * f->c.period_s + d->phase_s) - per;
+	for (j = 0; j < f->nsub; j++, tloc += h) {
+		while (d->cur + 1 < d->nseg && (double)d->seg[d->cur + 1].at <=
+		    tloc) {
+			d->cur++;
+			enter(f, d, d->seg[d->cur].loc, t);
+		}
+		/* The heating pad's thermostat. */
+		if (d->loc != SYNTH_AT_DOCK || d->dock->heater_w <= 0 ||
+		    d->ch_state != SYNTH_CH_CHARGING)
+			d->heat_on = 0;
+		else if (p->temp_c < 11.0)
+			d->heat_on = 1;
+		else if (p->temp_c > 13.0)
+			d->heat_on = 0;
+		dev_env(f, d, &env);
+		ev = 0;
+		switch (d->loc) {
+		case SYNTH_RIDING:
+			if (d->ride_left <= 0) {
+				if (synth_rng_unif(&d->rng) < 0.12) {
+					d->ride_level = 0;
+					d->ride_left = synth_rng_range(&d->rng,
+					    10, 40);
+				} else {
+					d->ride_level = d->ride_mean *
+					    synth_rng_range(&d->rng, 0.4, 1.6);
+					d->ride_left = synth_rng_range(&d->rng,
+					    15, 90);
+				}
+			}
+			d->ride_left -= h;
+			i = d->ride_cut ? 0.0 : -d->ride_level;
+			break;
+		case SYNTH_PARKED:
+			i = -d->i_park;
+			break;
+		default:
+			ch = d->loc == SYNTH_AT_DEPOT ? &ch_depot : d->dock;
+			i = synth_charger_current(ch, p, &d->ch_state,
+			    d->loc == SYNTH_AT_DEPOT ? d->i_park : d->i_dock,
+			    h, &ev);
+			break;
+		}
+		/* The cut-off: no discharge below the minimum voltage. */
+		if (i < 0) {
+			lim = synth_pack_current_for(p, SYNTH_VMIN, h);
+			if (i < lim) {
+				i = lim < 0 ? lim : 0.0;
+				if (d->loc == SYNTH_RIDING && lim > -0.5)
+					d->ride_cut = 1;
+			}
+		}
+		synth_pack_step(p, i, h, &env);
+		q += i * h;
+		if (i > 0)
+			d->tr.charge_ah += i * h / 3600.0;
+		else
+			d->tr.discharge_ah -= i * h / 3600.0;
+		/* The gauge counts with its own errors. */
+		d->g_deficit -= (i * (1.0 + d->g_gain) + d->g_off) * h /
+		    3600.0;
+		if (d->g_deficit < 0)
+			d->g_deficit = 0;
+		if (d->mc_on) {
+			if (p->soc < d->mc_low)
+				d->mc_low = p->soc;
+			if (i > 0)
+				d->mc.ah += i * h / 3600.0;
+		}
+		if (ev == 1 || ev == 3) {
+			if (ev == 1)
+				d->g_deficit = 0;
+			if (d->mc_on)
+				mc_end(f, d, t, 1);
+			d->held = 1;
+			d->term_t = t;
+			d->term_soc = p->soc;
+		} else if (ev == 2 && d->held) {
+			d->mc_on = 1;
+			d->tr.topoffs++;
+			d->mc.start = d->term_t;
+			d->mc.restart = t;
+			d->mc.ah = 0;
+			d->mc_peak = d->term_soc;
+			d->mc_low = p->soc;
+		}
+	}
+
+	/* What the gauge reports. */
+	iavg = q / per;
+	t_c = p->temp_c;
+	soc_pct = 100.0 * p->soc;
+	s->t = t;
+	s->mv = (long)floor(p->v * 1000.0 + 4.0 * synth_rng_gauss(&d->rng) +
+	    0.5);
+	s->ma = (long)floor(iavg * 1000.0 + 8.0 * synth_rng_gauss(&d->rng) +
+	    0.5);
+	s->dk = (long)floor((t_c + SYNTH_T0_K) * 10.0 +
+	    synth_rng_gauss(&d->rng) + 0.5);
+	gs = 100.0 * (1.0 - d->g_deficit / SYNTH_CAP_AH);
+	gs = gs < 0 ? 0 : gs > 100 ? 100 : gs;
+	s->soc10 = d->gauge_int ? 10 * (long)floor(gs + 0.5) :
+	    (long)floor(gs * 10.0 + 0.5);
+
+	/* The truth, in the rows' convention (charge.h). */
+	t0 = d->have_prev ? d->prev_t : t - (cw_time)f->c.period_s *
+	    CW_US_PER_S;
+	if (!d->have_prev)
+		d->tr.first = t;
+	d->have_prev = 1;
+	d->prev_t = t;
+	d->tr.last = t;
+	d->tr.rows++;
+	d->tr.soc_end = soc_pct;
+	hr = per / 3600.0;
+	if (soc_pct >= 95.0)
+		d->tr.hours_soc95 += hr;
+	if (t_c >= 45.0)
+		d->tr.hours_t45 += hr;
+	if (iavg > EV_MIN_A && t_c < 10.0)
+		d->tr.cold_ah += iavg * hr;
+	if (iavg > EV_MIN_A && t_c > 45.0)
+		d->tr.hot_ah += iavg * hr;
+	if (soc_pct > d->tr.peak_soc)
+		d->tr.peak_soc = soc_pct;
+	if (d->tr.peak_soc - soc_pct > d->tr.max_depth)
+		d->tr.max_depth = d->tr.peak_soc - soc_pct;
+	if (d->ev_on && t0 - d->ev.end > EV_MERGE)
+		ev_close(f, d);
+	z = zone_of(t_c);
+	if (iavg > EV_MIN_A && z != 2) {
+		if (!d->ev_on) {
+			d->ev_on = 1;
+			d->ev.zone = z;
+			d->ev.start = t0;
+			d->ev.tmin = d->ev.tmax = t_c;
+			d->ev.ah = 0;
+			d->ev.soc0 = soc0;
+		}
+		if (rank[z] > rank[d->ev.zone])
+			d->ev.zone = z;
+		if (t_c < d->ev.tmin)
+			d->ev.tmin = t_c;
+		if (t_c > d->ev.tmax)
+			d->ev.tmax = t_c;
+		d->ev.end = t;
+		d->ev.ah += iavg * hr;
+		d->ev.soc1 = soc_pct;
+	}
+}
+
+void
+synth_fleet_finish(struct synth_fleet *f)
+{
+	long i;
+
+	for (i = 0; i < f->ndev; i++) {
+		struct synth_dev *d = &f->devs[i];
+
+		if (d->ev_on)
+			ev_close(f, d);
+		if (d->mc_on)
+			mc_end(f, d, d->tr.last, 0);
+	}
+}
