@@ -52,6 +52,18 @@ gzsrc_read(struct gzsrc *s, void *buf, size_t n)
 	if (got > 0)
 		return got;
 	msg = gzerror(s->gz, &err);
+	if (got == 0 && err == Z_OK && !gzdirect(s->gz)) {
+		/*
+		 * zlib reports a clean end when the input stops right after a
+		 * member's deflate data, its trailer missing; a second read
+		 * sees that the member is unfinished (Z_BUF_ERROR).
+		 */
+		gzclearerr(s->gz);
+		got = gzread(s->gz, buf, (unsigned)n);
+		if (got > 0)
+			return got;
+		msg = gzerror(s->gz, &err);
+	}
 	if (got == 0 && err == Z_OK)
 		return 0;
 	if (err == Z_ERRNO)
