@@ -54,7 +54,8 @@ static void	on_cycle(void *ctx, struct topoff *top,
 static void	on_hold(void *ctx, struct topoff *top,
 		    const struct topoff_hold *h);
 static void	write_summary(struct tool *t, const struct dev *d);
-static void	report(const struct devtab *devs, const struct sampin_stats *st);
+static void	report(const struct devtab *devs,
+		    const struct sampin_stats *st);
 
 static void
 usage(FILE *fp)
@@ -309,6 +310,8 @@ main(int argc, char *argv[])
 		csvout_flush(&t.out);
 		if (cw_verbose)
 			report(devs, &st);
+		csvout_free(&t.out);
+		devtab_free(devs);
 		return rc;
 	}
 
@@ -323,14 +326,14 @@ main(int argc, char *argv[])
 	free(sorted);
 	if (cw_verbose)
 		report(devs, &st);
+	rc = CW_EXIT_OK;
 	if (csvout_flush(&t.out) != 0) {
 		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
 		    "standard output", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	if (outf_commit(of) != 0)
-		return CW_EXIT_DATA;
+		rc = CW_EXIT_DATA;
+	} else if (outf_commit(of) != 0)
+		rc = CW_EXIT_DATA;
 	csvout_free(&t.out);
 	devtab_free(devs);
-	return CW_EXIT_OK;
+	return rc;
 }

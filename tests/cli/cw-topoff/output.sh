@@ -8,3 +8,6 @@ printf 'device,time\nA,0\n' >bad.csv
 cw-topoff -o out.csv bad.csv; echo "rc=$?"
 cat out.csv
 ls
+# A write error (Linux's always-full device) is a data error: exit 1.
+cw-topoff "$top/testdata/topoff-hand.csv" >/dev/full
+echo "full: rc=$?"
