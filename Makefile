@@ -58,6 +58,9 @@ check: deps
 	@$(MAKE) -s tests
 	@tests/run
 
+bench: all
+	scripts/bench.sh
+
 lint:
 	mandoc -Tlint -Wwarning $(MAN)
 
@@ -75,5 +78,5 @@ clean:
 
 FORCE:
 
-.PHONY: all deps tests check lint install uninstall clean FORCE
+.PHONY: all bench deps tests check lint install uninstall clean FORCE
 .SECONDARY: $(LIBOBJ)
