@@ -23,7 +23,7 @@ else
 	devs=${BENCH_DEVICES:-200} days=${BENCH_DAYS:-3} period=10
 fi
 trap 'rm -rf "$work"' EXIT
-make -s all build/tests/floor_inflate build/tests/floor_csv
+[ -n "${BENCH_NOBUILD:-}" ] || make -s all build/tests/floor_inflate build/tests/floor_csv
 FA=build/tests/floor_inflate
 FB=build/tests/floor_csv
 CLEAN="cw-clean --cells 10 --charge-negative"
