@@ -206,7 +206,11 @@ topoff_push(struct topoff *st, const struct topoff_conf *c, cw_time t,
 		sig = TOPOFF_SOC;
 		x = soc;
 		inb = soc >= c->full_pct;
-	} else if (cw_isnum(c->full_v) && cw_isnum(v)) {
+		st->soc_t = t;
+		st->have_soc = 1;
+	} else if (cw_isnum(c->full_v) && cw_isnum(v) &&
+	    !(st->have_soc && t - st->soc_t <= c->max_gap)) {
+		/* Voltage only for a device without a recent SoC. */
 		sig = TOPOFF_VOLTAGE;
 		x = 100.0 * v / c->full_v;
 		inb = v >= c->full_v;

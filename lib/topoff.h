@@ -4,7 +4,9 @@
  *
  * The level followed is the SoC of a row (percent), or, for a row without
  * SoC when a full voltage is set, 100 * voltage / full voltage, so that
- * depths of a voltage hold are in percent of the full voltage.  A row
+ * depths of a voltage hold are in percent of the full voltage; but a
+ * device that reported a SoC within max_gap is not judged by voltage (a
+ * gauge that reports SoC on some rows only stays a SoC gauge).  A row
  * with neither keeps, inside a hold, the level of the last row that had one,
  * for up to max_gap (gauges often report SoC less often than current);
  * outside a hold it is not judged, only counted.
@@ -140,6 +142,8 @@ struct topoff {
 	cw_time lvl_t;		/* last row with a level of its own */
 	double lvl;		/* that level */
 	int lvl_top;		/* the hold's last row was at the top */
+	int have_soc;		/* SOC_T is set */
+	cw_time soc_t;		/* last row with a SoC */
 	int rested;		/* the charger rested in this hold */
 	struct topoff_hold hold;	/* the hold in progress */
 	double peak, trough;	/* the micro-cycle being watched */

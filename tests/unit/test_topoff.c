@@ -660,6 +660,37 @@ test_sparse_soc(void **unused)
 	/* Every row without SoC is either carried or counted unjudged. */
 	assert_int_equal(st.tot.carried + st.tot.unjudged, unset);
 	assert_int_equal(rec.h[0].carried, st.tot.carried);
+
+	/*
+	 * The same with a voltage on every row, in its band, and a full
+	 * voltage set (a fleet where other packs have no SoC): the rows
+	 * without SoC still keep the SoC level instead of starting voltage
+	 * holds, so one hold and the same three micro-cycles.
+	 */
+	conf_init(&c);
+	c.full_v = 4.0;
+	for (k = 0; k < s.n; k++)
+		s.rows[k].v = 4.1;
+	run(&s, &c, &st);
+	assert_int_equal(rec.nh, 1);
+	assert_int_equal(rec.nc, 3);
+	assert_int_equal(rec.h[0].signal, TOPOFF_SOC);
+	/* A device that stops reporting SoC for longer than max-gap is
+	 * judged by voltage after that. */
+	conf_init(&c);
+	c.full_v = 4.0;
+	topoff_init(&st);
+	topoff_push(&st, &c, 0, 4.1, 0.0, 99.0);
+	for (k = 1; k <= 20; k++)
+		topoff_push(&st, &c, (cw_time)k * 60 * S, 4.1, 0.0,
+		    CW_MISSING);
+	topoff_finish(&st, &c);
+	assert_int_equal(rec.nh, 2);
+	assert_int_equal(rec.h[0].signal, TOPOFF_SOC);
+	assert_int_equal(rec.h[1].signal, TOPOFF_VOLTAGE);
+	/* The SoC hold keeps its level for 15 min, 15 rows. */
+	assert_true(rec.h[0].end == 15 * 60 * S);
+	assert_true(rec.h[1].start == 16 * 60 * S);
 }
 
 /*
@@ -745,8 +776,9 @@ test_depth_boundary(void **unused)
 }
 
 /*
- * A change of signal ends the hold: SoC rows, then rows with voltage only
- * (full voltage set), all in their bands: two holds, one of each.
+ * A change of signal ends the hold: rows with voltage only (full voltage
+ * set), then the gauge starts to report SoC, all in their bands: two
+ * holds, one of each.  (From SoC to voltage: test_sparse_soc.)
  */
 static void
 test_signal_change(void **unused)
@@ -760,13 +792,13 @@ test_signal_change(void **unused)
 	c.full_v = 4.1;
 	topoff_init(&st);
 	for (k = 0; k < 4; k++)
-		topoff_push(&st, &c, k * 60 * S, 4.15, 0.0, 99.0);
-	for (k = 4; k < 8; k++)
 		topoff_push(&st, &c, k * 60 * S, 4.15, 0.0, CW_MISSING);
+	for (k = 4; k < 8; k++)
+		topoff_push(&st, &c, k * 60 * S, 4.15, 0.0, 99.0);
 	topoff_finish(&st, &c);
 	assert_int_equal(rec.nh, 2);
-	assert_int_equal(rec.h[0].signal, TOPOFF_SOC);
-	assert_int_equal(rec.h[1].signal, TOPOFF_VOLTAGE);
+	assert_int_equal(rec.h[0].signal, TOPOFF_VOLTAGE);
+	assert_int_equal(rec.h[1].signal, TOPOFF_SOC);
 }
 
 /*
