@@ -190,8 +190,8 @@ report(const struct tool *t, const struct devtab *devs,
 	for (k = 0; k < DCIR_NREASON; k++)
 		if (k != DCIR_NO_I)
 			cand += n[k];
-	cw_warn("%zu devices; %lu steps of at least %g A, %lu accepted",
-	    nd, cand, t->conf.min_step, n[DCIR_OK]);
+	cw_warn("%zu device%s; %lu steps of at least %g A, %lu accepted",
+	    nd, nd == 1 ? "" : "s", cand, t->conf.min_step, n[DCIR_OK]);
 	cw_warn("rejected: %lu gap, %lu unsteady, %lu no-voltage, "
 	    "%lu soc-unknown, %lu soc-outside, %lu temp-unknown, "
 	    "%lu temp-outside, %lu non-positive", n[DCIR_GAP],
@@ -211,9 +211,9 @@ report(const struct tool *t, const struct devtab *devs,
 		    d->ser.last - d->ser.first < t->tconf.min_span)
 			few++;
 	}
-	cw_warn("trend: %lu devices with too few steps or too short a span, "
-	    "%lu thinned to at most %zu points", few, thinned,
-	    t->max_points);
+	cw_warn("trend: %lu device%s without an estimate (too few steps or "
+	    "too short a span), %lu thinned to at most %zu points", few,
+	    few == 1 ? "" : "s", thinned, t->max_points);
 }
 
 int
@@ -380,6 +380,12 @@ main(int argc, char *argv[])
 		csvout_flush(&t.out);
 		if (cw_verbose)
 			report(&t, devs, &st);
+		n = devtab_count(devs);
+		for (i = 0; i < n; i++)
+			dcir_series_free(&((struct dev *)devtab_at(devs,
+			    i))->ser);
+		csvout_free(&t.out);
+		devtab_free(devs);
 		return rc;
 	}
 	if (cw_verbose)

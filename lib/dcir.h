@@ -31,7 +31,7 @@
 struct dcir_conf {
 	double min_step;	/* A, |delta I| at least this */
 	cw_time max_dt;		/* samples of a step at most this far apart */
-	int steady_n;		/* samples before the step that must be steady */
+	int steady_n;		/* samples before a step that must be steady */
 	double steady_tol;	/* their current spread, a fraction of |dI| */
 	double soc_lo, soc_hi;	/* SoC window, percent */
 	double temp_lo, temp_hi;	/* temperature window, C */
