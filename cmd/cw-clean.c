@@ -279,6 +279,9 @@ main(int argc, char *argv[])
 		cw_warn("%s: write error", rejpath);
 		rc = CW_EXIT_DATA;
 	}
+	csvout_free(&out);
+	if (rf != NULL)
+		csvout_free(&rej);
 	/* A failed run leaves earlier output files as they were. */
 	if (rc == 0) {
 		if (outf_commit(of) < 0)
