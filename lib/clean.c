@@ -1,4 +1,5 @@
 /* clean.c: see clean.h. */
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -111,6 +112,25 @@ on_header(void *ctx, const struct csvin_rec *h)
 	if (colmap_resolve(&r->c->spec, h, r->required, &r->map) < 0)
 		return CW_EXIT_DATA;
 	r->hdr_nf = h->nf;
+	if (cw_verbose) {
+		char buf[512];
+		size_t n = 0;
+		int f;
+
+		for (f = 0; f < CM_NFIELD && n < sizeof(buf) - 1; f++) {
+			int i = r->map.col[f];
+
+			if (i < 0)
+				continue;
+			n += (size_t)snprintf(buf + n, sizeof(buf) - n,
+			    "%s%s='%.40s'%s%s", n ? ", " : "",
+			    colmap_field_name[f], h->f[i],
+			    f == CM_DEVICE ? "" : " ",
+			    f == CM_DEVICE ? "" :
+			    colmap_unit_name(r->map.unit[f]));
+		}
+		cw_warn_at(h->src, h->line, "columns: %s", buf);
+	}
 	if (r->c->device_from_file)
 		file_device(r, h->src);
 	return 0;

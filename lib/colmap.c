@@ -22,15 +22,29 @@ static const char *const canonical[CM_NFIELD] = {
 	"device", "time", "voltage_v", "current_a", "temp_c", "soc_pct"
 };
 
-/* Name words per field, space separated. */
-static const char *const synonyms[CM_NFIELD] = {
-	" device dev devid deviceid id serial sn pack packid battery "
-	"batteryid batt asset unit unitid node name vehicle bike terminal ",
-	" time timestamp ts datetime date epoch utc clock stamp t ",
-	" voltage volt volts vbat vpack vbatt v packv ",
-	" current curr amps amp ibat ipack ibatt i packi ",
+/*
+ * Name words per field, space separated.  A word in name_words[] counts
+ * anywhere in a header ("pack_voltage"); one in name_whole[] only as the whole
+ * name ("pack"), because it is too common a part of other names
+ * ("battery_temp" is no device).
+ */
+static const char *const name_words[CM_NFIELD] = {
+	(" device dev devid deviceid id serial sn packid batteryid asset "
+	    "unitid vehicle bike terminal "),
+	" time timestamp ts datetime epoch utc clock stamp ",
+	" voltage volt volts vbat vpack vbatt packv ",
+	" current curr amps amp ibat ipack ibatt packi ",
 	" temp temperature tmp therm thermistor tbat tpack tcell celltemp ",
-	" soc rsoc asoc stateofcharge level chargelevel battlevel socpct ",
+	" soc rsoc asoc stateofcharge chargelevel battlevel socpct ",
+};
+
+static const char *const name_whole[CM_NFIELD] = {
+	" pack battery batt unit node name ",
+	" t date ",
+	" v ",
+	" i ",
+	" ",
+	" level ",
 };
 
 struct unitword {
@@ -86,7 +100,7 @@ colmap_unit_name(int unit)
 	for (i = 0; i < NSPECUNITS; i++)
 		if (specunits[i].unit == unit)
 			return specunits[i].name;
-	return unit == CMU_EPOCH ? "epoch" : "default";
+	return unit == CMU_EPOCH ? "auto" : "default";
 }
 
 int
@@ -237,14 +251,15 @@ score(int f, const char *name, int *unit)
 		if (*w != '_')
 			joined[n++] = *w;
 	joined[n] = '\0';
-	if (has_word(synonyms[f], joined, n))
+	if (has_word(name_words[f], joined, n) ||
+	    has_word(name_whole[f], joined, n))
 		best = 60;
 	if (best == 0) {
 		char *save = NULL;
 
 		for (w = strtok_r(words, "_", &save); w != NULL;
 		    w = strtok_r(NULL, "_", &save))
-			if (has_word(synonyms[f], w, strlen(w))) {
+			if (has_word(name_words[f], w, strlen(w))) {
 				best = 50;
 				break;
 			}
@@ -259,13 +274,12 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
     unsigned required, struct colmap *m)
 {
 	char norm[256];
-	int f, best[CM_NFIELD], unit;
+	int f, unit;
 	size_t i;
 
 	for (f = 0; f < CM_NFIELD; f++) {
 		m->col[f] = -1;
 		m->unit[f] = s->unit[f];
-		best[f] = 0;
 		if (s->header[f] == NULL)
 			continue;
 		m->col[f] = csvin_find(h, s->header[f]);
@@ -276,40 +290,42 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
 					break;
 				}
 	}
-	for (i = 0; i < h->nf; i++) {
-		int taken = 0;
+	/*
+	 * Score every (field, column) pair, then hand out the best pair
+	 * left, again and again: a column serves one field, a field takes
+	 * one column, ties go to the leftmost column.
+	 */
+	for (;;) {
+		int bf = -1, bi = -1, bs = 0, bu = CMU_NONE;
 
-		for (f = 0; f < CM_NFIELD; f++)
-			if (m->col[f] == (int)i && s->header[f] != NULL)
-				taken = 1;
-		if (taken)
-			continue;
-		normalise(h->f[i], norm, sizeof(norm));
-		for (f = 0; f < CM_NFIELD; f++) {
-			int sc;
+		for (i = 0; i < h->nf; i++) {
+			int used = 0;
 
-			if (s->header[f] != NULL)
+			for (f = 0; f < CM_NFIELD; f++)
+				if (m->col[f] == (int)i)
+					used = 1;
+			if (used)
 				continue;
-			sc = score(f, norm, &unit);
-			if (sc > best[f]) {
-				best[f] = sc;
-				m->col[f] = (int)i;
-				if (s->unit[f] == CMU_NONE)
-					m->unit[f] = unit;
+			normalise(h->f[i], norm, sizeof(norm));
+			for (f = 0; f < CM_NFIELD; f++) {
+				int sc;
+
+				if (m->col[f] >= 0 || s->header[f] != NULL)
+					continue;
+				sc = score(f, norm, &unit);
+				if (sc > bs) {
+					bs = sc;
+					bf = f;
+					bi = (int)i;
+					bu = unit;
+				}
 			}
 		}
-	}
-	/* One column cannot be two fields: the better score keeps it. */
-	for (f = 0; f < CM_NFIELD; f++) {
-		int g;
-
-		for (g = f + 1; g < CM_NFIELD; g++)
-			if (m->col[f] >= 0 && m->col[f] == m->col[g]) {
-				if (best[g] > best[f])
-					m->col[f] = -1;
-				else
-					m->col[g] = -1;
-			}
+		if (bf < 0)
+			break;
+		m->col[bf] = bi;
+		if (s->unit[bf] == CMU_NONE)
+			m->unit[bf] = bu;
 	}
 	for (f = 0; f < CM_NFIELD; f++) {
 		if (m->col[f] >= 0 || !(required & (1u << f)))
