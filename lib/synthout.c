@@ -765,7 +765,8 @@ write_run(struct run *r)
 	tf_open(r, &t, "truth-run.csv", "seed,devices,days,start,tz,period_s,"
 	    "rows_per_day,formats,dup,late,stale,trunc,sentinel,gap,jump,"
 	    "header");
-	csvout_int(&t.w, (long long)c->seed);
+	snprintf(buf, sizeof(buf), "%llu", (unsigned long long)c->seed);
+	csvout_str(&t.w, buf);
 	csvout_int(&t.w, c->ndev);
 	csvout_int(&t.w, c->ndays);
 	fmt_date(buf, c->start_day);
