@@ -440,6 +440,10 @@ clean_run(const struct clean_conf *c, char **files, int n,
 		struct cdev *d = devtab_at(r.devs, i);
 
 		drain(&r, d, INT64_MAX);
+		if (c->step > 0) {
+			r.cur = d;
+			rs_flush(&d->rs, c->step, emit, &r);
+		}
 		free(d->q);
 	}
 	devtab_free(r.devs);

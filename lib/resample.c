@@ -1,20 +1,9 @@
 /* resample.c: see resample.h. */
 #include "resample.h"
 
-static cw_time grid_ceil(cw_time, cw_time);
 static void restart(struct rs_state *, const struct rs_point *, cw_time,
     rs_emit_fn, void *);
 
-/* The first multiple of STEP at or after T. */
-static cw_time
-grid_ceil(cw_time t, cw_time step)
-{
-	cw_time q = t / step * step;
-
-	return q < t ? q + step : q;
-}
-
-/* A grid point on the later sample (F 1) takes its value, known or not. */
 static double
 lerp(double a, double b, double f)
 {
@@ -23,21 +12,28 @@ lerp(double a, double b, double f)
 	return a + (b - a) * f;
 }
 
-/* A first sample, or the first after a gap: the grid starts again. */
+/*
+ * A first sample, or the first after a gap: the grid starts again at the
+ * grid point at or before the sample, which takes the sample's values (no
+ * charge of the run falls in its interval; it gives the next point's
+ * interval a start).
+ */
 static void
 restart(struct rs_state *s, const struct rs_point *p, cw_time step,
     rs_emit_fn emit, void *ctx)
 {
+	struct rs_point g = *p;
+	cw_time q = p->t / step * step;
+
+	if (q > p->t)
+		q -= step;	/* before the epoch */
 	s->have = 1;
 	s->prev = *p;
-	s->g_next = grid_ceil(p->t, step);
+	s->g_next = q + step;
 	s->acc_start = s->acc_pos = p->t;
 	s->acc = 0;
-	if (s->g_next == p->t) {
-		/* On the grid: the sample itself, its own current. */
-		emit(ctx, p);
-		s->g_next += step;
-	}
+	g.t = q;
+	emit(ctx, &g);
 }
 
 void
@@ -49,6 +45,7 @@ rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
 	double f;
 
 	if (!s->have || p->t - a->t > max_gap) {
+		rs_flush(s, step, emit, ctx);
 		restart(s, p, step, emit, ctx);
 		return;
 	}
@@ -63,8 +60,7 @@ rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
 		g.v = lerp(a->v, p->v, f);
 		g.temp = lerp(a->temp, p->temp, f);
 		g.soc = lerp(a->soc, p->soc, f);
-		g.i = cw_isnum(p->i) ? s->acc / (double)(s->g_next -
-		    s->acc_start) : CW_MISSING;
+		g.i = cw_isnum(p->i) ? s->acc / (double)step : CW_MISSING;
 		emit(ctx, &g);
 		s->acc = 0;
 		s->acc_start = s->g_next;
@@ -74,4 +70,25 @@ rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
 		s->acc += p->i * (double)(p->t - s->acc_pos);
 	s->acc_pos = p->t;
 	s->prev = *p;
+}
+
+void
+rs_flush(struct rs_state *s, cw_time step, rs_emit_fn emit, void *ctx)
+{
+	struct rs_point g;
+
+	if (!s->have)
+		return;
+	s->have = 0;
+	if (s->acc_pos <= s->g_next - step)
+		return;		/* the run ended on a grid point */
+	/*
+	 * The run ends inside a grid interval: its last point carries the
+	 * charge of that piece, with the last sample's values held (for
+	 * less than one step).
+	 */
+	g = s->prev;
+	g.t = s->g_next;
+	g.i = cw_isnum(s->prev.i) ? s->acc / (double)step : CW_MISSING;
+	emit(ctx, &g);
 }

@@ -6,7 +6,13 @@
  * sample stream (a row's current holds over the interval ending at it), so
  * the charge of the resampled stream equals the charge of the input.
  * Nothing is interpolated across an interval longer than MAX_GAP: the grid
- * starts again after it.
+ * starts again after it.  A run of samples is framed by the grid points
+ * around it: the one at or before its first sample and the one at or after
+ * its last (at a gap, or rs_flush() at the end of input), which hold the
+ * first and last sample's voltage, temperature and SoC.  A grid point's
+ * current is the charge of its interval divided by STEP (the first point:
+ * the first sample's own), so the stream's convention (charge_ah() of each
+ * row after the first) gives back the input's charge exactly.
  */
 #ifndef RESAMPLE_H
 #define RESAMPLE_H
@@ -31,5 +37,8 @@ typedef void (*rs_emit_fn)(void *ctx, const struct rs_point *p);
 
 void	rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
 	    cw_time max_gap, rs_emit_fn emit, void *ctx);
+/* End the current run (end of input). */
+void	rs_flush(struct rs_state *s, cw_time step, rs_emit_fn emit,
+	    void *ctx);
 
 #endif

@@ -3,14 +3,15 @@
 # through /usr/bin/python3) on small irregular logs.
 #   Voltage, temperature, SoC at each grid point: numpy.interp of the
 #   rows, linear between the rows around the point.
-#   Current at grid point g: the mean over (g - step, g] of the stream's
+#   Current at grid point g: the charge over (g - step, g] of the stream's
 #   piecewise-constant current (each row's current holds over the
 #   interval ending at it, lib/charge.h), i.e. the difference of the
 #   cumulative charge Q, which is linear between rows, so numpy.interp
-#   of Q at g and at max(g - step, t0), divided by that span.
-#   Grid: every multiple of the step since the epoch from the first row
-#   to the last one of each run; runs split at intervals over --max-gap
-#   (15 min here), which numpy.interp would bridge and cw-clean must not.
+#   of Q at min(g, t_last) and max(g - step, t0), divided by the step.
+#   Grid: every multiple of the step since the epoch from the one at or
+#   before the first row to the one at or after the last row of each run;
+#   runs split at intervals over --max-gap (15 min here), which
+#   numpy.interp would bridge and cw-clean must not.
 # Three invented devices: one of 40 rows 3..40 s apart, one with a
 # 20-minute gap, one whose SoC is missing on some rows (an empty
 # neighbour makes the grid value empty), for steps 60, 45 and 7 s.
@@ -100,16 +101,27 @@ for step in (60, 45, 7):
             # The grid is of multiples of the step since the epoch; T0 is
             # off it by T0 mod step (T0 is whole seconds).
             off = int(T0) % step
-            g = np.arange(math.ceil((t[0] + off) / step) * step - off,
-                          t[-1] + 1e-9, step)
+            # A run is framed by the grid points at or before its first
+            # row and at or after its last, which hold the end rows'
+            # values (numpy.interp clamps to them outside the run).
+            g0 = math.floor((t[0] + off) / step) * step - off
+            g1 = math.ceil((t[-1] + off) / step) * step - off
+            g = np.arange(g0, g1 + 1e-9, step)
             for gk in g:
                 lo = max(gk - step, t[0])
-                cur_i = i[0] if gk == t[0] else \
-                    (np.interp(gk, t, q) - np.interp(lo, t, q)) / (gk - lo)
+                hi = min(gk, t[-1])
+                # Current: the charge of (gk - step, gk] over the step; the
+                # first point takes the first row's own.
+                cur_i = i[0] if gk == g0 else \
+                    (np.interp(hi, t, q) - np.interp(lo, t, q)) / step
                 # SoC: numpy.interp over the two rows around gk; empty when
-                # either is, unless gk is on a row.
+                # either is, unless gk is on a row or outside the run.
                 k = int(np.searchsorted(t, gk))
-                if t[k] == gk:
+                if gk <= t[0]:
+                    s = soc[0]
+                elif gk >= t[-1]:
+                    s = soc[-1]
+                elif t[k] == gk:
                     s = soc[k]
                 else:
                     s = np.interp(gk, t[k - 1:k + 1], soc[k - 1:k + 1])

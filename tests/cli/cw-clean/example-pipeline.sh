@@ -4,7 +4,9 @@
 # log repeats a row (a duplicate) and holds a row out of range.
 # By hand: EB-0042 charges 2 A from 00:00:20 to 00:02:20 in rows 20 s
 # apart, so each full minute's mean current is 2 A and V rises 0.01 V a
-# row (0.03 V a minute).
+# row (0.03 V a minute); the run is framed by 00:00:00 (the first row's
+# values) and 00:03:00 (the last row's values, 20 s of 2 A over the
+# minute: 0.667 A), and 00:01:00 carries 40 s of 2 A (1.333 A).
 top=$(pwd)
 cd "$TMPDIR_CASE" || exit 1
 mkdir incoming
