@@ -125,6 +125,21 @@ p1=$(reps=1 t "parallel -j1 '$CLEAN --step 60 {} > $work/par/{/.}.csv' ::: $file
 p2=$(reps=1 t "parallel -j2 '$CLEAN --step 60 {} > $work/par/{/.}.csv' ::: $files")
 p1s=${p1% *} p2s=${p2% *}
 
+# Instruction counts (valgrind --tool=callgrind): repeatable whatever else
+# the machine is doing, over the first day file.
+ir() {
+	valgrind --tool=callgrind --callgrind-out-file=/dev/null "$@" \
+	    2>&1 >/dev/null | sed -n 's/.*refs: *//p' | tr -d ,
+}
+first=${files%% *}
+if command -v valgrind >/dev/null 2>&1; then
+	irb=$(ir $FB $first)
+	irc=$(ir $CLEAN --step 60 $first)
+	irs="floor B $irb, cw-clean --step 60 $irc instructions: $(ratio "$irc" "$irb") x B"
+else
+	irs="valgrind not installed"
+fi
+
 # Projection: a 10,000-pack day at 10 s is 86.4 million rows.
 set -- $(echo "$sc" | awk '$1 == "x4"' ) ; x4rows=${2:-0}
 proj=$(echo "$sc" | awk -v c="$c60" -v rows="$rows" '
@@ -157,6 +172,9 @@ echo
 echo "| run | raw lines | clean s | clean KiB | wear s | wear KiB |"
 echo "| --- | --- | --- | --- | --- | --- |"
 echo "$sc" | awk '{ printf "| %s | %s | %s | %s | %s | %s |\n", $1, $2, $3, $4, $5, $6 }'
+echo
+echo "Instruction counts over $(basename "$first") (callgrind, repeatable):"
+echo "$irs."
 echo
 echo "Two cores, GNU parallel over the day files: -j1 $p1s s, -j2 $p2s s,"
 echo "speed-up $(ratio "$p1s" "$p2s") (target >= 1.7)."
