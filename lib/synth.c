@@ -542,7 +542,7 @@ synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
 	for (i = 0; i < f->ndev; i++) {
 		struct synth_dev *d = &f->devs[i];
 		struct synth_rng *r = &d->rng;
-		double cap, r0, a = c->aging;
+		double cap, r0, r1, tau, a = c->aging;
 		char *q;
 
 		/* Smooth weighted round robin: the mix, evenly spread. */
@@ -552,7 +552,10 @@ synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
 			if (c->mix[p] > 0 && (best < 0 || cur[p] > cur[best]))
 				best = p;
 		}
-		cur[best] -= total;
+		if (best < 0)	/* no positive weight: all of the first */
+			best = SYNTH_DEEP;
+		else
+			cur[best] -= total;
 		d->idx = i;
 		d->profile = best;
 		memcpy(d->name, "EB-", 3);
@@ -563,11 +566,12 @@ synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
 		d->namelen = 3 + (size_t)w;
 		synth_rng_seed(r, c->seed, 2 * (uint64_t)i + 1);
 		synth_rng_seed(&d->frng, c->seed, 2 * (uint64_t)i + 2);
+		/* One draw per statement: argument order is unspecified. */
 		cap = SYNTH_CAP_AH * synth_rng_range(r, 0.96, 1.03);
 		r0 = synth_rng_range(r, 0.090, 0.125);
-		synth_pack_init(&d->pack, cap, r0,
-		    r0 * synth_rng_range(r, 0.30, 0.45),
-		    synth_rng_range(r, 25, 45), 15.0);
+		r1 = r0 * synth_rng_range(r, 0.30, 0.45);
+		tau = synth_rng_range(r, 25, 45);
+		synth_pack_init(&d->pack, cap, r0, r1, tau, 15.0);
 		d->pack.soc = synth_rng_range(r, 0.985, 0.995);
 		d->pack.heat_cap *= synth_rng_range(r, 0.9, 1.1);
 		d->pack.k_cal = a * 0.03 / (30 * 86400.0) *

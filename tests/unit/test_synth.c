@@ -75,6 +75,7 @@ test_xoshiro_vector(void **state)
 	int i;
 
 	(void)state;
+	memset(&r, 0, sizeof(r));
 	r.s[0] = 1;
 	r.s[1] = 2;
 	r.s[2] = 3;
