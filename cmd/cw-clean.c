@@ -66,8 +66,10 @@ usage(FILE *fp, int status)
 "  -c, --columns spec      field=header[:unit],... for device, time (iso|s|ms|us),\n"
 "                          voltage (V|mV), current (A|mA), temp (C|F|K|dK|dC),\n"
 "                          soc (pct|frac); other fields are found by name\n"
-"  -d, --delimiter c       field delimiter: ',' (default), ';', '\\t' or 'tab'\n"
-"      --decimal-comma     numbers use ',' as the decimal mark\n"
+"  -d, --delimiter c       field delimiter: ',', ';', '\\t' or 'tab' (default: the\n"
+"                          one of , ; tab | the header holds most)\n"
+"      --decimal-comma     numbers use ',' as the decimal mark (default: '.',\n"
+"                          or either mark when the delimiter is not ',')\n"
 "      --device name       device name for logs without a device column;\n"
 "                          @file takes each file's base name\n"
 "      --charge-negative   the log counts charging current as negative\n"
@@ -251,7 +253,7 @@ main(int argc, char *argv[])
 	c.full_v = full_v > 0 ? full_v : 4.15 * cells;
 	if (c.device != NULL && c.spec.header[CM_DEVICE] != NULL)
 		cw_usage_error("--device and -c device= exclude each other");
-	if (c.dec == ',' && c.delim == ',')
+	if (c.dec == ',' && (c.delim == ',' || c.delim == '\0'))
 		cw_usage_error("--decimal-comma needs another delimiter (-d ';')");
 
 	of = outf_open(outpath);

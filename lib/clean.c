@@ -32,6 +32,8 @@ struct run {
 	struct clean_stats *st;
 	struct csvout *out, *rej;
 	struct devtab *devs;
+	struct csvin *in;
+	char dec;		/* decimal mark of this file */
 	struct cdev *last;	/* device of the previous row */
 	struct colmap map;
 	size_t hdr_nf;
@@ -55,8 +57,8 @@ void
 clean_conf_default(struct clean_conf *c)
 {
 	memset(c, 0, sizeof(*c));
-	c->delim = ',';
-	c->dec = '.';
+	c->delim = '\0';
+	c->dec = '\0';
 	c->lo[CM_VOLTAGE] = 1.5;
 	c->hi[CM_VOLTAGE] = 5.0;
 	c->lo[CM_CURRENT] = -1000;
@@ -112,6 +114,9 @@ on_header(void *ctx, const struct csvin_rec *h)
 	if (colmap_resolve(&r->c->spec, h, r->required, &r->map) < 0)
 		return CW_EXIT_DATA;
 	r->hdr_nf = h->nf;
+	r->dec = r->c->dec;
+	if (r->dec == '\0' && csvin_delim(r->in) == ',')
+		r->dec = '.';
 	if (cw_verbose) {
 		char buf[512];
 		size_t n = 0;
@@ -129,6 +134,12 @@ on_header(void *ctx, const struct csvin_rec *h)
 			    f == CM_DEVICE ? "" :
 			    colmap_unit_name(r->map.unit[f]));
 		}
+		if (csvin_delim(r->in) != ',')
+			cw_warn_at(h->src, h->line, "delimiter '%s', decimal "
+			    "mark %s", csvin_delim(r->in) == '\t' ? "\\t" :
+			    (char[2]){ csvin_delim(r->in), '\0' },
+			    r->dec == ',' ? "','" : r->dec == '.' ? "'.'" :
+			    "'.' or ','");
 		cw_warn_at(h->src, h->line, "columns: %s", buf);
 	}
 	if (r->c->device_from_file)
@@ -144,7 +155,7 @@ field_num(struct run *r, const struct csvin_rec *rec, int f, double *x)
 
 	if (i < 0 || rec->len[i] == 0)
 		return -1;
-	rc = num_parse(rec->f[i], rec->len[i], r->c->dec, x);
+	rc = num_parse(rec->f[i], rec->len[i], r->dec, x);
 	if (rc == NUM_EMPTY)
 		return -1;
 	if (rc != NUM_OK)
@@ -195,7 +206,7 @@ field_time(struct run *r, const struct csvin_rec *rec, cw_time *t)
 		break;
 	default:
 		/* ISO by its date dashes, else epoch scaled by its size. */
-		if (n >= 10 && s[4] == '-') {
+		if (n >= 10 && (s[4] == '-' || s[4] == '/')) {
 			kind = TS_ISO;
 			break;
 		}
@@ -432,6 +443,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	if (rej != NULL)
 		csvout_header(rej, "source,line,reason,record");
 	in = csvin_new(c->delim, &ops, &r);
+	r.in = in;
 	rc = csvin_files(in, files, n);
 	st->header_repeats = csvin_stats(in)->header_repeats;
 	csvin_free(in);

@@ -26,7 +26,9 @@ struct clean_conf {
 	const char *device;	/* --device NAME */
 	int device_from_file;	/* --device @file */
 	int charge_negative;
-	char delim, dec;
+	char delim;		/* '\0': from each file's header */
+	char dec;		/* '\0': '.', or either mark when the
+				 * delimiter is not ',' */
 	long tz_s;		/* offset of zone-less local times */
 	double lo[CM_NFIELD], hi[CM_NFIELD];	/* bounds, canonical units */
 	cw_time reorder, step, max_gap;	/* step 0: no resampling */

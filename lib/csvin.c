@@ -23,6 +23,7 @@
 
 struct csvin {
 	char delim;
+	int auto_delim;		/* pick the delimiter from each header */
 	const struct csvin_ops *ops;
 	void *ctx;
 	struct csv_parser p;
@@ -49,6 +50,7 @@ static void field_cb(void *, size_t, void *);
 static void row_cb(int, void *);
 static int record(struct csvin *, const char *, size_t, unsigned long, int);
 static void split_plain(struct csvin *, const char *, size_t);
+static char guess_delim(const char *, size_t);
 static int term_fn(unsigned char);
 static int scan_quoted(const struct csvin *, const char *, const char *, int,
     const char **, unsigned long *);
@@ -67,7 +69,8 @@ csvin_new(char delim, const struct csvin_ops *ops, void *ctx)
 {
 	struct csvin *r = cw_calloc(1, sizeof(*r));
 
-	r->delim = delim;
+	r->auto_delim = delim == '\0';
+	r->delim = delim != '\0' ? delim : ',';
 	r->ops = ops;
 	r->ctx = ctx;
 	if (csv_init(&r->p, CSV_STRICT) != 0)
@@ -98,6 +101,12 @@ csvin_free(struct csvin *r)
 	free(r->f);
 	free(r->hdr);
 	free(r);
+}
+
+char
+csvin_delim(const struct csvin *r)
+{
+	return r->delim;
 }
 
 const struct csvin_stats *
@@ -149,6 +158,31 @@ row_cb(int c, void *data)
 {
 	(void)c;
 	(void)data;
+}
+
+/*
+ * The delimiter of a header: whichever of ',', ';', tab and '|' it holds
+ * most often outside quotes (',' when it holds none).
+ */
+static char
+guess_delim(const char *s, size_t n)
+{
+	static const char cand[] = ",;\t|";
+	size_t count[4] = { 0 }, i, k;
+	int inq = 0, best = 0;
+
+	for (i = 0; i < n; i++) {
+		if (s[i] == '"')
+			inq = !inq;
+		else if (!inq)
+			for (k = 0; k < 4; k++)
+				if (s[i] == cand[k])
+					count[k]++;
+	}
+	for (k = 1; k < 4; k++)
+		if (count[k] > count[best])
+			best = (int)k;
+	return cand[best];
 }
 
 /*
@@ -228,6 +262,10 @@ record(struct csvin *r, const char *rec, size_t n, unsigned long line,
 	if (!r->need_header && n == r->hdrlen && memcmp(rec, r->hdr, n) == 0) {
 		r->st.header_repeats++;
 		return 0;
+	}
+	if (r->need_header && r->auto_delim) {
+		r->delim = guess_delim(rec, n);
+		csv_set_delim(&r->p, (unsigned char)r->delim);
 	}
 	r->nf = 0;
 	r->alen = 0;

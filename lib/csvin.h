@@ -48,7 +48,8 @@ struct csvin_stats {
 
 struct csvin;
 
-/* DELIM: ',', ';', '\t' or another byte. */
+/* DELIM: ',', ';', '\t' or another byte; '\0': taken from each file's
+ * header, whichever of ',', ';', tab and '|' it holds most. */
 struct csvin *csvin_new(char delim, const struct csvin_ops *ops, void *ctx);
 /*
  * Read one file (or "-") through.  Returns 0, CW_EXIT_DATA on an input
@@ -58,6 +59,8 @@ int	csvin_file(struct csvin *r, const char *path);
 /* Read every file of FILES[0..N), or standard input when N is 0. */
 int	csvin_files(struct csvin *r, char **files, int n);
 const struct csvin_stats *csvin_stats(const struct csvin *r);
+/* The delimiter in use (of the current file, when chosen by header). */
+char	csvin_delim(const struct csvin *r);
 void	csvin_free(struct csvin *r);
 
 /* Index of the header field named NAME (exact), or -1. */

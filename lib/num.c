@@ -48,7 +48,8 @@ num_parse(const char *s, size_t n, char dec, double *out)
 		}
 		sig++;
 	}
-	if (p < e && *p == dec) {
+	if (p < e && (*p == dec || (dec == '\0' && (*p == '.' ||
+	    *p == ',')))) {
 		p++;
 		for (; p < e && (unsigned)(*p - '0') < 10; p++) {
 			any = 1;
@@ -115,7 +116,7 @@ slow_path(const char *s, size_t n, char dec, double *out)
 	} else
 		q = buf;
 	for (i = 0; i < n; i++)
-		q[i] = s[i] == dec ? '.' : s[i];
+		q[i] = s[i] == dec || (dec == '\0' && s[i] == ',') ? '.' : s[i];
 	q[n] = '\0';
 	errno = 0;
 	d = strtod(q, &end);

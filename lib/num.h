@@ -15,7 +15,7 @@ enum num_status {
 	NUM_RANGE	/* overflows a double */
 };
 
-/* Parse S[0..N) with DEC as the decimal mark ('.' or ','). */
+/* Parse S[0..N) with DEC as the decimal mark ('.' or ','; '\0': either). */
 int	num_parse(const char *s, size_t n, char dec, double *out);
 /* Parse a NUL-terminated string with '.' as decimal mark. */
 int	num_parse_str(const char *s, double *out);

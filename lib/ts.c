@@ -104,8 +104,9 @@ parse_iso(const char *s, size_t n, long offset_s, cw_time *out)
 	long y, mo, d, h, mi, sec = 0, us = 0, off = offset_s;
 	int64_t t;
 
-	if (n < 16 || digits(p, 4, &y) < 0 || p[4] != '-' ||
-	    digits(p + 5, 2, &mo) < 0 || p[7] != '-' ||
+	/* YYYY-MM-DD, or YYYY/MM/DD as some loggers write it. */
+	if (n < 16 || digits(p, 4, &y) < 0 || (p[4] != '-' && p[4] != '/') ||
+	    digits(p + 5, 2, &mo) < 0 || p[7] != p[4] ||
 	    digits(p + 8, 2, &d) < 0 || (p[10] != 'T' && p[10] != 't' &&
 	    p[10] != ' ') || digits(p + 11, 2, &h) < 0 || p[13] != ':' ||
 	    digits(p + 14, 2, &mi) < 0)
@@ -158,7 +159,8 @@ ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out)
 		n--;
 	if (n == 0)
 		return -1;
-	if (kind == TS_ISO || (kind == TS_AUTO && n >= 10 && s[4] == '-'))
+	if (kind == TS_ISO || (kind == TS_AUTO && n >= 10 && (s[4] == '-' ||
+	    s[4] == '/')))
 		return parse_iso(s, n, offset_s, out);
 	switch (kind) {
 	case TS_EPOCH_MS:

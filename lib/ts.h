@@ -20,7 +20,8 @@ enum ts_kind {
 #define TS_FMTMAX 40
 
 /*
- * Parse S[0..N).  ISO 8601 extended form: YYYY-MM-DD, then 'T' or ' ',
+ * Parse S[0..N).  ISO 8601 extended form: YYYY-MM-DD (or YYYY/MM/DD, as
+ * some loggers write), then 'T' or ' ',
  * hh:mm[:ss[.frac]], then Z, +hh:mm, +hhmm, +hh or nothing.  Without a zone
  * the time is local at OFFSET_S seconds east of UTC.  Impossible dates
  * (month 13, Feb 30, hour 25) are rejected; a leap second (:60) is read as

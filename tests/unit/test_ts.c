@@ -222,7 +222,8 @@ test_iso_invalid(void **st)
 		"2026-03-01T25:00:00Z", "2026-03-01T00:60:00Z",
 		"2026-03-01T00:00:61Z", "2026-3-01T00:00:00Z",
 		"2026-03-1T00:00:00Z", "2026-03-01T0:00:00Z",
-		"2026-03-01T00:00:0Z", "2026/03/01T00:00:00Z",
+		"2026-03-01T00:00:0Z", "2026/03-01T00:00:00Z",
+		"2026-03/01T00:00:00Z", "2026/13/01T00:00:00Z",
 		"2026-03-01X00:00:00Z", "2026-03-01", "2026-03-01T",
 		"2026-03-01T00", "20260301T000000Z", "2026-03-01T00:00:00Zjunk",
 		"abcd-ef-ghTij:kl:mnZ", "", "   ",
@@ -232,6 +233,9 @@ test_iso_invalid(void **st)
 	(void)st;
 	for (i = 0; i < sizeof(bad) / sizeof(bad[0]); i++)
 		parse_bad(bad[i], TS_ISO);
+	/* Slashes, as some loggers write dates (not ISO 8601, but read). */
+	assert_int_equal(parse_ok("2026/03/01 00:00:00Z", TS_ISO, 0),
+	    posix_epoch(2026, 3, 1, 0, 0, 0) * CW_US_PER_S);
 	/* The leap days that do exist. */
 	assert_int_equal(parse_ok("2024-02-29T00:00:00Z", TS_ISO, 0),
 	    posix_epoch(2024, 2, 29, 0, 0, 0) * CW_US_PER_S);
