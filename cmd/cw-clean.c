@@ -64,6 +64,7 @@ usage(FILE *fp, int status)
 "device,time,voltage_v,current_a,temp_c,soc_pct.\n"
 "\n"
 "  -c, --columns spec      field=header[:unit],... for device, time (iso|s|ms|us),\n"
+"                          date (a date column beside a time of day),\n"
 "                          voltage (V|mV), current (A|mA), temp (C|F|K|dK|dC),\n"
 "                          soc (pct|frac); other fields are found by name\n"
 "  -d, --delimiter c       field delimiter: ',', ';', '\\t' or 'tab' (default: the\n"
@@ -119,10 +120,10 @@ bounds_arg(struct clean_conf *c, const char *s, int *set)
 	if (eq == NULL || colon == NULL)
 		cw_usage_error("--bounds: expected field=lo:hi, got '%s'", s);
 	*eq = *colon = '\0';
-	for (f = CM_VOLTAGE; f < CM_NFIELD; f++)
+	for (f = CM_VOLTAGE; f <= CM_SOC; f++)
 		if (strcmp(buf, colmap_field_name[f]) == 0)
 			break;
-	if (f == CM_NFIELD)
+	if (f > CM_SOC)
 		cw_usage_error("--bounds: unknown field '%s' (voltage, current, "
 		    "temp, soc)", buf);
 	if (f == CM_TEMP) {

@@ -130,8 +130,8 @@ on_header(void *ctx, const struct csvin_rec *h)
 			n += (size_t)snprintf(buf + n, sizeof(buf) - n,
 			    "%s%s='%.40s'%s%s", n ? ", " : "",
 			    colmap_field_name[f], h->f[i],
-			    f == CM_DEVICE ? "" : " ",
-			    f == CM_DEVICE ? "" :
+			    f == CM_DEVICE || f == CM_DATE ? "" : " ",
+			    f == CM_DEVICE || f == CM_DATE ? "" :
 			    colmap_unit_name(r->map.unit[f]));
 		}
 		if (csvin_delim(r->in) != ',')
@@ -152,10 +152,14 @@ static int
 field_num(struct run *r, const struct csvin_rec *rec, int f, double *x)
 {
 	int i = r->map.col[f], rc;
+	size_t n;
 
 	if (i < 0 || rec->len[i] == 0)
 		return -1;
-	rc = num_parse(rec->f[i], rec->len[i], r->dec, x);
+	n = rec->len[i];
+	if (f == CM_SOC && rec->f[i][n - 1] == '%')
+		n--;	/* "83.5%" */
+	rc = num_parse(rec->f[i], n, r->dec, x);
 	if (rc == NUM_EMPTY)
 		return -1;
 	if (rc != NUM_OK)
@@ -191,6 +195,19 @@ field_time(struct run *r, const struct csvin_rec *rec, cw_time *t)
 	const char *s = rec->f[i];
 	size_t n = rec->len[i], k, digits;
 
+	if (r->map.col[CM_DATE] >= 0 && (n < 10 || (s[4] != '-' &&
+	    s[4] != '/'))) {
+		/* A date column and a time of day: join them. */
+		char buf[96];
+		int d = r->map.col[CM_DATE];
+
+		if (rec->len[d] + n + 2 > sizeof(buf))
+			return -1;
+		memcpy(buf, rec->f[d], rec->len[d]);
+		buf[rec->len[d]] = 'T';
+		memcpy(buf + rec->len[d] + 1, s, n);
+		return ts_parse(buf, rec->len[d] + 1 + n, TS_ISO, r->c->tz_s, t);
+	}
 	switch (r->map.unit[CM_TIME]) {
 	case CMU_ISO:
 		kind = TS_ISO;

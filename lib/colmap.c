@@ -15,11 +15,11 @@
 #include "cw.h"
 
 const char *const colmap_field_name[CM_NFIELD] = {
-	"device", "time", "voltage", "current", "temp", "soc"
+	"device", "time", "voltage", "current", "temp", "soc", "date"
 };
 
 static const char *const canonical[CM_NFIELD] = {
-	"device", "time", "voltage_v", "current_a", "temp_c", "soc_pct"
+	"device", "time", "voltage_v", "current_a", "temp_c", "soc_pct", "date"
 };
 
 /*
@@ -36,15 +36,17 @@ static const char *const name_words[CM_NFIELD] = {
 	" current curr amps amp ibat ipack ibatt packi ",
 	" temp temperature tmp therm thermistor tbat tpack tcell celltemp ",
 	" soc rsoc asoc stateofcharge chargelevel battlevel socpct ",
+	" date day ",
 };
 
 static const char *const name_whole[CM_NFIELD] = {
 	" pack battery batt unit node name ",
-	" t date ",
+	" t ",
 	" v ",
 	" i ",
 	" ",
 	" level ",
+	" ",
 };
 
 struct unitword {
@@ -132,8 +134,8 @@ colmap_parse_spec(const char *spec, struct colmap_spec *s,
 			if (strcmp(p, colmap_field_name[f]) == 0)
 				break;
 		if (f == CM_NFIELD) {
-			*err = "unknown field (device, time, voltage, current, "
-			    "temp, soc)";
+			*err = "unknown field (device, time, date, voltage, "
+			    "current, temp, soc)";
 			return -1;
 		}
 		/* The unit is after the last colon, if that names a unit. */
@@ -224,7 +226,7 @@ score(int f, const char *name, int *unit)
 	int best = 0, uf = -1;
 
 	static const int canonical_unit[CM_NFIELD] = {
-		CMU_NONE, CMU_NONE, CMU_V, CMU_A, CMU_C, CMU_PCT
+		CMU_NONE, CMU_NONE, CMU_V, CMU_A, CMU_C, CMU_PCT, CMU_NONE
 	};
 
 	*unit = CMU_NONE;
@@ -327,6 +329,12 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
 		if (s->unit[bf] == CMU_NONE)
 			m->unit[bf] = bu;
 	}
+	/* A lone date column holds the whole time stamp. */
+	if (m->col[CM_TIME] < 0 && m->col[CM_DATE] >= 0 &&
+	    s->header[CM_DATE] == NULL) {
+		m->col[CM_TIME] = m->col[CM_DATE];
+		m->col[CM_DATE] = -1;
+	}
 	for (f = 0; f < CM_NFIELD; f++) {
 		if (m->col[f] >= 0 || !(required & (1u << f)))
 			continue;
@@ -346,8 +354,10 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
 			else
 				cw_warn_at(h->src, h->line, "cannot find the %s "
 				    "column; headers seen: %s (name it with -c "
-				    "%s=HEADER[:UNIT])", colmap_field_name[f],
-				    seen, colmap_field_name[f]);
+				    "%s=HEADER[:UNIT]%s)", colmap_field_name[f],
+				    seen, colmap_field_name[f], f == CM_DEVICE ?
+				    ", or give --device NAME or --device @file" :
+				    "");
 		}
 		return -1;
 	}

@@ -10,7 +10,9 @@
 #include "csvin.h"
 
 enum colmap_field {
-	CM_DEVICE, CM_TIME, CM_VOLTAGE, CM_CURRENT, CM_TEMP, CM_SOC, CM_NFIELD
+	CM_DEVICE, CM_TIME, CM_VOLTAGE, CM_CURRENT, CM_TEMP, CM_SOC,
+	CM_DATE,	/* a date column beside a time-of-day column */
+	CM_NFIELD
 };
 
 enum colmap_unit {

@@ -74,7 +74,12 @@ ts_parse_offset(const char *s, long *off)
 	long h, m = 0;
 	int sign;
 
-	if (n == 1 && (s[0] == 'Z' || s[0] == 'z')) {
+	if (n == 4 && s[0] == ' ') {	/* "... UTC" */
+		s++;
+		n--;
+	}
+	if ((n == 1 && (s[0] == 'Z' || s[0] == 'z')) || (n == 3 &&
+	    (strcmp(s, "UTC") == 0 || strcmp(s, "GMT") == 0))) {
 		*off = 0;
 		return 0;
 	}

@@ -22,7 +22,7 @@ enum ts_kind {
 /*
  * Parse S[0..N).  ISO 8601 extended form: YYYY-MM-DD (or YYYY/MM/DD, as
  * some loggers write), then 'T' or ' ',
- * hh:mm[:ss[.frac]], then Z, +hh:mm, +hhmm, +hh or nothing.  Without a zone
+ * hh:mm[:ss[.frac]], then Z, +hh:mm, +hhmm, +hh, UTC or nothing.  Without a zone
  * the time is local at OFFSET_S seconds east of UTC.  Impossible dates
  * (month 13, Feb 30, hour 25) are rejected; a leap second (:60) is read as
  * the first instant of the next minute.  Returns 0 or -1.
@@ -34,7 +34,8 @@ size_t	ts_format(cw_time t, char *buf);
 /* Days since 1970-01-01 of a proleptic Gregorian date, and back. */
 long	ts_days_from_civil(long y, unsigned m, unsigned d);
 void	ts_civil_from_days(long z, long *y, unsigned *m, unsigned *d);
-/* Parse a zone offset "+HH:MM", "-HHMM", "Z" into seconds; 0 or -1. */
+/* Parse a zone offset "+HH:MM", "-HHMM", "+HH", "Z", "UTC" or "GMT" (" UTC"
+ * too) into seconds; 0 or -1. */
 int	ts_parse_offset(const char *s, long *offset_s);
 
 #endif

@@ -155,7 +155,12 @@ test_iso_offsets(void **st)
 	parse_bad("2026-03-01T00:01:00+0a:00", TS_ISO);
 	parse_bad("2026-03-01T00:01:00ZZ", TS_ISO);
 	parse_bad("2026-03-01T00:01:00 Z", TS_ISO);
-	parse_bad("2026-03-01T00:01:00UTC", TS_ISO);
+	/* "UTC" and "GMT" for Z, as loggers write them (not ISO 8601). */
+	assert_int_equal(parse_ok("2026-03-01T00:01:00UTC", TS_ISO, 3600),
+	    posix_epoch(2026, 3, 1, 0, 1, 0) * CW_US_PER_S);
+	assert_int_equal(parse_ok("2026-03-01 00:01:00 GMT", TS_ISO, 3600),
+	    posix_epoch(2026, 3, 1, 0, 1, 0) * CW_US_PER_S);
+	parse_bad("2026-03-01T00:01:00 CET", TS_ISO);
 }
 
 static void
