@@ -3,10 +3,12 @@
  * each, from the sample stream.  The engine is lib/wear.c; the models are
  * in lib/model.c.
  */
+#include <errno.h>
 #include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
 
 #include "csvout.h"
 #include "cw.h"
@@ -15,7 +17,9 @@
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
+#include "ts.h"
 #include "wear.h"
+#include "wearstate.h"
 
 #define HEADER "device,first,last,days,charge_ah,efc,max_depth_pct," \
 	"hours_soc_ge_95,hours_temp_ge_45,cold_charge_ah,hot_charge_ah," \
@@ -27,18 +31,25 @@
 struct dev {
 	struct devent e;
 	int started;
+	int loaded;		/* from a --state file, up to UPTO */
+	cw_time upto;
 	struct wear_dev w;
 };
 
 struct run {
 	struct wear_conf conf;
 	double capacity;	/* Ah, 0 when not given */
+	struct devtab *devs;
+	unsigned long joins;	/* states joined after or before another */
+	unsigned long stale;	/* rows already in a loaded state */
+	unsigned long stale_devs;
 };
 
 enum {
 	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_FULL,
-	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP,
-	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_VERSION
+	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
+	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
+	OPT_STATE_OUT, OPT_VERSION
 };
 
 static const struct option longopts[] = {
@@ -51,11 +62,14 @@ static const struct option longopts[] = {
 	{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
 	{ "limits", required_argument, NULL, OPT_LIMITS },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+	{ "merge", no_argument, NULL, OPT_MERGE },
 	{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
 	{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
 	{ "model", required_argument, NULL, OPT_MODEL },
 	{ "output", required_argument, NULL, 'o' },
 	{ "residue", required_argument, NULL, OPT_RESIDUE },
+	{ "state", required_argument, NULL, OPT_STATE },
+	{ "state-out", no_argument, NULL, OPT_STATE_OUT },
 	{ "verbose", no_argument, NULL, 'v' },
 	{ "version", no_argument, NULL, OPT_VERSION },
 	{ NULL, 0, NULL, 0 }
@@ -63,8 +77,13 @@ static const struct option longopts[] = {
 
 static void usage(FILE *);
 static int on_row(void *, void *, const struct cw_sample *);
+static int on_state(void *, const char *, unsigned long, const char *,
+    size_t, struct wear_dev *);
+static int exists(const char *);
 static void write_row(struct csvout *, const struct run *,
     const struct dev *, const struct wear_result *);
+static void write_states(struct outf *, const char *, struct run *,
+    struct dev **, size_t);
 static void report(const struct run *, struct dev **, size_t);
 
 static void
@@ -77,9 +96,11 @@ usage(FILE *fp)
 	    "[--hysteresis PCT]\n"
 	    "               [--limits T1,T2,T3,T4] [--max-gap DUR] "
 	    "[--min-current A]\n"
-	    "               [--min-depth PCT] [--model NAME] [-o FILE]\n"
-	    "               [--residue half|full|repeat] [--version] "
-	    "[file ...]\n");
+	    "               [--merge] [--min-depth PCT] [--model NAME] "
+	    "[-o FILE]\n"
+	    "               [--residue half|full|repeat] [--state FILE] "
+	    "[--state-out]\n"
+	    "               [--version] [file ...]\n");
 }
 
 static int
@@ -92,7 +113,57 @@ on_row(void *ctx, void *state, const struct cw_sample *s)
 		wear_init(&d->w, &r->conf);
 		d->started = 1;
 	}
+	if (d->loaded) {
+		/* Rows up to the end of the state are in it already. */
+		if (s->t <= d->upto) {
+			r->stale++;
+			if (d->loaded == 1) {
+				r->stale_devs++;
+				d->loaded = 2;
+			}
+			return 0;
+		}
+		d->loaded = 0;
+	}
 	wear_push(&d->w, &r->conf, s->t, s->v, s->i, s->temp, s->soc);
+	return 0;
+}
+
+/*
+ * A device state read back: the device's first, or one to join after
+ * (or before) the stretch of time already held, never one overlapping it.
+ */
+static int
+on_state(void *ctx, const char *src, unsigned long line, const char *name,
+    size_t len, struct wear_dev *w)
+{
+	struct run *r = ctx;
+	struct dev *d;
+	char t[4][TS_FMTMAX];
+
+	d = devtab_get(r->devs, name, len, NULL);
+	if (!d->started) {
+		d->w = *w;
+		d->started = 1;
+	} else if (w->acc.first >= d->w.acc.last) {
+		wear_join(&d->w, w, &r->conf);
+		r->joins++;
+	} else if (w->acc.last <= d->w.acc.first) {
+		wear_join(w, &d->w, &r->conf);
+		d->w = *w;
+		r->joins++;
+	} else {
+		ts_format(w->acc.first, t[0]);
+		ts_format(w->acc.last, t[1]);
+		ts_format(d->w.acc.first, t[2]);
+		ts_format(d->w.acc.last, t[3]);
+		cw_warn_at(src, line, "the state of %s from %s to %s overlaps "
+		    "the one from %s to %s read before it (the same rows "
+		    "twice?)", d->e.name, t[0], t[1], t[2], t[3]);
+		wear_free(w);
+		return CW_EXIT_DATA;
+	}
+	d->e.last_t = d->w.acc.last;
 	return 0;
 }
 
@@ -127,6 +198,29 @@ write_row(struct csvout *w, const struct run *r, const struct dev *d,
 	csvout_endrow(w);
 }
 
+/*
+ * The states of N devices, sorted, with the header and end rows, to O;
+ * PATH names it in messages.  Exits 1 on a write error.
+ */
+static void
+write_states(struct outf *o, const char *path, struct run *r,
+    struct dev **devs, size_t n)
+{
+	FILE *fp = outf_fp(o);
+	size_t k;
+	int bad;
+
+	bad = wstate_write_header(fp);
+	for (k = 0; k < n && bad == 0; k++)
+		bad = wstate_write_dev(fp, devs[k]->e.name, devs[k]->e.namelen,
+		    &devs[k]->w, &r->conf);
+	if (bad == 0)
+		bad = wstate_write_end(fp, (unsigned long)n);
+	if (bad != 0)
+		cw_die(CW_EXIT_DATA, "%s: write error", path != NULL ? path :
+		    "standard output");
+}
+
 /* With -v: what was left out of which term, over all devices. */
 static void
 report(const struct run *r, struct dev **devs, size_t n)
@@ -155,6 +249,27 @@ report(const struct run *r, struct dev **devs, size_t n)
 	if (t.gaps > 0)
 		cw_warn("gaps over --max-gap: %lu, %g h in all, the state "
 		    "before each held through it", t.gaps, t.gap_s / 3600.0);
+	if (r->joins > 0)
+		cw_warn("%lu states joined to the one before or after them",
+		    r->joins);
+	if (t.topoff_cut > 0)
+		cw_warn("%lu joins across a hold near full that ran over %d "
+		    "rows without a row that settles the top-off detector: "
+		    "micro-cycles there counted on each side apart",
+		    t.topoff_cut, WEAR_PRE_MAX);
+}
+
+/* Whether PATH names something that exists (a state to load). */
+static int
+exists(const char *path)
+{
+	struct stat sb;
+
+	if (stat(path, &sb) == 0)
+		return 1;
+	if (errno != ENOENT)
+		cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));
+	return 0;
 }
 
 int
@@ -163,14 +278,16 @@ main(int argc, char *argv[])
 	static struct run r;
 	struct sampin_conf sc;
 	struct sampin_stats st;
+	struct wstate_read rd;
 	struct wear_result x;
 	struct csvout w;
-	struct outf *of;
+	struct outf *of, *sf = NULL;
 	struct dev **sorted;
-	const char *out = NULL;
+	const char *out = NULL, *state = NULL;
 	double cycle_life = 0, calendar_life = 0;
 	size_t n, k;
-	int ch, rc;
+	unsigned fixed = 0;
+	int ch, rc, merge = 0, state_out = 0;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -201,36 +318,47 @@ main(int argc, char *argv[])
 		case OPT_FULL:
 			r.conf.topoff.full_pct = opt_num_arg("--full", optarg,
 			    0, 100);
+			fixed |= WSTATE_SET_FULL;
 			break;
 		case OPT_FULL_VOLTAGE:
 			r.conf.topoff.full_v = opt_num_arg("--full-voltage",
 			    optarg, 1e-3, 1e6);
+			fixed |= WSTATE_SET_FULL_VOLTAGE;
 			break;
 		case OPT_HYSTERESIS:
 			r.conf.hysteresis = opt_num_arg("--hysteresis", optarg,
 			    0, 100);
+			fixed |= WSTATE_SET_HYSTERESIS;
 			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, r.conf.lim.t, 4, 1, 1);
+			fixed |= WSTATE_SET_LIMITS;
 			break;
 		case OPT_MAX_GAP:
 			r.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
 			r.conf.topoff.max_gap = r.conf.max_gap;
+			fixed |= WSTATE_SET_MAX_GAP;
+			break;
+		case OPT_MERGE:
+			merge = 1;
 			break;
 		case OPT_MIN_CURRENT:
 			r.conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
 			r.conf.topoff.min_current = r.conf.min_current;
+			fixed |= WSTATE_SET_MIN_CURRENT;
 			break;
 		case OPT_MIN_DEPTH:
 			r.conf.topoff.min_depth = opt_num_arg("--min-depth",
 			    optarg, 1e-6, 100);
+			fixed |= WSTATE_SET_MIN_DEPTH;
 			break;
 		case OPT_MODEL:
 			r.conf.model = model_find(optarg);
 			if (r.conf.model == NULL)
 				cw_usage_error("--model: no model '%s' (there "
 				    "is: %s)", optarg, model_table[0]->name);
+			fixed |= WSTATE_SET_MODEL;
 			break;
 		case OPT_RESIDUE:
 			if (strcmp(optarg, "half") == 0)
@@ -242,6 +370,14 @@ main(int argc, char *argv[])
 			else
 				cw_usage_error("--residue: '%s' is not half, "
 				    "full or repeat", optarg);
+			break;
+		case OPT_STATE:
+			if (optarg[0] == '\0' || strcmp(optarg, "-") == 0)
+				cw_usage_error("--state needs a file name");
+			state = optarg;
+			break;
+		case OPT_STATE_OUT:
+			state_out = 1;
 			break;
 		case OPT_VERSION:
 			cw_print_version();
@@ -257,46 +393,105 @@ main(int argc, char *argv[])
 	}
 	argc -= optind;
 	argv += optind;
-	/* The scales depend on the model, so they come after every option. */
+	if (state != NULL && out != NULL && strcmp(state, out) == 0)
+		cw_usage_error("--state and -o name the same file");
+
+	/*
+	 * A state to be joined before another keeps a raw rainflow start
+	 * side; one that is only ever continued (--state) stays compact.
+	 */
+	r.conf.joinable = state_out && state == NULL;
+	r.devs = devtab_new(sizeof(struct dev));
+	memset(&rd, 0, sizeof(rd));
+	rd.conf = &r.conf;
+	rd.fixed = fixed;
+	rd.dev = on_state;
+	rd.ctx = &r;
+	if (state != NULL && exists(state)) {
+		if ((rc = wstate_read(&rd, state, 1)) != 0)
+			exit(rc);
+		/* Samples go on from each state, in order from there. */
+		for (k = 0; !merge && k < devtab_count(r.devs); k++) {
+			struct dev *d = devtab_at(r.devs, k);
+
+			d->loaded = 1;
+			d->upto = d->w.acc.last;
+			d->e.last_t = INT64_MIN;
+		}
+	}
+	if (state != NULL)
+		sf = outf_open(state);
+	of = outf_open(out);
+	if (merge) {
+		/* File operands are whole states; a stream may be sorted. */
+		for (k = 0; k < (size_t)argc; k++) {
+			rc = wstate_read(&rd, argv[k],
+			    strcmp(argv[k], "-") != 0);
+			if (rc != 0)
+				exit(rc);
+		}
+		if (argc == 0 && (rc = wstate_read(&rd, "-", 0)) != 0)
+			exit(rc);
+		if (cw_verbose)
+			cw_warn("%lu state rows read (%lu header, %lu end "
+			    "rows), %zu devices", rd.rows, rd.headers,
+			    rd.ends, devtab_count(r.devs));
+	} else {
+		memset(&sc, 0, sizeof(sc));
+		sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME);
+		sc.need_any = SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
+		sc.row = on_row;
+		sc.ctx = &r;
+		sc.devs = r.devs;
+		rc = sampin_run(&sc, argv, argc, &st);
+		if (cw_verbose)
+			sampin_report(&st, NULL);
+		if (rc != 0)
+			exit(rc);
+		if (r.stale > 0)
+			cw_warn("%lu rows of %lu devices not after the end of "
+			    "their state in %s skipped (already in it)",
+			    r.stale, r.stale_devs, state);
+	}
+	/* The scales depend on the model, which a state may have set. */
 	if (cycle_life > 0)
 		wear_set_cycle_life(&r.conf, cycle_life);
 	if (calendar_life > 0)
 		wear_set_calendar_life(&r.conf, calendar_life);
 
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME);
-	sc.need_any = SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
-	sc.row = on_row;
-	sc.ctx = &r;
-	sc.devs = devtab_new(sizeof(struct dev));
-	of = outf_open(out);
-	rc = sampin_run(&sc, argv, argc, &st);
-	if (cw_verbose)
-		sampin_report(&st, NULL);
-	if (rc != 0)
-		exit(rc);
-
-	csvout_init(&w, outf_fp(of));
-	csvout_header(&w, r.capacity > 0 ? HEADER HEADER_CAP : HEADER);
-	sorted = (struct dev **)devtab_sorted(sc.devs);
-	n = devtab_count(sc.devs);
-	for (k = 0; k < n; k++) {
-		wear_finish(&sorted[k]->w, &r.conf);
-		wear_report(&r.conf, &sorted[k]->w.acc, r.capacity, &x);
-		write_row(&w, &r, sorted[k], &x);
+	sorted = (struct dev **)devtab_sorted(r.devs);
+	n = devtab_count(r.devs);
+	if (state != NULL) {
+		for (k = 0; k < n; k++)
+			wear_compact(&sorted[k]->w, &r.conf);
+		write_states(sf, state, &r, sorted, n);
+	}
+	if (state_out)
+		write_states(of, out, &r, sorted, n);
+	else {
+		csvout_init(&w, outf_fp(of));
+		csvout_header(&w, r.capacity > 0 ? HEADER HEADER_CAP :
+		    HEADER);
+		for (k = 0; k < n; k++) {
+			wear_finish(&sorted[k]->w, &r.conf);
+			wear_report(&r.conf, &sorted[k]->w.acc, r.capacity,
+			    &x);
+			write_row(&w, &r, sorted[k], &x);
+		}
+		if (csvout_flush(&w) != 0) {
+			csvout_free(&w);
+			cw_die(CW_EXIT_DATA, "write error");
+		}
+		csvout_free(&w);
 	}
 	if (cw_verbose)
 		report(&r, sorted, n);
 	for (k = 0; k < n; k++)
 		wear_free(&sorted[k]->w);
 	free(sorted);
-	devtab_free(sc.devs);
-	if (csvout_flush(&w) != 0) {
-		csvout_free(&w);
-		cw_die(CW_EXIT_DATA, "write error");
-	}
-	csvout_free(&w);
-	if (outf_commit(of) != 0)
+	devtab_free(r.devs);
+	/* The state moves on last, once the report is out. */
+	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
 		exit(CW_EXIT_DATA);
 	return CW_EXIT_OK;
 }

@@ -150,7 +150,8 @@ turn(struct rf_state *s, const struct rf_point *p, rf_emit_fn *emit,
 			break;			/* step 3: X < Y */
 		if (!s->periodic && s->n - 3 == s->start) {
 			s->start++;		/* step 5: a half cycle */
-			if (s->start >= 2 && tie(&s->pt[s->start - 2]))
+			if (!s->raw_start && s->start >= 2 &&
+			    tie(&s->pt[s->start - 2]))
 				pair_halves(s, emit, ctx);
 			continue;
 		}
@@ -263,6 +264,59 @@ rf_finish(struct rf_state *s, int residue_mode, rf_emit_fn *emit,
 	s->n = s->start = 0;
 	s->nturn = 0;
 	s->dir = RF_DIR_EMPTY;
+}
+
+void
+rf_join(struct rf_state *a, const struct rf_state *b, rf_emit_fn *emit,
+    void *ctx)
+{
+	const struct rf_point *p, *q;
+	size_t i;
+
+	for (i = 0; i < b->n; i++)
+		rf_push(a, b->pt[i].t, b->pt[i].x, b->pt[i].aux, emit, ctx);
+	switch (b->dir) {
+	case RF_DIR_FLAT:
+		/* Not moved yet: its extremes, the earlier first. */
+		p = b->hi.t < b->lo.t ? &b->hi : &b->lo;
+		q = p == &b->lo ? &b->hi : &b->lo;
+		rf_push(a, p->t, p->x, p->aux, emit, ctx);
+		if (q->x != p->x)
+			rf_push(a, q->t, q->x, q->aux, emit, ctx);
+		break;
+	case RF_DIR_UP:
+	case RF_DIR_DOWN:
+		rf_push(a, b->cand.t, b->cand.x, b->cand.aux, emit, ctx);
+		break;
+	}
+}
+
+int
+rf_check(const struct rf_state *s)
+{
+	size_t i;
+
+	if (!(s->hyst >= 0) || !isfinite(s->hyst) || s->dir < RF_DIR_EMPTY ||
+	    s->dir > RF_DIR_DOWN || s->start > s->n || s->n > s->cap ||
+	    (s->n > 0 && s->pt == NULL) || s->periodic != 0 ||
+	    (s->raw_start != 0 && s->raw_start != 1))
+		return -1;
+	/* Turning points come only once the history has moved. */
+	if ((s->dir == RF_DIR_EMPTY || s->dir == RF_DIR_FLAT) && s->n != 0)
+		return -1;
+	if ((s->dir == RF_DIR_UP || s->dir == RF_DIR_DOWN) && s->n == 0)
+		return -1;
+	if (s->dir == RF_DIR_FLAT && (!isfinite(s->lo.x) ||
+	    !isfinite(s->hi.x) || s->lo.x > s->hi.x))
+		return -1;
+	if ((s->dir == RF_DIR_UP || s->dir == RF_DIR_DOWN) &&
+	    (!isfinite(s->cand.x) || s->cand.t < s->pt[s->n - 1].t))
+		return -1;
+	for (i = 0; i < s->n; i++)
+		if (!isfinite(s->pt[i].x) || (i > 0 &&
+		    s->pt[i].t < s->pt[i - 1].t))
+			return -1;
+	return 0;
 }
 
 long

@@ -84,6 +84,8 @@ struct rf_state {
 	struct rf_point *pt;	/* residue: pt[0..start) the start side, */
 	size_t n, cap, start;	/* pt[start..n) the open stack */
 	int periodic;		/* internal: no starting point (repeat) */
+	int raw_start;		/* equal start-side halves left unpaired
+				   (see rf_join) */
 	unsigned long nturn;	/* turning points confirmed so far */
 };
 
@@ -103,6 +105,31 @@ void	rf_push(struct rf_state *s, cw_time t, double x, double aux,
  */
 void	rf_finish(struct rf_state *s, int residue_mode, rf_emit_fn *emit,
 	    void *ctx);
+/*
+ * Joining the states of two consecutive stretches of one history, each
+ * counted from its own start (cw-wear --merge).  The cycles a state has
+ * already emitted are final; what is left (the residue, the provisional
+ * extreme, or the extremes of a history that has not moved yet) is
+ * pushed through rf_push() into A, the state of the earlier stretch, in
+ * time order, so the hysteresis and the three-point rule see it as a
+ * single pass over both stretches would.  Every cycle this closes goes to
+ * EMIT.  B is left as it was; free it as usual.
+ *
+ * For the join to count exactly what one pass counts, B must have been
+ * counted with RAW_START set (before its first sample): it then keeps
+ * both halves of an equal-range start-side cycle in its residue instead
+ * of counting them as one cycle at once, since after A's samples they
+ * may close with a different neighbour.  rf_join() into a fresh state
+ * (rf_init() without RAW_START) turns such a state into the one a plain
+ * pass would have reached, pairing the halves then.
+ */
+void	rf_join(struct rf_state *a, const struct rf_state *b,
+	    rf_emit_fn *emit, void *ctx);
+/*
+ * Whether S is a state rf_push() could have left (for states read back
+ * from a file): 0 if so, -1 if not.
+ */
+int	rf_check(const struct rf_state *s);
 /* Release the residue's memory; rf_init() again before any further use. */
 void	rf_free(struct rf_state *s);
 /* Turning points in the residue now (for tests and memory checks). */

@@ -30,6 +30,29 @@
  * The totals (struct wear_acc) are plain sums, minima and maxima, kept
  * without the model's --cycle-life and --calendar-life scales, so that
  * totals of two spans can be added (wear_acc_merge) and reported later.
+ *
+ * Joining (wear_join) goes further: the whole state of a device over one
+ * stretch of time, followed by its state over the next stretch, counted
+ * on its own, gives the state one pass over both would have reached.  A
+ * plain sum of totals would lose what lies across the boundary, so a
+ * state also keeps:
+ * - its first rows (the first row, the first with SoC, with temperature,
+ *   with both): the join adds the intervals from the earlier state's last
+ *   rows to them, for charge, time at high SoC and temperature, and the
+ *   calendar term;
+ * - the rainflow residue, joined through the three-point rule (rf_join);
+ *   a joinable state (wear_conf.joinable) counts it with RAW_START;
+ * - the first rows of the top-off detector, up to the first row after
+ *   which the detector is in the same state whatever came before (a row
+ *   with a SoC below the band, a row after a gap over max_gap, or a
+ *   resting row at 100 % SoC): the join runs them through the earlier
+ *   state's detector.  Rows that repeat the SoC and the kind of current
+ *   (charging, resting, unknown) of the row before, within
+ *   max_gap of the first of them, leave the detector as the first left
+ *   it, so they are kept as one run, replayed as its first and last row.
+ *   More than WEAR_PRE_MAX runs without such a row are not kept, and a
+ *   join across them counts the micro-cycles of the two sides apart
+ *   (acc.topoff_cut counts these joins).
  */
 #ifndef WEAR_H
 #define WEAR_H
@@ -48,6 +71,8 @@
 #define WEAR_EOL_FADE	0.20
 /* cold-charge dominates at this share of all charge (SPEC.md). */
 #define WEAR_COLD_SHARE	0.02
+/* Runs of rows of the top-off prefix a state keeps for a join, at most. */
+#define WEAR_PRE_MAX	512
 
 /* The damage sums, unscaled, in the four forms of struct model_eval. */
 enum { WEAR_FULL, WEAR_SOC_CAPPED, WEAR_TEMP_CAPPED, WEAR_DEPTH_ONLY,
@@ -78,6 +103,7 @@ struct wear_acc {
 	double cycles_no_temp;
 	unsigned long topoff_cycles;
 	unsigned long topoff_judged;	/* rows the detector could judge */
+	unsigned long topoff_cut;	/* joins it could not replay */
 	/* Damage, unscaled: cycle and calendar, in each form. */
 	double cyc[WEAR_NFORM];
 	double cal[WEAR_NFORM];
@@ -94,6 +120,23 @@ struct wear_conf {
 	double hysteresis;	/* rainflow, % SoC */
 	int residue;		/* RF_RESIDUE_* */
 	struct topoff_conf topoff;
+	int joinable;		/* new states keep a raw rainflow start side,
+				   for a join before them (0) */
+};
+
+/* What the top-off prefix of a state holds (struct wear_dev, pre_state). */
+enum {
+	WEAR_PRE_OPEN,		/* every row so far, none synchronising */
+	WEAR_PRE_DONE,		/* the rows up to the synchronising one */
+	WEAR_PRE_LOST,		/* more than WEAR_PRE_MAX runs: none kept */
+	WEAR_PRE_NSTATE
+};
+
+/* N rows alike to the top-off detector, from T to T_LAST, as the first. */
+struct wear_run {
+	cw_time t, t_last;
+	unsigned long n;
+	double v, i, soc;
 };
 
 /* The per-device streaming state; set it up with wear_init(). */
@@ -112,6 +155,24 @@ struct wear_dev {
 	int have_model;			/* the last row with both */
 	cw_time model_t;
 	struct model_eval rate;		/* its calendar rate */
+	/* The first rows, for a join after an earlier state. */
+	double head_i;			/* current of the first row */
+	double head_temp;		/* its temperature, NaN if unusable */
+	int have_soc0;			/* the first row with SoC */
+	cw_time soc0_t;
+	double soc0;
+	int have_temp0;			/* the first row with temperature */
+	cw_time temp0_t;
+	double temp0;
+	int have_model0;		/* the first row with both */
+	cw_time model0_t;
+	struct model_eval rate0;
+	/* The top-off prefix: pre[0..pre_n), WEAR_PRE_* in pre_state. */
+	int pre_state;
+	size_t pre_n, pre_cap;
+	struct wear_run *pre;
+	unsigned long pre_cycles;	/* acc.topoff_cycles after it */
+	unsigned long pre_judged;	/* acc.topoff_judged after it */
 };
 
 /* A device's report: NaN (an empty field) for what is not known. */
@@ -157,6 +218,19 @@ void	wear_push(struct wear_dev *d, const struct wear_conf *c, cw_time t,
 /* The end of the device's rows: the rainflow residue and the open hold. */
 void	wear_finish(struct wear_dev *d, const struct wear_conf *c);
 void	wear_free(struct wear_dev *d);
+/*
+ * Join B, the state of the stretch that follows A's (B's first row not
+ * before A's last), into A, which becomes the state of both.  B is left
+ * empty (wear_free() on it is harmless).  Neither may have been finished.
+ */
+void	wear_join(struct wear_dev *a, struct wear_dev *b,
+	    const struct wear_conf *c);
+/*
+ * Give up joinability for a state that will only ever be continued (a
+ * cumulative --state file): a raw rainflow start side is paired as a
+ * plain pass pairs it, so it stays short.
+ */
+void	wear_compact(struct wear_dev *d, const struct wear_conf *c);
 
 /* Add the totals of B to A (B's span may come before or after A's). */
 void	wear_acc_merge(struct wear_acc *a, const struct wear_acc *b);

@@ -1,0 +1,972 @@
+/* wearstate.c: the text form of cw-wear device states (see wearstate.h). */
+#include <math.h>
+#include <stddef.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "csvin.h"
+#include "cw.h"
+#include "num.h"
+#include "ts.h"
+#include "wearstate.h"
+
+#define TAG_STEM	"cw-wear-state-"
+#define FNV_BASIS	0xcbf29ce484222325ull
+#define FNV_PRIME	0x100000001b3ull
+
+/* Kinds of fields. */
+enum {
+	K_DBL,		/* double, finite */
+	K_DBLN,		/* double, empty for NaN */
+	K_TIME,		/* cw_time, integer microseconds */
+	K_UL,		/* unsigned long */
+	K_INT,		/* int in lo..hi */
+	K_SIZE		/* size_t */
+};
+
+struct field {
+	const char *name;
+	int kind;
+	size_t off;
+	int lo, hi;
+};
+
+#define FD(n, m)	{ n, K_DBL, offsetof(struct wear_dev, m), 0, 0 }
+#define FN(n, m)	{ n, K_DBLN, offsetof(struct wear_dev, m), 0, 0 }
+#define FT(n, m)	{ n, K_TIME, offsetof(struct wear_dev, m), 0, 0 }
+#define FU(n, m)	{ n, K_UL, offsetof(struct wear_dev, m), 0, 0 }
+#define FZ(n, m)	{ n, K_SIZE, offsetof(struct wear_dev, m), 0, 0 }
+#define FI(n, m, lo, hi) { n, K_INT, offsetof(struct wear_dev, m), lo, hi }
+
+/* The device's fields, in the order of the row. */
+static const struct field devf[] = {
+	FU("rows", acc.rows),
+	FU("rows_no_current", acc.rows_no_current),
+	FU("rows_no_soc", acc.rows_no_soc),
+	FU("rows_no_temp", acc.rows_no_temp),
+	FU("rows_model", acc.rows_model),
+	FD("charge_ah", acc.charge_ah),
+	FD("charge_s", acc.charge_s),
+	FD("max_charge_a", acc.max_charge_a),
+	FD("ah_below_min", acc.zone_ah.zone[THERMAL_BELOW_MIN]),
+	FD("ah_cool", acc.zone_ah.zone[THERMAL_COOL]),
+	FD("ah_normal", acc.zone_ah.zone[THERMAL_NORMAL]),
+	FD("ah_warm", acc.zone_ah.zone[THERMAL_WARM]),
+	FD("ah_above_max", acc.zone_ah.zone[THERMAL_ABOVE_MAX]),
+	FD("ah_no_temp", acc.zone_ah.no_temp),
+	FD("soc_s", acc.soc_s),
+	FD("soc_high_s", acc.soc_high_s),
+	FD("temp_s", acc.temp_s),
+	FD("temp_high_s", acc.temp_high_s),
+	FD("model_s", acc.model_s),
+	FD("gap_s", acc.gap_s),
+	FU("gaps", acc.gaps),
+	FD("rf_cycles", acc.rf.cycles),
+	FD("rf_range_sum", acc.rf.range_sum),
+	FD("rf_max_range", acc.rf.max_range),
+	FU("rf_full", acc.rf.full),
+	FU("rf_half", acc.rf.half),
+	FD("cycles_no_temp", acc.cycles_no_temp),
+	FU("topoff_cycles", acc.topoff_cycles),
+	FU("topoff_judged", acc.topoff_judged),
+	FU("topoff_cut", acc.topoff_cut),
+	FD("cyc_full", acc.cyc[WEAR_FULL]),
+	FD("cyc_soc_capped", acc.cyc[WEAR_SOC_CAPPED]),
+	FD("cyc_temp_capped", acc.cyc[WEAR_TEMP_CAPPED]),
+	FD("cyc_depth_only", acc.cyc[WEAR_DEPTH_ONLY]),
+	FD("cal_full", acc.cal[WEAR_FULL]),
+	FD("cal_soc_capped", acc.cal[WEAR_SOC_CAPPED]),
+	FD("cal_temp_capped", acc.cal[WEAR_TEMP_CAPPED]),
+	FD("cal_depth_only", acc.cal[WEAR_DEPTH_ONLY]),
+	FN("head_i", head_i),
+	FN("head_temp", head_temp),
+	FI("have_soc0", have_soc0, 0, 1),
+	FT("soc0_t", soc0_t),
+	FD("soc0", soc0),
+	FI("have_temp0", have_temp0, 0, 1),
+	FT("temp0_t", temp0_t),
+	FD("temp0", temp0),
+	FI("have_model0", have_model0, 0, 1),
+	FT("model0_t", model0_t),
+	FD("rate0_full", rate0.full),
+	FD("rate0_soc_capped", rate0.soc_capped),
+	FD("rate0_temp_capped", rate0.temp_capped),
+	FD("rate0_depth_only", rate0.depth_only),
+	FI("have_soc", have_soc, 0, 1),
+	FT("soc_t", soc_t),
+	FD("soc", soc),
+	FI("have_temp", have_temp, 0, 1),
+	FT("temp_t", temp_t),
+	FD("temp", temp),
+	FI("have_model", have_model, 0, 1),
+	FT("model_t", model_t),
+	FD("rate_full", rate.full),
+	FD("rate_soc_capped", rate.soc_capped),
+	FD("rate_temp_capped", rate.temp_capped),
+	FD("rate_depth_only", rate.depth_only),
+	FI("rf_raw", rf.raw_start, 0, 1),
+	FI("rf_dir", rf.dir, 0, 3),
+	FT("rf_lo_t", rf.lo.t),
+	FD("rf_lo_x", rf.lo.x),
+	FN("rf_lo_aux", rf.lo.aux),
+	FT("rf_hi_t", rf.hi.t),
+	FD("rf_hi_x", rf.hi.x),
+	FN("rf_hi_aux", rf.hi.aux),
+	FT("rf_cand_t", rf.cand.t),
+	FD("rf_cand_x", rf.cand.x),
+	FN("rf_cand_aux", rf.cand.aux),
+	FZ("rf_start", rf.start),
+	FU("rf_nturn", rf.nturn),
+	FI("top_phase", top.phase, TOPOFF_OUT, TOPOFF_RECHARGE),
+	FI("top_have_row", top.have_row, 0, 1),
+	FT("top_row_t", top.row_t),
+	FT("top_lvl_t", top.lvl_t),
+	FD("top_lvl", top.lvl),
+	FI("top_lvl_top", top.lvl_top, 0, 1),
+	FI("top_have_soc", top.have_soc, 0, 1),
+	FT("top_soc_t", top.soc_t),
+	FI("top_rested", top.rested, 0, 1),
+	FI("top_signal", top.hold.signal, 0, TOPOFF_VOLTAGE),
+	FT("top_hold_start", top.hold.start),
+	FT("top_hold_end", top.hold.end),
+	FU("top_hold_rows", top.hold.rows),
+	FU("top_hold_carried", top.hold.carried),
+	FU("top_hold_cycles", top.hold.cycles),
+	FD("top_hold_depth_sum", top.hold.depth_sum),
+	FD("top_hold_depth_max", top.hold.depth_max),
+	FD("top_hold_topoff_ah", top.hold.topoff_ah),
+	FT("top_hold_at_top2", top.hold.at_top2),
+	FD("top_peak", top.peak),
+	FD("top_trough", top.trough),
+	FT("top_peak_t", top.peak_t),
+	FI("top_idle", top.idle, 0, 1),
+	FI("top_dropped", top.dropped, 0, 1),
+	FI("top_recharged", top.recharged, 0, 1),
+	FD("top_rise", top.rise),
+	FT("top_rise_t", top.rise_t),
+	FT("top_chg_t", top.chg_t),
+	FD("top_cyc_ah", top.cyc_ah),
+	FI("pre_state", pre_state, 0, WEAR_PRE_NSTATE - 1),
+	FU("pre_cycles", pre_cycles),
+	FU("pre_judged", pre_judged)
+};
+#define NDEVF (sizeof(devf) / sizeof(devf[0]))
+
+/* The settings, over struct wear_conf, with the option that sets each. */
+struct setting {
+	const char *name;
+	int kind;
+	size_t off;
+	unsigned bit;
+	const char *opt;
+};
+
+#define SET(n, k, m, b, o) { n, k, offsetof(struct wear_conf, m), b, o }
+static const struct setting setf[] = {
+	SET("hysteresis", K_DBL, hysteresis, WSTATE_SET_HYSTERESIS,
+	    "--hysteresis"),
+	SET("min_current", K_DBL, min_current, WSTATE_SET_MIN_CURRENT,
+	    "--min-current"),
+	SET("max_gap_us", K_TIME, max_gap, WSTATE_SET_MAX_GAP, "--max-gap"),
+	SET("t1", K_DBL, lim.t[0], WSTATE_SET_LIMITS, "--limits"),
+	SET("t2", K_DBL, lim.t[1], WSTATE_SET_LIMITS, "--limits"),
+	SET("t3", K_DBL, lim.t[2], WSTATE_SET_LIMITS, "--limits"),
+	SET("t4", K_DBL, lim.t[3], WSTATE_SET_LIMITS, "--limits"),
+	SET("full_pct", K_DBL, topoff.full_pct, WSTATE_SET_FULL, "--full"),
+	SET("full_v", K_DBLN, topoff.full_v, WSTATE_SET_FULL_VOLTAGE,
+	    "--full-voltage"),
+	SET("min_depth", K_DBL, topoff.min_depth, WSTATE_SET_MIN_DEPTH,
+	    "--min-depth")
+};
+#define NSETF (sizeof(setf) / sizeof(setf[0]))
+
+/* device, first, last, tag, model; the settings; the fields; rf_pts,
+ * pre_rows, check. */
+#define COL_SET		5
+#define COL_DEV		(COL_SET + NSETF)
+#define COL_RF		(COL_DEV + NDEVF)
+#define COL_PRE		(COL_RF + 1)
+#define COL_CHECK	(COL_PRE + 1)
+#define NCOL		(COL_CHECK + 1)
+
+/* A growable text buffer for one row. */
+struct buf {
+	char *s;
+	size_t n, cap;
+};
+
+/* What one read of a file keeps. */
+struct rd {
+	struct wstate_read *r;
+	const char *path;
+	int strict;
+	unsigned long nrec;		/* records of this file */
+	unsigned long rows, announced;	/* this file's */
+	int last_end;		/* the latest record was an end row */
+	int first_data;		/* the first record was a device row */
+};
+
+static struct buf B;
+
+static void buf_add(struct buf *, const char *, size_t);
+static void buf_str(struct buf *, const char *);
+static void buf_i64(struct buf *, long long);
+static void buf_ul(struct buf *, unsigned long);
+static void buf_dbl(struct buf *, double, int);
+static void buf_field(struct buf *, int, const void *);
+static void buf_name(struct buf *, const char *, size_t);
+static uint64_t fnv(const char *, size_t);
+static int end_row(FILE *, struct buf *);
+static int get_i64(const char *, size_t, long long *);
+static int get_ul(const char *, size_t, unsigned long *);
+static int get_field(int, const char *, size_t, int, int, void *);
+static int same(int, const void *, const void *);
+static void show(int, const void *, char *, size_t);
+static const struct buf *header(void);
+static int settings(struct rd *, const struct csvin_rec *);
+static int get_rf(struct wear_dev *, const char *, size_t);
+static int get_pre(struct wear_dev *, const char *, size_t);
+static const char *check_dev(const struct wear_dev *,
+    const struct wear_conf *);
+static int dev_row(struct rd *, const struct csvin_rec *);
+static int end_rec(struct rd *, const struct csvin_rec *);
+static int on_rec(void *, const struct csvin_rec *);
+static int on_bad(void *, const struct csvin_rec *, const char *);
+static int on_blank(void *, const struct csvin_rec *);
+
+static void
+buf_add(struct buf *b, const char *s, size_t n)
+{
+	if (b->n + n + 1 > b->cap) {
+		while (b->n + n + 1 > b->cap)
+			b->cap = b->cap ? 2 * b->cap : 4096;
+		b->s = cw_realloc(b->s, b->cap);
+	}
+	memcpy(b->s + b->n, s, n);
+	b->n += n;
+	b->s[b->n] = '\0';
+}
+
+static void
+buf_str(struct buf *b, const char *s)
+{
+	buf_add(b, s, strlen(s));
+}
+
+static void
+buf_i64(struct buf *b, long long x)
+{
+	char t[32];
+
+	buf_add(b, t, (size_t)snprintf(t, sizeof(t), "%lld", x));
+}
+
+static void
+buf_ul(struct buf *b, unsigned long x)
+{
+	char t[32];
+
+	buf_add(b, t, (size_t)snprintf(t, sizeof(t), "%lu", x));
+}
+
+/* X with %.17g, which reads back to the same double; NaN as nothing. */
+static void
+buf_dbl(struct buf *b, double x, int nan_ok)
+{
+	char t[40];
+
+	if (isnan(x) && nan_ok)
+		return;
+	buf_add(b, t, (size_t)snprintf(t, sizeof(t), "%.17g", x));
+}
+
+static void
+buf_field(struct buf *b, int kind, const void *p)
+{
+	switch (kind) {
+	case K_DBL:
+	case K_DBLN:
+		buf_dbl(b, *(const double *)p, kind == K_DBLN);
+		break;
+	case K_TIME:
+		buf_i64(b, (long long)*(const cw_time *)p);
+		break;
+	case K_UL:
+		buf_ul(b, *(const unsigned long *)p);
+		break;
+	case K_INT:
+		buf_i64(b, *(const int *)p);
+		break;
+	case K_SIZE:
+		buf_ul(b, (unsigned long)*(const size_t *)p);
+		break;
+	}
+}
+
+/* A device name, quoted as RFC 4180 asks when it has to be. */
+static void
+buf_name(struct buf *b, const char *s, size_t n)
+{
+	size_t i;
+
+	if (n > 0 && strcspn(s, ",\"\r\n") >= n && s[0] != ' ' &&
+	    s[0] != '\t' && s[n - 1] != ' ' && s[n - 1] != '\t') {
+		buf_add(b, s, n);
+		return;
+	}
+	buf_add(b, "\"", 1);
+	for (i = 0; i < n; i++) {
+		if (s[i] == '"')
+			buf_add(b, "\"", 1);
+		buf_add(b, s + i, 1);
+	}
+	buf_add(b, "\"", 1);
+}
+
+static uint64_t
+fnv(const char *s, size_t n)
+{
+	uint64_t h = FNV_BASIS;
+	size_t i;
+
+	for (i = 0; i < n; i++) {
+		h ^= (unsigned char)s[i];
+		h *= FNV_PRIME;
+	}
+	return h;
+}
+
+/* Append ",check\n" to the row in B and write it. */
+static int
+end_row(FILE *fp, struct buf *b)
+{
+	char t[24];
+
+	snprintf(t, sizeof(t), ",%016llx\n", (unsigned long long)fnv(b->s,
+	    b->n));
+	buf_str(b, t);
+	return fwrite(b->s, 1, b->n, fp) == b->n ? 0 : -1;
+}
+
+/* The header row, with its line end, made once. */
+static const struct buf *
+header(void)
+{
+	static struct buf h;
+	size_t k;
+
+	if (h.n > 0)
+		return &h;
+	buf_str(&h, "device,first,last," WSTATE_TAG ",model");
+	for (k = 0; k < NSETF; k++) {
+		buf_add(&h, ",", 1);
+		buf_str(&h, setf[k].name);
+	}
+	for (k = 0; k < NDEVF; k++) {
+		buf_add(&h, ",", 1);
+		buf_str(&h, devf[k].name);
+	}
+	buf_str(&h, ",rf_pts,pre_rows,check\n");
+	return &h;
+}
+
+int
+wstate_write_header(FILE *fp)
+{
+	const struct buf *h = header();
+
+	return fwrite(h->s, 1, h->n, fp) == h->n ? 0 : -1;
+}
+
+int
+wstate_write_dev(FILE *fp, const char *name, size_t namelen,
+    const struct wear_dev *d, const struct wear_conf *c)
+{
+	char t[TS_FMTMAX];
+	size_t k;
+
+	B.n = 0;
+	buf_name(&B, name, namelen);
+	buf_add(&B, ",", 1);
+	buf_add(&B, t, ts_format(d->acc.first, t));
+	buf_add(&B, ",", 1);
+	buf_add(&B, t, ts_format(d->acc.last, t));
+	buf_str(&B, "," WSTATE_TAG ",");
+	buf_str(&B, c->model->name);
+	for (k = 0; k < NSETF; k++) {
+		buf_add(&B, ",", 1);
+		buf_field(&B, setf[k].kind, (const char *)c + setf[k].off);
+	}
+	for (k = 0; k < NDEVF; k++) {
+		buf_add(&B, ",", 1);
+		buf_field(&B, devf[k].kind, (const char *)d + devf[k].off);
+	}
+	buf_add(&B, ",", 1);
+	for (k = 0; k < d->rf.n; k++) {
+		if (k > 0)
+			buf_add(&B, ";", 1);
+		buf_i64(&B, (long long)d->rf.pt[k].t);
+		buf_add(&B, ":", 1);
+		buf_dbl(&B, d->rf.pt[k].x, 0);
+		buf_add(&B, ":", 1);
+		buf_dbl(&B, d->rf.pt[k].aux, 1);
+	}
+	buf_add(&B, ",", 1);
+	for (k = 0; k < d->pre_n; k++) {
+		if (k > 0)
+			buf_add(&B, ";", 1);
+		buf_i64(&B, (long long)d->pre[k].t);
+		buf_add(&B, ":", 1);
+		buf_i64(&B, (long long)d->pre[k].t_last);
+		buf_add(&B, ":", 1);
+		buf_ul(&B, d->pre[k].n);
+		buf_add(&B, ":", 1);
+		buf_dbl(&B, d->pre[k].v, 1);
+		buf_add(&B, ":", 1);
+		buf_dbl(&B, d->pre[k].i, 1);
+		buf_add(&B, ":", 1);
+		buf_dbl(&B, d->pre[k].soc, 1);
+	}
+	return end_row(fp, &B);
+}
+
+int
+wstate_write_end(FILE *fp, unsigned long rows)
+{
+	B.n = 0;
+	buf_str(&B, ",,," WSTATE_TAG ",end,");
+	buf_ul(&B, rows);
+	return end_row(fp, &B);
+}
+
+/* Strict integers: an optional '-', then digits, nothing else. */
+static int
+get_i64(const char *s, size_t n, long long *out)
+{
+	unsigned long long x = 0, lim = (unsigned long long)INT64_MAX;
+	size_t i = 0;
+	int neg = 0;
+
+	if (n > 0 && s[0] == '-') {
+		neg = 1;
+		i = 1;
+		lim++;
+	}
+	if (i == n)
+		return -1;
+	for (; i < n; i++) {
+		if (s[i] < '0' || s[i] > '9')
+			return -1;
+		if (x > (lim - (unsigned)(s[i] - '0')) / 10)
+			return -1;
+		x = x * 10 + (unsigned)(s[i] - '0');
+	}
+	*out = neg ? (long long)(0 - x) : (long long)x;
+	return 0;
+}
+
+static int
+get_ul(const char *s, size_t n, unsigned long *out)
+{
+	long long x;
+
+	if (n == 0 || s[0] == '-' || get_i64(s, n, &x) < 0 ||
+	    (unsigned long long)x > (unsigned long long)(unsigned long)-1)
+		return -1;
+	*out = (unsigned long)x;
+	return 0;
+}
+
+/* Parse S[0..N) as a field of KIND into P; 0 or -1. */
+static int
+get_field(int kind, const char *s, size_t n, int lo, int hi, void *p)
+{
+	long long x;
+	unsigned long u;
+	double d;
+
+	switch (kind) {
+	case K_DBL:
+	case K_DBLN:
+		if (n == 0 && kind == K_DBLN) {
+			*(double *)p = CW_MISSING;
+			return 0;
+		}
+		/* No blanks: num_parse() would skip them. */
+		if (memchr(s, ' ', n) != NULL || memchr(s, '\t', n) != NULL ||
+		    num_parse(s, n, '.', &d) != NUM_OK || !isfinite(d))
+			return -1;
+		*(double *)p = d;
+		return 0;
+	case K_TIME:
+		if (get_i64(s, n, &x) < 0)
+			return -1;
+		*(cw_time *)p = x;
+		return 0;
+	case K_UL:
+		if (get_ul(s, n, &u) < 0)
+			return -1;
+		*(unsigned long *)p = u;
+		return 0;
+	case K_INT:
+		if (get_i64(s, n, &x) < 0 || x < lo || x > hi)
+			return -1;
+		*(int *)p = (int)x;
+		return 0;
+	case K_SIZE:
+		if (get_ul(s, n, &u) < 0)
+			return -1;
+		*(size_t *)p = u;
+		return 0;
+	}
+	return -1;
+}
+
+/* Whether two values of KIND are the same (NaN equal to NaN). */
+static int
+same(int kind, const void *a, const void *b)
+{
+	double x, y;
+
+	switch (kind) {
+	case K_DBL:
+	case K_DBLN:
+		x = *(const double *)a;
+		y = *(const double *)b;
+		return x == y || (isnan(x) && isnan(y));
+	case K_TIME:
+		return *(const cw_time *)a == *(const cw_time *)b;
+	}
+	return 0;
+}
+
+/* A setting's value, for messages. */
+static void
+show(int kind, const void *p, char *t, size_t n)
+{
+	double x;
+
+	if (kind == K_TIME) {
+		snprintf(t, n, "%gs", (double)*(const cw_time *)p /
+		    CW_US_PER_S);
+		return;
+	}
+	x = *(const double *)p;
+	if (isnan(x))
+		snprintf(t, n, "none");
+	else
+		snprintf(t, n, "%.15g", x);
+}
+
+/*
+ * The settings of a row: adopted from the first row where the command
+ * line did not fix them, then the same on every row.
+ */
+static int
+settings(struct rd *d, const struct csvin_rec *rec)
+{
+	struct wstate_read *r = d->r;
+	struct wear_conf *c = r->conf;
+	const struct model *m;
+	char have[64], want[64];
+	unsigned char v[sizeof(double) > sizeof(cw_time) ? sizeof(double) :
+	    sizeof(cw_time)];
+	size_t k;
+
+	m = model_find(rec->f[4]);
+	if (m == NULL) {
+		cw_warn_at(rec->src, rec->line, "the state was made with "
+		    "model '%s', which this cw-wear does not have",
+		    rec->f[4]);
+		return CW_EXIT_DATA;
+	}
+	if (!r->adopted && !(r->fixed & WSTATE_SET_MODEL))
+		c->model = m;
+	else if (m != c->model) {
+		cw_warn_at(rec->src, rec->line, "the state was made with "
+		    "--model %s, %s %s", m->name, r->adopted ?
+		    "an earlier one with" : "this run asks for",
+		    c->model->name);
+		return CW_EXIT_DATA;
+	}
+	for (k = 0; k < NSETF; k++) {
+		const struct setting *s = &setf[k];
+		char *p = (char *)c + s->off;
+
+		if (get_field(s->kind, rec->f[COL_SET + k],
+		    rec->len[COL_SET + k], 0, 0, v) < 0) {
+			cw_warn_at(rec->src, rec->line, "bad value '%.40s' in "
+			    "column %s: the state is corrupt",
+			    rec->f[COL_SET + k], s->name);
+			return CW_EXIT_DATA;
+		}
+		if (!r->adopted && !(r->fixed & s->bit)) {
+			memcpy(p, v, s->kind == K_TIME ? sizeof(cw_time) :
+			    sizeof(double));
+			continue;
+		}
+		if (!same(s->kind, p, v)) {
+			show(s->kind, v, have, sizeof(have));
+			show(s->kind, p, want, sizeof(want));
+			cw_warn_at(rec->src, rec->line, "the state was made "
+			    "with %s %s (%s), %s %s", s->opt, have, s->name,
+			    r->adopted ? "an earlier one with" :
+			    "this run asks for", want);
+			return CW_EXIT_DATA;
+		}
+	}
+	/* The top-off detector follows the run's gap and current. */
+	c->topoff.max_gap = c->max_gap;
+	c->topoff.min_current = c->min_current;
+	r->adopted = 1;
+	return 0;
+}
+
+/* The residue, "t:x:aux;...", into D->rf (set up by wear_init()). */
+static int
+get_rf(struct wear_dev *d, const char *s, size_t n)
+{
+	const char *p = s, *e = s + n, *q, *c1, *c2;
+	struct rf_point pt;
+	size_t cnt = 0, i;
+
+	if (n == 0)
+		return 0;
+	for (i = 0; i < n; i++)
+		cnt += s[i] == ';';
+	cnt++;
+	d->rf.pt = cw_malloc(cnt * sizeof(*d->rf.pt));
+	d->rf.cap = cnt;
+	while (p <= e) {
+		q = memchr(p, ';', (size_t)(e - p));
+		if (q == NULL)
+			q = e;
+		c1 = memchr(p, ':', (size_t)(q - p));
+		c2 = c1 != NULL ? memchr(c1 + 1, ':', (size_t)(q - c1 - 1)) :
+		    NULL;
+		if (c2 == NULL || memchr(c2 + 1, ':', (size_t)(q - c2 - 1)) !=
+		    NULL)
+			return -1;
+		if (get_field(K_TIME, p, (size_t)(c1 - p), 0, 0, &pt.t) < 0 ||
+		    get_field(K_DBL, c1 + 1, (size_t)(c2 - c1 - 1), 0, 0,
+		    &pt.x) < 0 || get_field(K_DBLN, c2 + 1,
+		    (size_t)(q - c2 - 1), 0, 0, &pt.aux) < 0)
+			return -1;
+		d->rf.pt[d->rf.n++] = pt;
+		p = q + 1;
+	}
+	return 0;
+}
+
+/* The top-off prefix, "t:t_last:n:v:i:soc;...". */
+static int
+get_pre(struct wear_dev *d, const char *s, size_t n)
+{
+	static const int kind[6] = { K_TIME, K_TIME, K_UL, K_DBLN, K_DBLN,
+	    K_DBLN };
+	const char *p = s, *e = s + n, *q, *c[7];
+	struct wear_run w;
+	void *to[6];
+	size_t cnt = 0, i;
+	int k;
+
+	if (n == 0)
+		return 0;
+	for (i = 0; i < n; i++)
+		cnt += s[i] == ';';
+	cnt++;
+	if (cnt > WEAR_PRE_MAX)
+		return -1;
+	d->pre = cw_malloc(cnt * sizeof(*d->pre));
+	d->pre_cap = cnt;
+	to[0] = &w.t;
+	to[1] = &w.t_last;
+	to[2] = &w.n;
+	to[3] = &w.v;
+	to[4] = &w.i;
+	to[5] = &w.soc;
+	while (p <= e) {
+		q = memchr(p, ';', (size_t)(e - p));
+		if (q == NULL)
+			q = e;
+		/* c[k] is the separator before subfield k, c[6] the end. */
+		c[0] = p - 1;
+		for (k = 1; k < 6; k++) {
+			c[k] = memchr(c[k - 1] + 1, ':',
+			    (size_t)(q - c[k - 1] - 1));
+			if (c[k] == NULL)
+				return -1;
+		}
+		c[6] = q;
+		if (memchr(c[5] + 1, ':', (size_t)(q - c[5] - 1)) != NULL)
+			return -1;
+		for (k = 0; k < 6; k++)
+			if (get_field(kind[k], c[k] + 1,
+			    (size_t)(c[k + 1] - c[k] - 1), 0, 0, to[k]) < 0)
+				return -1;
+		d->pre[d->pre_n++] = w;
+		p = q + 1;
+	}
+	return 0;
+}
+
+/*
+ * What a state read back must hold to be one wear_push() could have made,
+ * as far as the rest of the code relies on it; NULL, or what is wrong.
+ */
+static const char *
+check_dev(const struct wear_dev *d, const struct wear_conf *c)
+{
+	const struct wear_acc *a = &d->acc;
+	unsigned long n;
+	size_t k;
+
+	if (a->rows == 0 || a->first > a->last)
+		return "no rows, or first after last";
+	if (a->rows_no_current > a->rows || a->rows_no_soc > a->rows ||
+	    a->rows_no_temp > a->rows || a->rows_model > a->rows ||
+	    a->topoff_judged > a->rows)
+		return "more rows counted than the state has";
+	if ((d->have_soc0 && (d->soc0_t < a->first || d->soc0_t > d->soc_t ||
+	    !d->have_soc)) || (d->have_soc && (d->soc_t > a->last ||
+	    !d->have_soc0)))
+		return "first or last row with SoC outside the state";
+	if ((d->have_temp0 && (d->temp0_t < a->first ||
+	    d->temp0_t > d->temp_t || !d->have_temp)) || (d->have_temp &&
+	    (d->temp_t > a->last || !d->have_temp0)))
+		return "first or last row with temperature outside the state";
+	if ((d->have_model0 && (d->model0_t < a->first ||
+	    d->model0_t > d->model_t || !d->have_model)) ||
+	    (d->have_model && (d->model_t > a->last || !d->have_model0)))
+		return "first or last row of the model outside the state";
+	if (rf_check(&d->rf) < 0)
+		return "rainflow state inconsistent";
+	for (k = 0; k < d->rf.n; k++)
+		if (d->rf.pt[k].t < a->first || d->rf.pt[k].t > a->last)
+			return "rainflow turning point outside the state";
+	if (d->top.have_row != 1 || d->top.row_t != a->last ||
+	    (d->top.phase != TOPOFF_OUT && d->top.hold.signal == 0))
+		return "top-off detector inconsistent";
+	if (d->pre_n > a->rows || (d->pre_state == WEAR_PRE_LOST &&
+	    d->pre_n != 0) || (d->pre_state == WEAR_PRE_DONE &&
+	    d->pre_n == 0) || d->pre_cycles > a->topoff_cycles ||
+	    d->pre_judged > a->topoff_judged)
+		return "top-off prefix inconsistent";
+	for (n = 0, k = 0; k < d->pre_n; k++) {
+		const struct wear_run *w = &d->pre[k];
+
+		if (w->t < (k ? d->pre[k - 1].t_last : a->first) ||
+		    w->t_last < w->t || w->t_last > a->last || w->n == 0 ||
+		    (w->n == 1 && w->t_last != w->t) ||
+		    w->t_last - w->t > c->max_gap)
+			return "top-off prefix rows out of order";
+		n += w->n;
+	}
+	if (d->pre_n > 0 && d->pre[0].t != a->first)
+		return "top-off prefix does not start at the first row";
+	if (n > a->rows || (d->pre_state == WEAR_PRE_OPEN && n != a->rows))
+		return "top-off prefix inconsistent";
+	return NULL;
+}
+
+/* A device row. */
+static int
+dev_row(struct rd *d, const struct csvin_rec *rec)
+{
+	struct wstate_read *r = d->r;
+	struct wear_dev w;
+	const char *why;
+	size_t k, at;
+	int rc;
+	unsigned long long want;
+	char hex[17];
+
+	if (rec->nf != NCOL) {
+		cw_warn_at(rec->src, rec->line, "a state row of %zu fields, "
+		    "not %d: the state is cut short or corrupt", rec->nf,
+		    (int)NCOL);
+		return CW_EXIT_DATA;
+	}
+	for (at = rec->rawlen; at > 0 && rec->raw[at - 1] != ','; at--)
+		;
+	want = (unsigned long long)fnv(rec->raw, at > 0 ? at - 1 : 0);
+	snprintf(hex, sizeof(hex), "%016llx", want);
+	if (at == 0 || rec->len[COL_CHECK] != 16 ||
+	    memcmp(rec->f[COL_CHECK], hex, 16) != 0) {
+		cw_warn_at(rec->src, rec->line, "the check field does not "
+		    "match the row: the state is corrupt");
+		return CW_EXIT_DATA;
+	}
+	if (rec->len[0] == 0) {
+		cw_warn_at(rec->src, rec->line, "a state row without a "
+		    "device");
+		return CW_EXIT_DATA;
+	}
+	if ((rc = settings(d, rec)) != 0)
+		return rc;
+	wear_init(&w, r->conf);
+	w.acc.have = 1;
+	w.have_prev = 1;
+	if (ts_parse(rec->f[1], rec->len[1], TS_ISO, 0, &w.acc.first) < 0 ||
+	    ts_parse(rec->f[2], rec->len[2], TS_ISO, 0, &w.acc.last) < 0) {
+		cw_warn_at(rec->src, rec->line, "bad first or last time: the "
+		    "state is corrupt");
+		return CW_EXIT_DATA;
+	}
+	w.prev_t = w.acc.last;
+	for (k = 0; k < NDEVF; k++)
+		if (get_field(devf[k].kind, rec->f[COL_DEV + k],
+		    rec->len[COL_DEV + k], devf[k].lo, devf[k].hi,
+		    (char *)&w + devf[k].off) < 0) {
+			cw_warn_at(rec->src, rec->line, "bad value '%.40s' in "
+			    "column %s: the state is corrupt",
+			    rec->f[COL_DEV + k], devf[k].name);
+			wear_free(&w);
+			return CW_EXIT_DATA;
+		}
+	why = get_rf(&w, rec->f[COL_RF], rec->len[COL_RF]) < 0 ? "rf_pts" :
+	    get_pre(&w, rec->f[COL_PRE], rec->len[COL_PRE]) < 0 ? "pre_rows" :
+	    NULL;
+	if (why != NULL) {
+		cw_warn_at(rec->src, rec->line, "bad list in column %s: the "
+		    "state is corrupt", why);
+		wear_free(&w);
+		return CW_EXIT_DATA;
+	}
+	if ((why = check_dev(&w, r->conf)) != NULL) {
+		cw_warn_at(rec->src, rec->line, "device %s: %s: the state is "
+		    "corrupt", rec->f[0], why);
+		wear_free(&w);
+		return CW_EXIT_DATA;
+	}
+	d->rows++;
+	r->rows++;
+	return r->dev(r->ctx, rec->src, rec->line, rec->f[0], rec->len[0],
+	    &w);
+}
+
+/* An end row: ",,,TAG,end,N,check". */
+static int
+end_rec(struct rd *d, const struct csvin_rec *rec)
+{
+	unsigned long n;
+	char hex[17];
+	size_t at;
+
+	for (at = rec->rawlen; at > 0 && rec->raw[at - 1] != ','; at--)
+		;
+	snprintf(hex, sizeof(hex), "%016llx", (unsigned long long)fnv(
+	    rec->raw, at > 0 ? at - 1 : 0));
+	if (rec->nf != 7 || rec->len[1] != 0 || rec->len[2] != 0 ||
+	    get_ul(rec->f[5], rec->len[5], &n) < 0 || rec->len[6] != 16 ||
+	    memcmp(rec->f[6], hex, 16) != 0) {
+		cw_warn_at(rec->src, rec->line, "a damaged end row: the state "
+		    "is corrupt");
+		return CW_EXIT_DATA;
+	}
+	d->announced += n;
+	d->r->ends++;
+	d->last_end = 1;
+	return 0;
+}
+
+/* Every record: header, end or device row, told apart by what they hold. */
+static int
+on_rec(void *ctx, const struct csvin_rec *rec)
+{
+	struct rd *d = ctx;
+	const struct buf *h;
+	const char *tag;
+
+	d->last_end = 0;
+	if (d->nrec++ == 0 && !(rec->nf > 0 && strcmp(rec->f[0], "device") ==
+	    0) && !(rec->nf > 0 && rec->len[0] == 0))
+		d->first_data = 1;
+	tag = rec->nf > 3 ? rec->f[3] : "";
+	if (strcmp(tag, WSTATE_TAG) != 0) {
+		if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
+			cw_warn_at(rec->src, rec->line, "a state of format "
+			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
+		else
+			cw_warn_at(rec->src, rec->line, "not a cw-wear state "
+			    "(no %s in column 4)", WSTATE_TAG);
+		return CW_EXIT_DATA;
+	}
+	if (rec->nf > 4 && strcmp(rec->f[0], "device") == 0 &&
+	    strcmp(rec->f[4], "model") == 0) {
+		/* A header; it must be this version's, column for column. */
+		h = header();
+		if (rec->rawlen + 1 != h->n || memcmp(rec->raw, h->s,
+		    rec->rawlen) != 0) {
+			cw_warn_at(rec->src, rec->line, "a state header with "
+			    "other columns than %s has: the state is "
+			    "corrupt", WSTATE_TAG);
+			return CW_EXIT_DATA;
+		}
+		d->r->headers++;
+		return 0;
+	}
+	if (rec->nf > 4 && rec->len[0] == 0 && strcmp(rec->f[4], "end") == 0)
+		return end_rec(d, rec);
+	return dev_row(d, rec);
+}
+
+static int
+on_bad(void *ctx, const struct csvin_rec *rec, const char *why)
+{
+	(void)ctx;
+	cw_warn_at(rec->src, rec->line, "%s: the state is corrupt", why);
+	return CW_EXIT_DATA;
+}
+
+static int
+on_blank(void *ctx, const struct csvin_rec *rec)
+{
+	(void)ctx;
+	cw_warn_at(rec->src, rec->line, "an empty line: the state is corrupt");
+	return CW_EXIT_DATA;
+}
+
+int
+wstate_read(struct wstate_read *r, const char *path, int strict)
+{
+	static const struct csvin_ops ops = { on_rec, on_rec, on_bad,
+	    on_blank };
+	struct csvin *in;
+	struct rd d;
+	const char *name = strcmp(path, "-") == 0 ? "<stdin>" : path;
+	unsigned long rep;
+	int rc;
+
+	memset(&d, 0, sizeof(d));
+	d.r = r;
+	d.path = path;
+	d.strict = strict;
+	in = csvin_new(',', &ops, &d);
+	rc = csvin_file(in, path);
+	rep = csvin_stats(in)->header_repeats;
+	csvin_free(in);
+	if (rc != 0)
+		return rc;
+	if (rep > 0 && d.first_data) {
+		cw_warn("%s: a state row comes more than once", name);
+		return CW_EXIT_DATA;
+	}
+	r->headers += rep;
+	if (!strict)
+		return 0;
+	if (!d.last_end) {
+		cw_warn("%s: no end row at the end: the state is cut short",
+		    name);
+		return CW_EXIT_DATA;
+	}
+	if (d.announced != d.rows) {
+		cw_warn("%s: %lu state rows, but the end rows announce %lu: "
+		    "the state is cut short or rows were lost", name, d.rows,
+		    d.announced);
+		return CW_EXIT_DATA;
+	}
+	return 0;
+}
