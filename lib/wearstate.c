@@ -570,7 +570,7 @@ settings(struct rd *d, const struct csvin_rec *rec)
 	struct wstate_read *r = d->r;
 	struct wear_conf *c = r->conf;
 	const struct model *m;
-	char have[64], want[64];
+	char have[128], want[128];
 	unsigned char v[sizeof(double) > sizeof(cw_time) ? sizeof(double) :
 	    sizeof(cw_time)];
 	size_t k;
@@ -608,12 +608,23 @@ settings(struct rd *d, const struct csvin_rec *rec)
 			continue;
 		}
 		if (!same(s->kind, p, v)) {
-			show(s->kind, v, have, sizeof(have));
-			show(s->kind, p, want, sizeof(want));
+			if (s->bit == WSTATE_SET_LIMITS) {
+				/* All four, as --limits takes them. */
+				snprintf(have, sizeof(have), "%.24s,%.24s,"
+				    "%.24s,%.24s", rec->f[COL_SET + 3],
+				    rec->f[COL_SET + 4], rec->f[COL_SET + 5],
+				    rec->f[COL_SET + 6]);
+				snprintf(want, sizeof(want), "%.15g,%.15g,"
+				    "%.15g,%.15g", c->lim.t[0], c->lim.t[1],
+				    c->lim.t[2], c->lim.t[3]);
+			} else {
+				show(s->kind, v, have, sizeof(have));
+				show(s->kind, p, want, sizeof(want));
+			}
 			cw_warn_at(rec->src, rec->line, "the state was made "
-			    "with %s %s (%s), %s %s", s->opt, have, s->name,
-			    r->adopted ? "an earlier one with" :
-			    "this run asks for", want);
+			    "with %s %s, %s %s", s->opt, have, r->adopted ?
+			    "an earlier one with" : "this run asks for",
+			    want);
 			return CW_EXIT_DATA;
 		}
 	}
@@ -889,6 +900,10 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 		if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
 			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
+		else if (rec->nf <= 3)
+			cw_warn_at(rec->src, rec->line, "a row of %zu fields: "
+			    "a state cut short, or not a cw-wear state",
+			    rec->nf);
 		else
 			cw_warn_at(rec->src, rec->line, "not a cw-wear state "
 			    "(no %s in column 4)", WSTATE_TAG);

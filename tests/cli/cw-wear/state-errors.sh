@@ -1,0 +1,46 @@
+# States that are cut short, damaged, of another version, made with other
+# settings or overlapping are refused (exit 1) and never taken for an
+# empty state; the --state file is left as it was.
+f=testdata/wear-fleet.csv
+d=$TMPDIR_CASE
+cw-wear --state "$d/good.state" "$f" >/dev/null
+cp "$d/good.state" "$d/copy.state"
+# Run cw-wear, show its messages without the scratch folder, its status.
+try() {
+	cw-wear "$@" >/dev/null 2>"$d/err"
+	rc=$?
+	sed "s|$d/||" "$d/err"
+	echo "rc $rc"
+}
+# Cut mid-write, at a line end, and empty.
+head -c 3000 "$d/good.state" >"$d/cut.state"
+try --state "$d/cut.state" "$f"
+head -n 3 "$d/good.state" >"$d/lines.state"
+try --state "$d/lines.state" "$f"
+: >"$d/empty.state"
+try --state "$d/empty.state" "$f"
+cmp "$d/empty.state" /dev/null && echo "empty file left as it was"
+# One digit changed.
+sed '2s/,1,/,2,/' "$d/good.state" >"$d/digit.state"
+try --state "$d/digit.state" "$f"
+# Another version.
+sed 's/cw-wear-state-1/cw-wear-state-2/' "$d/good.state" >"$d/v2.state"
+try --state "$d/v2.state" "$f"
+# Other settings than the state's.
+try --state "$d/copy.state" --hysteresis 2 "$f"
+try --state "$d/copy.state" --max-gap 30m "$f"
+try --state "$d/copy.state" --limits 0,5,45,60 "$f"
+cmp "$d/good.state" "$d/copy.state" && echo "state left as it was"
+# Samples are not states; states are not samples.
+try --merge "$f"
+try "$d/good.state"
+# The same stretch twice.
+cw-wear --state-out "$f" >"$d/all.state"
+try --merge "$d/all.state" "$d/all.state"
+cat "$d/all.state" "$d/all.state" | cw-wear --merge >/dev/null
+echo "rc $?"
+# Usage.
+cw-wear --state - "$f"
+echo "rc $?"
+cw-wear --state "$d/x" -o "$d/x" "$f"
+echo "rc $?"
