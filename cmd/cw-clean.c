@@ -171,7 +171,8 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-clean");
 	clean_conf_default(&c);
-	while ((ch = getopt_long(argc, argv, "c:d:ho:v", longopts, NULL)) !=
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":c:d:ho:v", longopts, NULL)) !=
 	    -1) {
 		switch (ch) {
 		case 'c':
@@ -242,7 +243,7 @@ main(int argc, char *argv[])
 			cw_print_version();
 			break;
 		default:
-			usage(stderr, CW_EXIT_USAGE);
+			opt_getopt_fail(ch, argv);
 		}
 	}
 	argc -= optind;

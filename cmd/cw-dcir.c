@@ -347,16 +347,8 @@ main(int argc, char *argv[])
 			break;
 		case OPT_VERSION:
 			cw_print_version();
-		case ':':
-			if (optopt != 0 && optopt < OPT_ALLOW_NO_SOC)
-				cw_usage_error("option '-%c' needs a value",
-				    optopt);
-			cw_usage_error("option '%s' needs a value",
-			    argv[optind - 1]);
 		default:
-			if (optopt != 0 && optopt < OPT_ALLOW_NO_SOC)
-				cw_usage_error("unknown option '-%c'", optopt);
-			cw_usage_error("unknown option '%s'", argv[optind - 1]);
+			opt_getopt_fail(ch, argv);
 		}
 	}
 	argc -= optind;

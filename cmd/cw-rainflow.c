@@ -341,16 +341,8 @@ main(int argc, char *argv[])
 		case OPT_VERSION:
 			cw_print_version();
 			break;
-		case ':':
-			if (optopt != 0 && optopt < OPT_HISTOGRAM)
-				cw_usage_error("option '-%c' needs a value",
-				    optopt);
-			cw_usage_error("option '%s' needs a value",
-			    argv[optind - 1]);
 		default:
-			if (optopt != 0 && optopt < OPT_HISTOGRAM)
-				cw_usage_error("unknown option '-%c'", optopt);
-			cw_usage_error("unknown option '%s'", argv[optind - 1]);
+			opt_getopt_fail(ch, argv);
 		}
 	}
 	if (nout > 1)

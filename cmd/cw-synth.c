@@ -162,7 +162,8 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-synth");
 	synth_conf_default(&c);
-	while ((ch = getopt_long(argc, argv, "F:S:d:f:hn:o:p:s:vz:", longopts,
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":F:S:d:f:hn:o:p:s:vz:", longopts,
 	    NULL)) != -1) {
 		switch (ch) {
 		case 'F':
@@ -227,7 +228,7 @@ main(int argc, char *argv[])
 		case OPT_VERSION:
 			cw_print_version();
 		default:
-			usage(stderr, CW_EXIT_USAGE);
+			opt_getopt_fail(ch, argv);
 		}
 	}
 	if (optind < argc)

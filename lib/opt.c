@@ -1,4 +1,5 @@
 /* opt.c: validated option values (numbers, temperatures, durations). */
+#include <getopt.h>
 #include <math.h>
 #include <string.h>
 
@@ -148,4 +149,20 @@ opt_list_arg(const char *opt, const char *s, double *out, int n, int temp,
 	if (k != n || q != NULL)
 		cw_usage_error("%s: expected %d comma-separated values, got "
 		    "'%s'", opt, n, s);
+}
+
+void
+opt_getopt_fail(int ch, char *const argv[])
+{
+	const char *arg = optind > 0 ? argv[optind - 1] : "";
+	int shortopt = optopt > 0 && optopt < 256 && strncmp(arg, "--", 2) != 0;
+
+	if (ch == ':') {
+		if (shortopt)
+			cw_usage_error("option '-%c' needs a value", optopt);
+		cw_usage_error("option '%s' needs a value", arg);
+	}
+	if (shortopt)
+		cw_usage_error("unknown option '-%c'", optopt);
+	cw_usage_error("unknown option '%s'", arg);
 }

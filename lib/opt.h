@@ -23,6 +23,12 @@ cw_time	opt_dur_arg(const char *opt, const char *s, int zero_ok);
 void	opt_list_arg(const char *opt, const char *s, double *out, int n,
 	    int temp, int nondecreasing);
 
+/*
+ * After getopt_long() returned ':' or '?' (opterr 0, an option string
+ * that starts with ':'): a usage error naming the option, exit 2.
+ */
+_Noreturn void opt_getopt_fail(int ch, char *const argv[]);
+
 /* Non-exiting forms: 0 or -1. */
 int	opt_temp(const char *s, double *c);
 int	opt_dur(const char *s, cw_time *us);
