@@ -36,6 +36,13 @@ struct dev {
 	struct wear_dev w;
 };
 
+/* A state read back, with where it came from. */
+struct piece {
+	struct wear_dev w;
+	unsigned long line;
+	char src[256];
+};
+
 struct run {
 	struct wear_conf conf;
 	double capacity;	/* Ah, 0 when not given */
@@ -43,6 +50,10 @@ struct run {
 	unsigned long joins;	/* states joined after or before another */
 	unsigned long stale;	/* rows already in a loaded state */
 	unsigned long stale_devs;
+	/* States read for RUN_DEV, not joined yet. */
+	struct dev *run_dev;
+	struct piece *piece;
+	size_t npiece, piececap;
 };
 
 enum {
@@ -79,6 +90,8 @@ static void usage(FILE *);
 static int on_row(void *, void *, const struct cw_sample *);
 static int on_state(void *, const char *, unsigned long, const char *,
     size_t, struct wear_dev *);
+static int piece_cmp(const void *, const void *);
+static int flush(struct run *);
 static int exists(const char *);
 static void write_row(struct csvout *, const struct run *,
     const struct dev *, const struct wear_result *);
@@ -130,8 +143,11 @@ on_row(void *ctx, void *state, const struct cw_sample *s)
 }
 
 /*
- * A device state read back: the device's first, or one to join after
- * (or before) the stretch of time already held, never one overlapping it.
+ * A device state read back.  The states of one device that come one after
+ * the other (a stream sorted or grouped by device, such as a reducer's
+ * input, in which a device's states may come in any time order) are
+ * gathered, then joined in time order when another device comes; each
+ * must be after or before what its device holds, never overlap it.
  */
 static int
 on_state(void *ctx, const char *src, unsigned long line, const char *name,
@@ -139,31 +155,81 @@ on_state(void *ctx, const char *src, unsigned long line, const char *name,
 {
 	struct run *r = ctx;
 	struct dev *d;
-	char t[4][TS_FMTMAX];
+	struct piece *p;
+	int rc;
 
 	d = devtab_get(r->devs, name, len, NULL);
-	if (!d->started) {
-		d->w = *w;
-		d->started = 1;
-	} else if (w->acc.first >= d->w.acc.last) {
-		wear_join(&d->w, w, &r->conf);
-		r->joins++;
-	} else if (w->acc.last <= d->w.acc.first) {
-		wear_join(w, &d->w, &r->conf);
-		d->w = *w;
-		r->joins++;
-	} else {
-		ts_format(w->acc.first, t[0]);
-		ts_format(w->acc.last, t[1]);
-		ts_format(d->w.acc.first, t[2]);
-		ts_format(d->w.acc.last, t[3]);
-		cw_warn_at(src, line, "the state of %s from %s to %s overlaps "
-		    "the one from %s to %s read before it (the same rows "
-		    "twice?)", d->e.name, t[0], t[1], t[2], t[3]);
+	if (d != r->run_dev && (rc = flush(r)) != 0) {
 		wear_free(w);
-		return CW_EXIT_DATA;
+		return rc;
 	}
-	d->e.last_t = d->w.acc.last;
+	r->run_dev = d;
+	if (r->npiece == r->piececap) {
+		r->piececap = r->piececap ? 2 * r->piececap : 16;
+		r->piece = cw_realloc(r->piece, r->piececap *
+		    sizeof(*r->piece));
+	}
+	p = &r->piece[r->npiece++];
+	p->w = *w;
+	p->line = line;
+	snprintf(p->src, sizeof(p->src), "%s", src);
+	return 0;
+}
+
+static int
+piece_cmp(const void *pa, const void *pb)
+{
+	const struct piece *a = pa, *b = pb;
+
+	if (a->w.acc.first != b->w.acc.first)
+		return a->w.acc.first < b->w.acc.first ? -1 : 1;
+	if (a->w.acc.last != b->w.acc.last)
+		return a->w.acc.last < b->w.acc.last ? -1 : 1;
+	return a->line < b->line ? -1 : a->line > b->line;
+}
+
+/* Join the gathered states of R->run_dev into it, in time order. */
+static int
+flush(struct run *r)
+{
+	struct dev *d = r->run_dev;
+	struct wear_dev *w;
+	char t[4][TS_FMTMAX];
+	size_t k;
+
+	if (r->npiece == 0)
+		return 0;
+	qsort(r->piece, r->npiece, sizeof(*r->piece), piece_cmp);
+	for (k = 0; k < r->npiece; k++) {
+		w = &r->piece[k].w;
+		if (!d->started) {
+			d->w = *w;
+			d->started = 1;
+		} else if (w->acc.first >= d->w.acc.last) {
+			wear_join(&d->w, w, &r->conf);
+			r->joins++;
+		} else if (w->acc.last <= d->w.acc.first) {
+			wear_join(w, &d->w, &r->conf);
+			d->w = *w;
+			r->joins++;
+		} else {
+			ts_format(w->acc.first, t[0]);
+			ts_format(w->acc.last, t[1]);
+			ts_format(d->w.acc.first, t[2]);
+			ts_format(d->w.acc.last, t[3]);
+			cw_warn_at(r->piece[k].src, r->piece[k].line, "the "
+			    "state of %s from %s to %s overlaps the one joined "
+			    "so far, from %s to %s: the same rows twice, or a "
+			    "state that falls between two joined before it",
+			    d->e.name, t[0], t[1], t[2], t[3]);
+			for (; k < r->npiece; k++)
+				wear_free(&r->piece[k].w);
+			r->npiece = 0;
+			return CW_EXIT_DATA;
+		}
+		d->e.last_t = d->w.acc.last;
+	}
+	r->npiece = 0;
 	return 0;
 }
 
@@ -408,7 +474,8 @@ main(int argc, char *argv[])
 	rd.dev = on_state;
 	rd.ctx = &r;
 	if (state != NULL && exists(state)) {
-		if ((rc = wstate_read(&rd, state, 1)) != 0)
+		if ((rc = wstate_read(&rd, state, 1)) != 0 ||
+		    (rc = flush(&r)) != 0)
 			exit(rc);
 		/* Samples go on from each state, in order from there. */
 		for (k = 0; !merge && k < devtab_count(r.devs); k++) {
@@ -431,6 +498,8 @@ main(int argc, char *argv[])
 				exit(rc);
 		}
 		if (argc == 0 && (rc = wstate_read(&rd, "-", 0)) != 0)
+			exit(rc);
+		if ((rc = flush(&r)) != 0)
 			exit(rc);
 		if (cw_verbose)
 			cw_warn("%lu state rows read (%lu header, %lu end "
@@ -489,6 +558,7 @@ main(int argc, char *argv[])
 	for (k = 0; k < n; k++)
 		wear_free(&sorted[k]->w);
 	free(sorted);
+	free(r.piece);
 	devtab_free(r.devs);
 	/* The state moves on last, once the report is out. */
 	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))

@@ -39,6 +39,20 @@ cw-wear --state-out "$f" >"$d/all.state"
 try --merge "$d/all.state" "$d/all.state"
 cat "$d/all.state" "$d/all.state" | cw-wear --merge >/dev/null
 echo "rc $?"
+# Out of time order: the last day, the first, then the one between.
+for k in 2 3 4; do
+	awk -F, -v k=$k 'NR == 1 || substr($2, 10, 1) == k' "$f" |
+	    cw-wear --state-out >"$d/d$k.state"
+done
+try --merge "$d/d4.state" "$d/d2.state" "$d/d3.state"
+cw-wear --merge "$d/d2.state" "$d/d3.state" "$d/d4.state" >"$d/ordered.csv"
+cw-wear "$f" | cmp - "$d/ordered.csv" && echo "in time order: one pass"
+cat "$d/d4.state" "$d/d2.state" "$d/d3.state" | sort -t, -k1,1 |
+    cw-wear --merge | cmp - "$d/ordered.csv" && echo "sorted: one pass"
+# Grouped by device but in any time order within it (a stable sort on the
+# device alone, as a reducer may get them): gathered, then joined in order.
+cat "$d/d4.state" "$d/d2.state" "$d/d3.state" | sort -s -t, -k1,1 |
+    cw-wear --merge | cmp - "$d/ordered.csv" && echo "grouped: one pass"
 # Usage.
 cw-wear --state - "$f"
 echo "rc $?"

@@ -25,6 +25,10 @@ awk -F, 'NR == 1 || $1 !~ /^(CART|EB)/' "$f" | cw-wear --state-out \
     >"$d/b.state"
 cw-wear --merge "$d/a.state" "$d/b.state" | cmp - "$d/one.csv" &&
     echo "disjoint devices = one pass"
+# States merged into a --state file, a day at a time.
+cw-wear --merge --state "$d/fleet.state" "$d/day1.state" >/dev/null
+cw-wear --merge --state "$d/fleet.state" "$d/day2.state" |
+    cmp - "$d/one.csv" && echo "merged into --state = one pass"
 # Options that only shape the report apply at the merge.
 cw-wear --cycle-life 500 --capacity 10 "$f" >"$d/rated.csv"
 cw-wear --merge --cycle-life 500 --capacity 10 "$d/both.state" |
