@@ -2,7 +2,8 @@
 # A multi-host run for real: GNU parallel maps the day files of the
 # invented fleet of cw-synth(1) over two ssh logins (cw-node-a and
 # cw-node-b, both this machine through an sshd this test starts on
-# 127.0.0.1 only), each job cw-clean | cw-wear --state-out; the shuffle is
+# 127.0.0.1 only), each job cw-clean then cw-wear --state-out, with the
+# command of README.md ("More than one machine"); the shuffle is
 # sort -t, -k1,1 and the reduce cw-wear --merge.  The reference is the
 # definition (cw-wear(1), "Keeping state"): one pass of cw-wear over every
 # day, which the merged report must equal (the same text, and every number
@@ -115,27 +116,34 @@ done
 echo "sshd on 127.0.0.1:$port (pid $sshd_pid), logins cw-node-a, cw-node-b"
 
 set -e
-cd "$tmp"
-cw-synth -n 6 -d 10 -p 60 -s 5 -o raw
-C="-c time=ts_ms:ms,device=dev_id,voltage=pack_mv:mV,current=pack_ma:mA,temp=temp_dk:dK --charge-negative --cells 10"
+# The folder the jobs share, as /srv/cellwear in README.md.
+home=$tmp/srv
+mkdir -p "$home/map"
+cd "$home"
+cw-synth -n 6 -d 10 -p 60 -s 5 -o inbox
+C='-c time=ts_ms:ms,device=dev_id,voltage=pack_mv:mV,current=pack_ma:mA,temp=temp_dk:dK --charge-negative --cells 10'
 # One pass over every day, the reference.
-for f in raw/*.a.csv.gz; do
+for f in inbox/*.csv.gz; do
 	cw-clean $C --rejects /dev/null "$f"
-done >one-in.csv 2>/dev/null
-awk 'NR == 1 || $0 !~ /^device,/' one-in.csv | cw-wear >one.csv
+done 2>/dev/null | awk 'NR == 1 || $0 !~ /^device,/' | cw-wear >one.csv
 
-# The map on the two logins, one job at a time on each; the hosts share
-# this file system, as cluster nodes often share one, so the jobs read the
-# day files where they are (with disks apart, add --transferfile {}).
-ls "$tmp"/raw/*.a.csv.gz | parallel --ssh "ssh -F $tmp/ssh_config" \
-    -S 1/cw-node-a,1/cw-node-b --env PATH --joblog "$tmp/jobs" \
-    "cw-clean $C --rejects /dev/null {} | cw-wear --state-out" >mapped.csv
-sort -t, -k1,1 mapped.csv | cw-wear --merge >merged.csv
+# The map on the two logins, one job at a time on each, as README.md has
+# it ("More than one machine"), with the test's ssh config and a job log.
+# The hosts share this file system, as cluster nodes often share one, so
+# the jobs read and write the day files where they are.
+ls "$home"/inbox/*.csv.gz |
+    parallel --ssh "ssh -F $tmp/ssh_config" --joblog "$tmp/jobs" \
+    -S 1/cw-node-a,1/cw-node-b --env PATH --halt now,fail=1 \
+    "cw-clean $C --rejects $home/map/{/.}.rejects -o $home/map/{/.} {} && cw-wear --state-out $home/map/{/.}" \
+    >map.state && sort -t, -k1,1 map.state | cw-wear --merge >report.csv
 
 awk -F'\t' 'NR > 1 { n[$2]++; if ($7 != 0) bad++ }
-    END { for (h in n) print "jobs on " h ": " n[h]; exit bad > 0 }' jobs
-[ "$(awk -F'\t' 'NR > 1 { print $2 }' jobs | sort -u | wc -l)" -eq 2 ]
-/usr/bin/python3 - one.csv merged.csv <<'PY'
+    END { for (h in n) print "jobs on " h ": " n[h]; exit bad > 0 }' \
+    "$tmp/jobs"
+[ "$(awk -F'\t' 'NR > 1 { print $2 }' "$tmp/jobs" | sort -u | wc -l)" -eq 2 ]
+[ "$(ls map/*.rejects | wc -l)" -eq 10 ]
+echo "rejects written by the jobs: $(cat map/*.rejects | grep -vc '^source,') lines in 10 files"
+/usr/bin/python3 - one.csv report.csv <<'PY'
 import csv, sys
 
 def load(path):
@@ -159,4 +167,4 @@ print(f"merged from two logins: {len(one)} devices, largest relative "
       f"difference from one pass {w:.3g} (bound 1e-9)")
 assert w <= 1e-9
 PY
-cmp one.csv merged.csv && echo "merged from two logins: the same text as one pass"
+cmp one.csv report.csv && echo "merged from two logins: the same text as one pass"

@@ -735,6 +735,27 @@ test_damage(void **st)
 	unlink(TMP);
 }
 
+/*
+ * The state format lists the fields of these structs one by one
+ * (lib/wearstate.c, devf[]).  Should one of them change, this fails:
+ * add the new field to the state (and raise WSTATE_TAG's version if old
+ * states can no longer be read), then the size here.  Sizes for x86-64.
+ */
+static void
+test_state_covers(void **st)
+{
+	(void)st;
+	if (sizeof(void *) != 8)
+		skip();
+	assert_int_equal(sizeof(struct wear_acc), 328);
+	assert_int_equal(sizeof(struct rf_state), 136);
+	assert_int_equal(sizeof(struct topoff), 304);
+	assert_int_equal(sizeof(struct topoff_hold), 80);
+	assert_int_equal(sizeof(struct model_eval), 32);
+	assert_int_equal(sizeof(struct wear_run), 48);
+	assert_int_equal(sizeof(struct wear_dev), 1040);
+}
+
 int
 main(void)
 {
@@ -745,6 +766,7 @@ main(void)
 		cmocka_unit_test(test_prefix_lost),
 		cmocka_unit_test(test_round_trip),
 		cmocka_unit_test(test_damage),
+		cmocka_unit_test(test_state_covers),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
