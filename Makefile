@@ -61,6 +61,10 @@ check: deps
 bench: all
 	scripts/bench.sh
 
+# make demo: an invented fleet through every tool, plots and a report.
+demo: all
+	@DEMO_NOBUILD=1 scripts/demo.sh
+
 lint:
 	mandoc -Tlint -Wwarning $(MAN)
 
@@ -78,5 +82,5 @@ clean:
 
 FORCE:
 
-.PHONY: all bench deps tests check lint install uninstall clean FORCE
+.PHONY: all bench demo deps tests check lint install uninstall clean FORCE
 .SECONDARY: $(LIBOBJ)
