@@ -22,26 +22,31 @@
 #    so (F - 32) * 5/9 = dK / 10 - 273.15 exactly (SI Brochure, 9th ed.,
 #    for the kelvin and Celsius; the Fahrenheit relation from NIST SP 811
 #    appendix B.8), within the 10 significant digits the stream keeps;
-#  - the current sentinel of format a, -32768 mA, reads as +32.768 A after
-#    --charge-negative and lies inside the default current bounds of
-#    cw-clean (-1000..1000 A): without --bounds current it passes, so the
-#    a stream then has exactly that many rows more than the b stream (b
-#    writes -32768 A, out of range).  This documents why the demo gives
-#    --bounds current=-30:30 (the packs never carry more than 14 A).
+#  - the current sentinel of format a, -32768 mA, would read as +32.768 A
+#    after --charge-negative, inside the default current bounds of
+#    cw-clean (-1000..1000 A); cw-clean's default --sentinel list rejects
+#    it by its raw value, and with --sentinel none it passes, so the a
+#    stream then has exactly that many rows more than the b stream (b
+#    writes -32768 A, out of range).  The byte-for-byte comparison of the
+#    two formats runs with --sentinel none, since a genuine reading of
+#    exactly 65535 mV or -32768 mA in format a is a sentinel by its raw
+#    value while the same reading in format b (V, A) is not.
 set -eu
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
-cw-synth -n 8 -d 3 -s 21 -f both -o "$tmp/in" \
-    -F default,dup=0.002,late=0.001,stale=0.0005,trunc=0.0005,sentinel=0.001,gap=1,jump=0.5,header=2
+F=default,dup=0.002,late=0.001,stale=0.0005,trunc=0.0005
+F=$F,sentinel=0.001,gap=1,jump=0.5,header=2
+cw-synth -n 8 -d 3 -s 21 -f both -F "$F" -o "$tmp/in"
 A="--charge-negative --cells 10"
 B="-d ; --decimal-comma --cells 10"
-cw-clean -v $A --bounds current=-30:30 --rejects "$tmp/ra.csv" \
+cw-clean -v $A --bounds current=-30:30 --sentinel none --rejects "$tmp/ra.csv" \
     "$tmp"/in/*.a.csv.gz >"$tmp/a.csv" 2>"$tmp/a.log"
-cw-clean -v $B --bounds current=-30:30 --rejects "$tmp/rb.csv" \
+cw-clean -v $B --bounds current=-30:30 --sentinel none --rejects "$tmp/rb.csv" \
     "$tmp"/in/*.b.csv.gz >"$tmp/b.csv" 2>"$tmp/b.log"
 cmp "$tmp/a.csv" "$tmp/b.csv"
-cw-clean $A "$tmp"/in/*.a.csv.gz >"$tmp/a0.csv"
-cw-clean $B "$tmp"/in/*.b.csv.gz >"$tmp/b0.csv"
+cw-clean $A --sentinel none "$tmp"/in/*.a.csv.gz >"$tmp/a0.csv"
+cw-clean $B --sentinel none "$tmp"/in/*.b.csv.gz >"$tmp/b0.csv"
+cw-clean $A "$tmp"/in/*.a.csv.gz >"$tmp/a1.csv"
 /usr/bin/python3 - "$tmp" <<'PY'
 import csv, os, re, sys
 from collections import Counter
@@ -116,8 +121,11 @@ cur = sum(1 for r in faults if r['fault'] == 'sentinel' and
 check(cur > 0, 'no current sentinel injected')
 a0 = sum(1 for _ in open(os.path.join(d, 'a0.csv')))
 b0 = sum(1 for _ in open(os.path.join(d, 'b0.csv')))
-check(a0 - b0 == cur, 'default bounds: a has %d rows more than b, %d '
-      'current sentinels' % (a0 - b0, cur))
+check(a0 - b0 == cur, 'default bounds, --sentinel none: a has %d rows '
+      'more than b, %d current sentinels' % (a0 - b0, cur))
+# With the default --sentinel list no +32.768 A row is left in a.
+a1 = [l for l in open(os.path.join(d, 'a1.csv')) if ',32.768,' in l]
+check(not a1, 'default --sentinel: %d rows of +32.768 A left' % len(a1))
 print('truth:', dict(tot), 'headers', headers, 'current sentinels', cur)
 for f in fails[:20]:
     print('FAIL', f)

@@ -106,7 +106,8 @@ for dv, evs in tool.items():
             kinds['only shallow re-starts'] += 1
         else:
             kinds['re-start'] += 1
-quiet = kinds['re-start'] + kinds['no re-start'] + kinds['only shallow re-starts']
+quiet = (kinds['re-start'] + kinds['no re-start'] +
+         kinds['only shallow re-starts'])
 check(kinds['re-start'] >= 0.97 * quiet, 'precision: %s' % dict(kinds))
 check(kinds['only shallow re-starts'] == 0, 'shallow: %s' % dict(kinds))
 check(not used or max(used.values()) == 1, 're-starts counted twice: %d'

@@ -31,13 +31,13 @@
 #    day between re-anchorings (3 mA of 14 Ah for 24 h: 1.0) and half a
 #    step, so 95 +- 2 on whole-percent gauges, +- 1.5 on the others;
 #  - dominant, the packs rated as their data sheet would (--cycle-life
-#    500, as in the demo): cold-charge exactly for the packs that took at least 2 %
-#    of their charge below 10 C by the truth (SPEC.md's rule applied to
-#    the truth, whose shares are 0 or above 80 % here).  And the scenario's
-#    intent in summer, the model's verdict rather than a truth (the truth
-#    has no dominant column): the deep-depot packs, cycled deep daily and
-#    stored indoors, are cycling; every pack left on a dock in the sun,
-#    near full, is heat or high-soc.
+#    500, as in the demo): cold-charge exactly for the packs that took at
+#    least 2 % of their charge below 10 C by the truth (SPEC.md's rule
+#    applied to the truth, whose shares are 0 or above 80 % here).  And
+#    the scenario's intent in summer, the model's verdict rather than a
+#    truth (the truth has no dominant column): the deep-depot packs,
+#    cycled deep daily and stored indoors, are cycling; every pack left
+#    on a dock in the sun, near full, is heat or high-soc.
 set -eu
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
