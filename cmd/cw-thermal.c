@@ -13,7 +13,6 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
-#include "num.h"
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
@@ -45,7 +44,6 @@ enum {
 };
 
 static void	usage(FILE *fp);
-static double	temp_diff_arg(const char *opt, const char *s);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
@@ -64,29 +62,6 @@ usage(FILE *fp)
 	    "                  [--min-duration DUR] [-o FILE] "
 	    "[--use-limits LO,HI]\n"
 	    "                  [--version] [FILE ...]\n");
-}
-
-/*
- * A temperature difference: a number with an optional unit, C or K (the
- * same step) or F (5/9 of it).  Not an absolute temperature, so 1F is
- * 0.556 C, not -17.2 C.
- */
-static double
-temp_diff_arg(const char *opt, const char *s)
-{
-	size_t n = strlen(s);
-	double x, mul = 1.0;
-
-	if (n > 0 && strchr("CcKk", s[n - 1]) != NULL)
-		n--;
-	else if (n > 0 && (s[n - 1] == 'F' || s[n - 1] == 'f')) {
-		mul = 5.0 / 9.0;
-		n--;
-	}
-	if (num_parse(s, n, '.', &x) != NUM_OK || x < 0 || x * mul > 50)
-		cw_usage_error("%s: '%s' is not a temperature difference "
-		    "within 0..50 C (e.g. 0.5, 0.5C, 1F)", opt, s);
-	return x * mul;
 }
 
 static int
@@ -238,7 +213,8 @@ main(int argc, char *argv[])
 			cw_verbose = 1;
 			break;
 		case OPT_HYST:
-			t.conf.lim.hyst = temp_diff_arg("--hysteresis", optarg);
+			t.conf.lim.hyst = opt_tempdiff_arg("--hysteresis",
+			    optarg);
 			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, t.conf.lim.t, 4, 1, 1);
@@ -270,7 +246,6 @@ main(int argc, char *argv[])
 	}
 	argc -= optind;
 	argv += optind;
-	thermal_limits_snap(&t.conf.lim);
 
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);

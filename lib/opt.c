@@ -79,6 +79,36 @@ opt_temp_arg(const char *opt, const char *s)
 }
 
 int
+opt_tempdiff(const char *s, double *c)
+{
+	size_t n = strlen(s);
+	double x, mul = 1.0;
+
+	if (n > 0 && strchr("CcKk", s[n - 1]) != NULL)
+		n--;
+	else if (n > 0 && (s[n - 1] == 'F' || s[n - 1] == 'f')) {
+		mul = 5.0 / 9.0;
+		n--;
+	}
+	if (num_parse(s, n, '.', &x) != NUM_OK || x < 0 || x * mul > 50)
+		return -1;
+	/* Rounded as opt_temp() rounds: 0.9F is 0.5 C exactly. */
+	*c = round(x * mul * 1e9) / 1e9;
+	return 0;
+}
+
+double
+opt_tempdiff_arg(const char *opt, const char *s)
+{
+	double c;
+
+	if (opt_tempdiff(s, &c) < 0)
+		cw_usage_error("%s: '%s' is not a temperature difference "
+		    "within 0..50 C (e.g. 0.5, 0.5C, 1F)", opt, s);
+	return c;
+}
+
+int
 opt_dur(const char *s, cw_time *us)
 {
 	size_t n = strlen(s);

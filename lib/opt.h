@@ -13,6 +13,13 @@ double	opt_num_arg(const char *opt, const char *s, double lo, double hi);
 long	opt_long_arg(const char *opt, const char *s, long lo, long hi);
 /* A temperature with an optional unit suffix C, F or K; degrees Celsius. */
 double	opt_temp_arg(const char *opt, const char *s);
+/*
+ * A temperature difference within 0..50 C, with an optional unit suffix:
+ * C and K count the same step, F counts 5/9 of it (so 0.9F is 0.5 C, and
+ * 1F is 0.556 C, not -17.2 C as an absolute temperature would be).
+ * Rounded to 1e-9 C, as opt_temp() rounds.
+ */
+double	opt_tempdiff_arg(const char *opt, const char *s);
 /* A duration: 90, 90s, 15m, 2h, 1d (fraction allowed), > 0 unless ZERO_OK. */
 cw_time	opt_dur_arg(const char *opt, const char *s, int zero_ok);
 /*
@@ -31,6 +38,7 @@ _Noreturn void opt_getopt_fail(int ch, char *const argv[]);
 
 /* Non-exiting forms: 0 or -1. */
 int	opt_temp(const char *s, double *c);
+int	opt_tempdiff(const char *s, double *c);
 int	opt_dur(const char *s, cw_time *us);
 
 #endif

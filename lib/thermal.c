@@ -8,7 +8,6 @@
 #include "charge.h"
 #include "thermal.h"
 
-static double	snap(double c);
 static int	active(const struct thermal_conf *c, int kind, double i_a);
 static int	out_side(const struct thermal_conf *c, int kind, int side,
 		    double temp_c);
@@ -39,24 +38,6 @@ thermal_limits_default(struct thermal_limits *l)
 	l->use_lo = THERMAL_USE_LO;
 	l->use_hi = THERMAL_USE_HI;
 	l->hyst = THERMAL_HYST;
-}
-
-static double
-snap(double c)
-{
-	return round(c * 1e9) / 1e9;
-}
-
-void
-thermal_limits_snap(struct thermal_limits *l)
-{
-	int k;
-
-	for (k = 0; k < 4; k++)
-		l->t[k] = snap(l->t[k]);
-	l->use_lo = snap(l->use_lo);
-	l->use_hi = snap(l->use_hi);
-	l->hyst = snap(l->hyst);
 }
 
 int

@@ -49,7 +49,10 @@ enum thermal_zone {
 /*
  * T: T1..T4 (nondecreasing; opt_list_arg(opt, s, l->t, 4, 1, 1) parses
  * the --limits form).  USE_LO, USE_HI: the window for discharge.  HYST:
- * how far back inside a window a run must come to end an event (>= 0).
+ * how far back inside a window a run must come to end an event (>= 0;
+ * opt_tempdiff_arg() parses it).  Both parsers round to 1e-9 C, so a
+ * limit given in F or K sits exactly on its decimal value in C (26.6F is
+ * -3, not -2.999999999999999) and tools sharing --limits agree.
  */
 struct thermal_limits {
 	double t[4];
@@ -58,13 +61,6 @@ struct thermal_limits {
 };
 
 void	thermal_limits_default(struct thermal_limits *l);
-/*
- * Round T1..T4, use_lo, use_hi and hyst to 1e-9 C, so that a limit given
- * in F or K (converted in binary floating point) sits exactly on its
- * decimal value in C: 26.6F gives -3, not -2.999999999999999.  Call it
- * after parsing the options, so that tools sharing --limits agree.
- */
-void	thermal_limits_snap(struct thermal_limits *l);
 /* The zone of TEMP_C, an enum thermal_zone; THERMAL_NORMAL for NaN. */
 int	thermal_zone_of(const struct thermal_limits *l, double temp_c);
 /* "below-min", "cool", "normal", "warm", "above-max"; "?" otherwise. */

@@ -28,7 +28,8 @@
 
 /* What the child should call. */
 struct call {
-	int what;	/* 'n' num, 'l' long, 't' temp, 'd' dur, 'L' list */
+	int what;	/* 'n' num, 'l' long, 't' temp, 'D' temperature
+			   difference, 'd' dur, 'L' list */
 	const char *s;
 	double lo, hi;
 	int n, temp, nondec, zero_ok;
@@ -77,6 +78,9 @@ in_child(const struct call *c, char *err, size_t errsz)
 			break;
 		case 't':
 			opt_temp_arg("--x", c->s);
+			break;
+		case 'D':
+			opt_tempdiff_arg("--x", c->s);
 			break;
 		case 'd':
 			opt_dur_arg("--x", c->s, c->zero_ok);
@@ -173,6 +177,60 @@ test_temp(void **st)
 	assert_true(c == 99);
 }
 
+/*
+ * Temperature differences: a kelvin is a degree Celsius (SI Brochure
+ * 2.3.1: the degree Celsius is equal in magnitude to the kelvin), a
+ * degree Fahrenheit is 1/1.8 of one (NIST SP 811 B.9).  No offset: a
+ * difference of 1F is 0.556 C, not the -17.2 C of the temperature 1F.
+ */
+static void
+test_tempdiff(void **st)
+{
+	double c = 0;
+
+	(void)st;
+	assert_int_equal(opt_tempdiff("0.5", &c), 0);
+	assert_true(c == 0.5);
+	assert_int_equal(opt_tempdiff("0.5C", &c), 0);
+	assert_true(c == 0.5);
+	assert_int_equal(opt_tempdiff("1K", &c), 0);
+	assert_true(c == 1);
+	assert_int_equal(opt_tempdiff("1k", &c), 0);
+	assert_true(c == 1);
+	assert_int_equal(opt_tempdiff("0", &c), 0);
+	assert_true(c == 0);
+	assert_int_equal(opt_tempdiff("0.9F", &c), 0);
+	assert_true(c == 0.5);
+	/* 2.7 / 1.8 = 1.5 and 5.4 / 1.8 = 3 exactly after the 1e-9
+	 * rounding, which binary arithmetic alone misses by one unit in the
+	 * last place. */
+	assert_true(2.7 * (5.0 / 9.0) != 1.5);
+	assert_int_equal(opt_tempdiff("2.7F", &c), 0);
+	assert_true(c == 1.5);
+	assert_true(5.4 * (5.0 / 9.0) != 3);
+	assert_int_equal(opt_tempdiff("5.4F", &c), 0);
+	assert_true(c == 3);
+	/* 1 / 1.8 = 0.5555..., to the nearest 1e-9. */
+	assert_int_equal(opt_tempdiff("1f", &c), 0);
+	assert_true(fabs(c - 1 / 1.8) <= 0.5e-9);
+	assert_int_equal(opt_tempdiff("90F", &c), 0);
+	assert_true(c == 50);
+	assert_int_equal(opt_tempdiff("50", &c), 0);
+	assert_true(c == 50);
+	/* Negative, over 50 C, malformed. */
+	c = 99;
+	assert_int_equal(opt_tempdiff("-1", &c), -1);
+	assert_int_equal(opt_tempdiff("50.1", &c), -1);
+	assert_int_equal(opt_tempdiff("91F", &c), -1);
+	assert_int_equal(opt_tempdiff("", &c), -1);
+	assert_int_equal(opt_tempdiff("F", &c), -1);
+	assert_int_equal(opt_tempdiff("1Q", &c), -1);
+	assert_int_equal(opt_tempdiff("1KK", &c), -1);
+	assert_int_equal(opt_tempdiff("nan", &c), -1);
+	assert_int_equal(opt_tempdiff("infK", &c), -1);
+	assert_true(c == 99);
+}
+
 static void
 test_dur(void **st)
 {
@@ -232,6 +290,7 @@ test_args_ok(void **st)
 	assert_int_equal(opt_long_arg("--x", "42", 1, 100), 42);
 	assert_int_equal(opt_long_arg("--x", "-3", -5, 5), -3);
 	near(opt_temp_arg("--x", "50F"), 10);
+	assert_true(opt_tempdiff_arg("--x", "0.9F") == 0.5);
 	assert_int_equal(opt_dur_arg("--x", "2h", 0), 7200 * CW_US_PER_S);
 	assert_int_equal(opt_dur_arg("--x", "0", 1), 0);
 	opt_list_arg("--x", "0,10,45,60", v, 4, 1, 1);
@@ -307,6 +366,14 @@ test_args_bad(void **st)
 	usage_error(&c, "'-5K' is not a temperature (e.g. 10, 10C, 50F, "
 	    "283.15K)");
 
+	c.what = 'D';
+	c.s = "-1";
+	usage_error(&c, "'-1' is not a temperature difference within 0..50 C "
+	    "(e.g. 0.5, 0.5C, 1F)");
+	c.s = "1Q";
+	usage_error(&c, "'1Q' is not a temperature difference within 0..50 C "
+	    "(e.g. 0.5, 0.5C, 1F)");
+
 	c.what = 'd';
 	c.s = "1w";
 	usage_error(&c, "'1w' is not a duration (e.g. 90, 90s, 15m, 2h, 1d)");
@@ -345,6 +412,7 @@ main(void)
 {
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_temp),
+		cmocka_unit_test(test_tempdiff),
 		cmocka_unit_test(test_dur),
 		cmocka_unit_test(test_args_ok),
 		cmocka_unit_test(test_args_bad),

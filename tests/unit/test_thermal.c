@@ -19,6 +19,7 @@
 #include <stdint.h>
 #include <cmocka.h>
 
+#include "opt.h"
 #include "thermal.h"
 
 #define S CW_US_PER_S
@@ -106,23 +107,23 @@ test_zones_and_boundaries(void **st)
 }
 
 /*
- * Limits converted from F land on their decimal value in C after
- * thermal_limits_snap(): C = (F - 32) * 5 / 9 (definition of the scale),
- * so 26.6F = -3C and 30.2F = -1C exactly, which plain binary arithmetic
- * misses by one unit in the last place.
+ * Limits given in F land on their decimal value in C as the option
+ * parsers leave them (opt.h: rounded to 1e-9 C), as cw-thermal and
+ * cw-wear parse --limits and --hysteresis: C = (F - 32) * 5 / 9
+ * (definition of the scale), so 26.6F = -3C and 30.2F = -1C exactly,
+ * which plain binary arithmetic misses by one unit in the last place; a
+ * difference of 0.9F is 0.5 C.
  */
 static void
-test_snap(void **st)
+test_limits_in_f(void **st)
 {
 	struct thermal_limits l;
 
 	(void)st;
 	thermal_limits_default(&l);
-	l.t[0] = (26.6 - 32.0) * 5.0 / 9.0;
-	l.t[1] = (30.2 - 32.0) * 5.0 / 9.0;
-	l.hyst = 0.9 * 5.0 / 9.0;
-	assert_true(l.t[0] != -3.0);	/* the binary result is off */
-	thermal_limits_snap(&l);
+	assert_true((26.6 - 32.0) * 5.0 / 9.0 != -3.0);	/* binary is off */
+	opt_list_arg("--limits", "26.6F,30.2F,45,60", l.t, 4, 1, 1);
+	l.hyst = opt_tempdiff_arg("--hysteresis", "0.9F");
 	assert_true(l.t[0] == -3.0);
 	assert_true(l.t[1] == -1.0);
 	assert_true(l.t[2] == 45.0 && l.t[3] == 60.0);
@@ -560,7 +561,7 @@ main(void)
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_zones_and_boundaries),
 		cmocka_unit_test(test_equal_thresholds),
-		cmocka_unit_test(test_snap),
+		cmocka_unit_test(test_limits_in_f),
 		cmocka_unit_test(test_cold_charge_ah),
 		cmocka_unit_test(test_warm_charge_uneven),
 		cmocka_unit_test(test_exactly_at_threshold),
