@@ -321,13 +321,7 @@ main(int argc, char *argv[])
 			nout++;
 			break;
 		case OPT_RESIDUE:
-			if (strcmp(optarg, "half") == 0)
-				r.residue = RF_RESIDUE_HALF;
-			else if (strcmp(optarg, "full") == 0)
-				r.residue = RF_RESIDUE_FULL;
-			else if (strcmp(optarg, "repeat") == 0)
-				r.residue = RF_RESIDUE_REPEAT;
-			else
+			if ((r.residue = rf_residue_parse(optarg)) < 0)
 				cw_usage_error("--residue: '%s' is not half, "
 				    "full or repeat", optarg);
 			break;

@@ -442,6 +442,18 @@ rf_sum_add(struct rf_sum *m, const struct rf_cycle *c)
 		m->full++;
 }
 
+int
+rf_residue_parse(const char *s)
+{
+	if (strcmp(s, "half") == 0)
+		return RF_RESIDUE_HALF;
+	if (strcmp(s, "full") == 0)
+		return RF_RESIDUE_FULL;
+	if (strcmp(s, "repeat") == 0)
+		return RF_RESIDUE_REPEAT;
+	return -1;
+}
+
 double
 rf_sum_mean_range(const struct rf_sum *m)
 {

@@ -70,6 +70,12 @@ enum {
 				   closes, the largest last */
 };
 
+/*
+ * The RF_RESIDUE_* value named by S ("half", "full" or "repeat", the
+ * --residue option's words), or -1 for anything else.
+ */
+int	rf_residue_parse(const char *s);
+
 typedef void rf_emit_fn(void *ctx, const struct rf_cycle *c);
 
 /*

@@ -329,6 +329,33 @@ test_residue_modes(void **st)
 }
 
 /*
+ * The --residue words: half, full and repeat, exactly (SPEC.md and
+ * cw-rainflow(1)); "half" counts ASTM E1049-85 Fig. 6 as the standard
+ * does, with ranges 3, 4, 6, 8, 9 at 0.5, 1.5, 0.5, 1.0, 0.5 cycles.
+ */
+static void
+test_residue_parse(void **st)
+{
+	static const char *const bad[] = {
+		"", "Half", "HALF", "halves", "hal", "full ", " full",
+		"repeat\n", "0", "1", "2", "none"
+	};
+	size_t i;
+
+	(void)st;
+	assert_int_equal(rf_residue_parse("half"), RF_RESIDUE_HALF);
+	assert_int_equal(rf_residue_parse("full"), RF_RESIDUE_FULL);
+	assert_int_equal(rf_residue_parse("repeat"), RF_RESIDUE_REPEAT);
+	for (i = 0; i < sizeof(bad) / sizeof(bad[0]); i++)
+		assert_int_equal(rf_residue_parse(bad[i]), -1);
+	run(fig6, NFIG6, 1, rf_residue_parse("half"));
+	assert_true(cycles_of(3) == 0.5 && cycles_of(4) == 1.5 &&
+	    cycles_of(6) == 0.5 && cycles_of(8) == 1.0 &&
+	    cycles_of(9) == 0.5);
+	assert_true(total() == 4.0);
+}
+
+/*
  * Equal start-side half cycles: 100, 20, 100, 20, 100.  Section 5.4.4
  * counts four half cycles of 80 (steps 5, 5, 5, 6), two cycles in all.
  * Here the first two, 100-20 and 20-100 with mean 60 both, are one full
@@ -533,6 +560,7 @@ main(void)
 		cmocka_unit_test(test_plateau),
 		cmocka_unit_test(test_hysteresis),
 		cmocka_unit_test(test_residue_modes),
+		cmocka_unit_test(test_residue_parse),
 		cmocka_unit_test(test_equal_halves),
 		cmocka_unit_test(test_aux),
 		cmocka_unit_test(test_nan_and_reuse),
