@@ -16,7 +16,8 @@
 enum {
 	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_DECIMAL_COMMA,
 	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_MAX_GAP, OPT_MAX_REJECT,
-	OPT_REJECTS, OPT_REORDER, OPT_SOC_FROM_CHARGE, OPT_STEP, OPT_TZ,
+	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SOC_FROM_CHARGE, OPT_STEP,
+	OPT_TZ,
 	OPT_VERSION
 };
 
@@ -35,6 +36,7 @@ static const struct option longopts[] = {
 	{ "output", required_argument, NULL, 'o' },
 	{ "rejects", required_argument, NULL, OPT_REJECTS },
 	{ "reorder", required_argument, NULL, OPT_REORDER },
+	{ "sentinel", required_argument, NULL, OPT_SENTINEL },
 	{ "soc-from-charge", required_argument, NULL, OPT_SOC_FROM_CHARGE },
 	{ "step", required_argument, NULL, OPT_STEP },
 	{ "tz", required_argument, NULL, OPT_TZ },
@@ -46,6 +48,7 @@ static const struct option longopts[] = {
 static void usage(FILE *, int);
 static void bounds_arg(struct clean_conf *, const char *, int *);
 static char delim_arg(const char *);
+static void sentinel_arg(struct clean_conf *, const char *);
 static void report(const struct clean_stats *);
 
 static void
@@ -56,7 +59,7 @@ usage(FILE *fp, int status)
 "                [--cells n] [--charge-negative] [--decimal-comma]\n"
 "                [--device name | @file] [--full-voltage volts]\n"
 "                [--max-gap duration] [--max-reject fraction]\n"
-"                [--rejects file] [--reorder duration]\n"
+"                [--rejects file] [--reorder duration] [--sentinel list]\n"
 "                [--soc-from-charge ah] [--step duration] [--tz +hh:mm]\n"
 "                [file ...]\n"
 "\n"
@@ -78,6 +81,8 @@ usage(FILE *fp, int status)
 "      --cells n           series cells per pack (voltage bounds 1.5..5.0 V per cell)\n"
 "      --bounds f=lo:hi    plausible range of voltage, current, temp or soc\n"
 "      --reorder duration  put back rows late by up to this (default 60s)\n"
+"      --sentinel list     raw values meaning no reading, rejected as\n"
+"                          out-of-range (default -32768,65535; or none)\n"
 "      --step duration     resample each device onto this grid\n"
 "      --max-gap duration  never interpolate across a longer gap (default 15m)\n"
 "      --soc-from-charge ah  derive SoC by coulomb counting for a pack of ah\n"
@@ -102,6 +107,30 @@ delim_arg(const char *s)
 		cw_usage_error("--delimiter: '%s' is not a single delimiter "
 		    "character", s);
 	return s[0];
+}
+
+/* --sentinel v,v,... or none. */
+static void
+sentinel_arg(struct clean_conf *c, const char *s)
+{
+	char buf[256], *p, *q;
+
+	c->nsentinel = 0;
+	if (strcmp(s, "none") == 0)
+		return;
+	if (strlen(s) >= sizeof(buf))
+		cw_usage_error("--sentinel: value too long");
+	strcpy(buf, s);
+	for (p = buf; p != NULL; p = q) {
+		q = strchr(p, ',');
+		if (q != NULL)
+			*q++ = '\0';
+		if (c->nsentinel == (int)(sizeof(c->sentinel) /
+		    sizeof(c->sentinel[0])))
+			cw_usage_error("--sentinel: at most 8 values");
+		c->sentinel[c->nsentinel++] = opt_num_arg("--sentinel", p,
+		    -1e300, 1e300);
+	}
 }
 
 /* --bounds field=lo:hi; SET marks the fields given. */
@@ -226,6 +255,9 @@ main(int argc, char *argv[])
 			break;
 		case OPT_REORDER:
 			c.reorder = opt_dur_arg("--reorder", optarg, 1);
+			break;
+		case OPT_SENTINEL:
+			sentinel_arg(&c, optarg);
 			break;
 		case OPT_SOC_FROM_CHARGE:
 			c.soc_ah = opt_num_arg("--soc-from-charge", optarg,

@@ -67,6 +67,10 @@ clean_conf_default(struct clean_conf *c)
 	c->hi[CM_TEMP] = 100;
 	c->lo[CM_SOC] = 0;
 	c->hi[CM_SOC] = 100;
+	/* The markers 16-bit gauge registers use for "no reading". */
+	c->sentinel[0] = -32768;
+	c->sentinel[1] = 65535;
+	c->nsentinel = 2;
 	c->reorder = 60 * CW_US_PER_S;
 	c->max_gap = 15 * 60 * CW_US_PER_S;
 }
@@ -147,11 +151,14 @@ on_header(void *ctx, const struct csvin_rec *h)
 	return 0;
 }
 
-/* Field F of REC as a number in canonical units; -1 empty, -2 bad. */
+/*
+ * Field F of REC as a number in canonical units; -1 empty, -2 bad, -3 a
+ * sentinel (compared before conversion: -32768 mA, not -32.768 A).
+ */
 static int
 field_num(struct run *r, const struct csvin_rec *rec, int f, double *x)
 {
-	int i = r->map.col[f], rc;
+	int i = r->map.col[f], rc, k;
 	size_t n;
 
 	if (i < 0 || rec->len[i] == 0)
@@ -164,6 +171,9 @@ field_num(struct run *r, const struct csvin_rec *rec, int f, double *x)
 		return -1;
 	if (rc != NUM_OK)
 		return -2;
+	for (k = 0; k < r->c->nsentinel; k++)
+		if (*x == r->c->sentinel[k])
+			return -3;
 	switch (r->map.unit[f]) {
 	case CMU_MV:
 	case CMU_MA:
@@ -274,6 +284,8 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		rc = field_num(r, rec, f, &x[f]);
 		if (rc == -2)
 			return reject(r, rec, CR_BADNUM);
+		if (rc == -3)
+			return reject(r, rec, CR_RANGE);
 		if (rc == -1) {
 			if (f == CM_VOLTAGE || f == CM_CURRENT)
 				return reject(r, rec, CR_MISSING);

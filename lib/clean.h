@@ -32,6 +32,8 @@ struct clean_conf {
 	long tz_s;		/* offset of zone-less local times */
 	double lo[CM_NFIELD], hi[CM_NFIELD];	/* bounds, canonical units */
 	cw_time reorder, step, max_gap;	/* step 0: no resampling */
+	double sentinel[8];	/* raw values that mean "no reading" */
+	int nsentinel;
 	double soc_ah;		/* --soc-from-charge, 0 when off */
 	double full_v;		/* full-charge voltage */
 };
