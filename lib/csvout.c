@@ -1,8 +1,9 @@
 /*
  * csvout.c: the CSV writer.  Rows are assembled in a private buffer and
- * handed to stdio in large blocks.  Numbers are formatted here, not by
- * printf: scaled to an integer of at most 10 significant digits, then
- * written with the decimal point put back and trailing zeros dropped.
+ * handed to stdio in large blocks.  Numbers from 1e-6 to 1e15 are
+ * formatted here, not by printf: scaled to an integer of at most 10
+ * significant digits, then written with the decimal point put back and
+ * trailing zeros dropped; the rare others go through snprintf("%.10g").
  */
 #include <math.h>
 #include <stdio.h>
@@ -279,4 +280,34 @@ csvout_time(struct csvout *w, cw_time t)
 	sep(w);
 	reserve(w, TS_FMTMAX);
 	w->n += ts_format(t, w->buf + w->n);
+}
+
+void
+csvout_date(struct csvout *w, cw_time t)
+{
+	const cw_time day = 86400 * CW_US_PER_S;
+	long days = (long)(t / day), y;
+	unsigned m, d;
+	char *p;
+
+	/* Whole days before T: rounded down, so -1 us is 1969-12-31. */
+	if (t % day < 0)
+		days--;
+	ts_civil_from_days(days, &y, &m, &d);
+	sep(w);
+	if (y < 0 || y > 9999)
+		return;
+	reserve(w, 10);
+	p = w->buf + w->n;
+	p[0] = (char)('0' + y / 1000);
+	p[1] = (char)('0' + y / 100 % 10);
+	p[2] = (char)('0' + y / 10 % 10);
+	p[3] = (char)('0' + y % 10);
+	p[4] = '-';
+	p[5] = (char)('0' + m / 10);
+	p[6] = (char)('0' + m % 10);
+	p[7] = '-';
+	p[8] = (char)('0' + d / 10);
+	p[9] = (char)('0' + d % 10);
+	w->n += 10;
 }

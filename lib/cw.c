@@ -71,18 +71,6 @@ cw_die(int code, const char *fmt, ...)
 }
 
 void
-cw_die_at(int code, const char *file, unsigned long line, const char *fmt,
-    ...)
-{
-	va_list ap;
-
-	va_start(ap, fmt);
-	vwarn_at(file, line, fmt, ap);
-	va_end(ap);
-	exit(code);
-}
-
-void
 cw_usage_error(const char *fmt, ...)
 {
 	va_list ap;

@@ -32,8 +32,6 @@ void	cw_warn_at(const char *file, unsigned long line, const char *fmt, ...)
 	    __attribute__((format(printf, 3, 4)));
 _Noreturn void cw_die(int code, const char *fmt, ...)
 	    __attribute__((format(printf, 2, 3)));
-_Noreturn void cw_die_at(int code, const char *file, unsigned long line,
-	    const char *fmt, ...) __attribute__((format(printf, 4, 5)));
 /* A usage error: the message, a hint to --help, exit 2. */
 _Noreturn void cw_usage_error(const char *fmt, ...)
 	    __attribute__((format(printf, 1, 2)));

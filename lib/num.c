@@ -24,7 +24,7 @@ num_parse(const char *s, size_t n, char dec, double *out)
 {
 	const char *p = s, *e = s + n;
 	uint64_t mant = 0;
-	int neg = 0, ndig = 0, sig = 0, dexp = 0, any = 0, exact = 1;
+	int neg = 0, sig = 0, dexp = 0, any = 0, exact = 1;
 	long ex = 0;
 
 	while (p < e && (*p == ' ' || *p == '\t'))
@@ -83,7 +83,6 @@ num_parse(const char *s, size_t n, char dec, double *out)
 	}
 	if (p != e)
 		return NUM_BAD;
-	(void)ndig;
 	ex += dexp;
 	if (mant == 0) {
 		*out = neg ? -0.0 : 0.0;

@@ -144,9 +144,11 @@ opt_dur_arg(const char *opt, const char *s, int zero_ok)
 {
 	cw_time us;
 
-	if (opt_dur(s, &us) < 0 || (!zero_ok && us == 0))
+	if (opt_dur(s, &us) < 0)
 		cw_usage_error("%s: '%s' is not a duration (e.g. 90, 90s, 15m, "
 		    "2h, 1d)", opt, s);
+	if (!zero_ok && us == 0)
+		cw_usage_error("%s: the duration must be above 0", opt);
 	return us;
 }
 
