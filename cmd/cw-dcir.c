@@ -18,7 +18,6 @@
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
-#include "ts.h"
 
 #define STEP_HEADER "device,time,soc_pct,temp_c,delta_i_a,delta_v_v," \
 	"r_ohm,r_ref_ohm,dt_s,i_pre_a"
@@ -57,7 +56,6 @@ static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	write_step(struct tool *t, const struct dev *d,
 		    const struct dcir_step *st);
 static void	write_trend(struct tool *t, struct dev *d);
-static void	write_date(struct csvout *w, cw_time t);
 static void	report(const struct tool *t, const struct devtab *devs,
 		    const struct sampin_stats *st);
 
@@ -114,34 +112,6 @@ write_step(struct tool *t, const struct dev *d, const struct dcir_step *st)
 	csvout_endrow(&t->out);
 }
 
-/* The calendar date (UTC) of T as YYYY-MM-DD. */
-static void
-write_date(struct csvout *w, cw_time t)
-{
-	char buf[16];
-	long days, y;
-	unsigned m, dd;
-	int k;
-
-	days = (long)(t / (86400 * CW_US_PER_S));
-	if (t < 0 && t % (86400 * CW_US_PER_S) != 0)
-		days--;
-	ts_civil_from_days(days, &y, &m, &dd);
-	if (y < 0 || y > 9999) {
-		csvout_empty(w);
-		return;
-	}
-	for (k = 3; k >= 0; k--, y /= 10)
-		buf[k] = (char)('0' + y % 10);
-	buf[4] = '-';
-	buf[5] = (char)('0' + m / 10);
-	buf[6] = (char)('0' + m % 10);
-	buf[7] = '-';
-	buf[8] = (char)('0' + dd / 10);
-	buf[9] = (char)('0' + dd % 10);
-	csvout_strn(w, buf, 10);
-}
-
 static void
 write_trend(struct tool *t, struct dev *d)
 {
@@ -163,7 +133,7 @@ write_trend(struct tool *t, struct dev *d)
 	csvout_num(w, tr.growth_pct);
 	csvout_num(w, tr.growth_30d);
 	if (tr.has_eol)
-		write_date(w, tr.eol_t);
+		csvout_date(w, tr.eol_t);
 	else
 		csvout_empty(w);
 	if (tr.fitted)

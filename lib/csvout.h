@@ -27,6 +27,11 @@ void	csvout_num(struct csvout *w, double x);
 void	csvout_fixed(struct csvout *w, double x, int digits);
 void	csvout_int(struct csvout *w, long long x);
 void	csvout_time(struct csvout *w, cw_time t);
+/*
+ * The calendar date (UTC, proleptic Gregorian) of T as YYYY-MM-DD; an
+ * empty field when the year is outside 0000..9999.
+ */
+void	csvout_date(struct csvout *w, cw_time t);
 void	csvout_empty(struct csvout *w);
 /* Write a whole header: NAMES separated by commas, e.g. "device,time". */
 void	csvout_header(struct csvout *w, const char *names);

@@ -13,6 +13,13 @@
  *   shortest decimal that reads back to the same double, as Python's
  *   repr() prints it (Python 3 "Floating Point Arithmetic", tutorial 15),
  *   with C's two-digit exponent.
+ * - Dates (csvout_date): POSIX.1-2017 XBD 4.16 "Seconds Since the Epoch",
+ *   whose formula gives the epoch seconds of a UTC date from its year and
+ *   day of the year, with the Gregorian leap year rule and month lengths
+ *   (ISO 8601-1:2019, 4.2.3); the ends of the four-digit years from
+ *   Debian's /usr/bin/python3: datetime(1, 1, 1, tzinfo=timezone.utc)
+ *   .timestamp() is -62135596800 and datetime(9999, 12, 31, 23, 59, 59,
+ *   999999, tzinfo=timezone.utc).timestamp() is 253402300800 (rounded).
  */
 #include <math.h>
 #include <setjmp.h>
@@ -32,6 +39,9 @@ static uint64_t rnd(void);
 static const char *fmt(double);
 static int sigdigits(const char *);
 static void check_faithful(double);
+static int leap(long);
+static long long posix_epoch(long, long);
+static const char *date_of(cw_time);
 
 static uint64_t
 rnd(void)
@@ -314,6 +324,122 @@ test_quoting(void **st)
 	free(out);
 }
 
+/* The Gregorian leap year rule (ISO 8601-1:2019, 4.2.3). */
+static int
+leap(long y)
+{
+	return (y % 4 == 0 && y % 100 != 0) || y % 400 == 0;
+}
+
+/*
+ * Epoch seconds of 00:00:00Z on day YDAY (0-based) of year Y >= 1970,
+ * by the formula of POSIX.1-2017 XBD 4.16 with tm_year = Y - 1900.
+ */
+static long long
+posix_epoch(long y, long yday)
+{
+	long long ty = y - 1900;
+
+	return yday * 86400LL + (ty - 70) * 31536000LL +
+	    ((ty - 69) / 4) * 86400LL - ((ty - 1) / 100) * 86400LL +
+	    ((ty + 299) / 400) * 86400LL;
+}
+
+/* What csvout_date() writes for T, as a string (static buffer). */
+static const char *
+date_of(cw_time t)
+{
+	static char buf[64];
+	char *out = NULL;
+	size_t outlen = 0;
+	struct csvout w;
+	FILE *fp;
+
+	fp = open_memstream(&out, &outlen);
+	assert_non_null(fp);
+	csvout_init(&w, fp);
+	csvout_str(&w, "x");
+	csvout_date(&w, t);
+	csvout_str(&w, "y");
+	csvout_endrow(&w);
+	assert_int_equal(csvout_flush(&w), 0);
+	fclose(fp);
+	assert_true(outlen >= 5 && outlen < sizeof(buf));
+	assert_true(strncmp(out, "x,", 2) == 0 &&
+	    strcmp(out + outlen - 3, ",y\n") == 0);
+	memcpy(buf, out + 2, outlen - 5);
+	buf[outlen - 5] = '\0';
+	csvout_free(&w);
+	free(out);
+	return buf;
+}
+
+/*
+ * Calendar dates: each day's first and last microsecond and one in
+ * between, for random days of 1970..9999 against the POSIX formula; days
+ * round down before the epoch; an empty field outside 0000..9999.
+ */
+static void
+test_date(void **st)
+{
+	static const int mdays[12] = {
+		31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31
+	};
+	const cw_time day = 86400 * CW_US_PER_S;
+	char want[32];
+	long y, yday, k;
+	int m, d, i;
+	cw_time t0;
+
+	(void)st;
+	assert_string_equal(date_of(0), "1970-01-01");
+	assert_string_equal(date_of(-1), "1969-12-31");
+	assert_string_equal(date_of(-day), "1969-12-31");
+	assert_string_equal(date_of(-day - 1), "1969-12-30");
+	assert_string_equal(date_of(day - 1), "1970-01-01");
+	/* 2000 is a leap year (divisible by 400), 1900 and 2100 are not. */
+	assert_string_equal(date_of(posix_epoch(2000, 59) * CW_US_PER_S),
+	    "2000-02-29");
+	assert_string_equal(date_of(posix_epoch(2100, 59) * CW_US_PER_S),
+	    "2100-03-01");
+	assert_string_equal(date_of(-62135596800LL * CW_US_PER_S),
+	    "0001-01-01");
+	/* Year 0000 is a leap year of the proleptic calendar: 366 days. */
+	assert_string_equal(date_of((-62135596800LL - 366 * 86400LL) *
+	    CW_US_PER_S), "0000-01-01");
+	assert_string_equal(date_of((-62135596800LL - 366 * 86400LL) *
+	    CW_US_PER_S - 1), "");
+	assert_string_equal(date_of(253402300800LL * CW_US_PER_S - 1),
+	    "9999-12-31");
+	assert_string_equal(date_of(253402300800LL * CW_US_PER_S), "");
+	assert_string_equal(date_of(INT64_MAX), "");
+	assert_string_equal(date_of(INT64_MIN), "");
+	for (k = 0; k < 20000; k++) {
+		y = 1970 + (long)(rnd() % (9999 - 1970 + 1));
+		yday = (long)(rnd() % (leap(y) ? 366 : 365));
+		for (m = 0, d = (int)yday; ; m++) {
+			int len = mdays[m] + (m == 1 && leap(y));
+
+			if (d < len)
+				break;
+			d -= len;
+		}
+		snprintf(want, sizeof(want), "%04ld-%02d-%02d", y, m + 1,
+		    d + 1);
+		t0 = posix_epoch(y, yday) * CW_US_PER_S;
+		for (i = 0; i < 3; i++) {
+			cw_time t = t0 + (i == 0 ? 0 : i == 1 ?
+			    (cw_time)(rnd() % (uint64_t)day) : day - 1);
+
+			if (strcmp(date_of(t), want) != 0) {
+				print_error("t %lld: got %s, want %s\n",
+				    (long long)t, date_of(t), want);
+				fail();
+			}
+		}
+	}
+}
+
 /* Far more than the 256 KiB buffer, and one field larger than it: every
  * byte arrives, in order. */
 static void
@@ -397,6 +523,7 @@ main(void)
 		cmocka_unit_test(test_shortest),
 		cmocka_unit_test(test_fixed),
 		cmocka_unit_test(test_quoting),
+		cmocka_unit_test(test_date),
 		cmocka_unit_test(test_large_output),
 		cmocka_unit_test(test_write_error),
 	};
