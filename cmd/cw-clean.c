@@ -181,10 +181,13 @@ report(const struct clean_stats *st)
 			n += (size_t)snprintf(buf + n, sizeof(buf) - n, "%s%s %lu",
 			    n ? ", " : "", clean_reason_name[k], st->reason[k]);
 	buf[n] = '\0';
-	cw_warn("%lu data lines: %lu accepted, %lu rejected%s%s%s", st->lines,
+	cw_warn("%lu data line%s: %lu accepted, %lu rejected%s%s%s", st->lines,
+	    st->lines == 1 ? "" : "s",
 	    st->accepted, st->rejected, n ? " (" : "", buf, n ? ")" : "");
-	cw_warn("%lu rows written for %lu devices; %lu repeated header lines "
-	    "skipped", st->written, st->devices, st->header_repeats);
+	cw_warn("%lu row%s written for %lu device%s; %lu repeated header "
+	    "line%s skipped", st->written, st->written == 1 ? "" : "s",
+	    st->devices, st->devices == 1 ? "" : "s", st->header_repeats,
+	    st->header_repeats == 1 ? "" : "s");
 }
 
 int
