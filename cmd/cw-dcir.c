@@ -72,6 +72,38 @@ usage(FILE *fp)
 	    "               [--steady N] [--steady-tol FRAC] "
 	    "[--temp LO,HI] [--version]\n"
 	    "               [FILE ...]\n");
+	fputs(
+"\n"
+"DC internal resistance from current steps, and its growth per device.\n"
+"\n"
+"      --allow-no-soc      keep steps whose SoC is unknown\n"
+"      --confidence P      confidence level of the slope's interval\n"
+"                          (default 0.95)\n"
+"      --ea KJ             activation energy in kJ/mol (default 30)\n"
+"      --eol PCT           end of life at PCT percent of r_start_ohm\n"
+"                          (default 200)\n"
+"  -h, --help              print this help and exit\n"
+"      --max-dt DUR        longest time between the samples of a step\n"
+"                          (default 15s)\n"
+"      --max-points N      points kept per device for the trend\n"
+"                          (default 2048)\n"
+"      --min-span DUR      shortest first-to-last span for a trend\n"
+"                          (default 7d)\n"
+"      --min-step A        smallest current step in amperes (default 0.5)\n"
+"      --min-steps N       fewest steps for a trend (default 10)\n"
+"  -o, --output FILE       write to FILE atomically, not standard output\n"
+"      --ref-temp T        reference temperature (default 25C)\n"
+"      --soc LO,HI         SoC window in percent (default 20,80)\n"
+"      --steady N          steady samples before a step (default 3)\n"
+"      --steady-tol FRAC   largest spread of those currents, as a fraction\n"
+"                          of the step (default 0.1)\n"
+"  -t, --trend             one row per device with the trend\n"
+"      --temp LO,HI        temperature window (default 10,45)\n"
+"  -v, --verbose           report counts on standard error\n"
+"      --version           print the version and exit\n"
+"\n"
+"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one).\n"
+"Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
 }
 
 static int

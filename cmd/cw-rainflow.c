@@ -67,6 +67,26 @@ usage(FILE *fp)
 	    "                   [--residue half|full|repeat] "
 	    "[--signal COLUMN]\n"
 	    "                   [--version] [FILE ...]\n", cw_prog);
+	fputs(
+"\n"
+"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n"
+"\n"
+"  -h, --help              print this help and exit 0\n"
+"      --histogram WIDTH   one row per range bin of width WIDTH\n"
+"      --hysteresis X      ignore reversals smaller than X (default 1)\n"
+"      --matrix WIDTH[,MEAN_WIDTH]\n"
+"                          the range-mean matrix, range bins WIDTH wide and\n"
+"                          mean bins MEAN_WIDTH wide (default WIDTH)\n"
+"  -o, --output FILE       write to FILE atomically, not standard output\n"
+"      --residue half|full|repeat\n"
+"                          count the residue as half cycles, full cycles,\n"
+"                          or as if the history repeated (default half)\n"
+"  -s, --summary           one row per device instead of one per cycle\n"
+"      --signal COLUMN     count the cycles of COLUMN (default soc_pct)\n"
+"  -v, --verbose           report counts on standard error\n"
+"      --version           print the version and exit 0\n"
+"\n"
+"--histogram, --matrix and --summary exclude each other.\n", fp);
 }
 
 static double

@@ -62,6 +62,29 @@ usage(FILE *fp)
 	    "                  [--min-duration DUR] [-o FILE] "
 	    "[--use-limits LO,HI]\n"
 	    "                  [--version] [FILE ...]\n");
+	fputs(
+"\n"
+"Charging outside the safe temperature window, as events per device.\n"
+"\n"
+"  -h, --help                print this help and exit 0\n"
+"      --hysteresis DT       come back inside by DT to end an event\n"
+"                            (default 0.5)\n"
+"      --limits T1,T2,T3,T4  the four zone thresholds (default 0,10,45,60)\n"
+"      --max-gap DUR         a longer interval ends an event (default 15m)\n"
+"      --merge DUR           join events at most DUR apart (default 2m)\n"
+"      --min-current A       charging above A, discharge below -A\n"
+"                            (default 0.05)\n"
+"      --min-duration DUR    drop events shorter than DUR (default 60s)\n"
+"  -o, --output FILE         write to FILE atomically, not standard output\n"
+"  -s, --summary             one row per device instead of one per event\n"
+"      --use-limits LO,HI    the window for discharge (default -20,60)\n"
+"  -v, --verbose             report counts on standard error\n"
+"      --version             print the version and exit 0\n"
+"\n"
+"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one);\n"
+"DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
+"Durations take 90, 90s, 15m, 2h, 1d.\n"
+"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n", fp);
 }
 
 static int

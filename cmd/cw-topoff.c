@@ -66,6 +66,25 @@ usage(FILE *fp)
 	    "                 [--min-current A] [--min-depth PCT] "
 	    "[-o FILE] [--version]\n"
 	    "                 [FILE ...]\n");
+	fputs(
+"\n"
+"Holds near full charge and top-off micro-cycles, per device.\n"
+"\n"
+"  -e, --events            one row per micro-cycle instead of one per hold\n"
+"      --full PCT          a SoC at or above PCT is near full (default 95)\n"
+"      --full-voltage V    judge rows without SoC by voltage: at or above\n"
+"                          V volts is near full (unset: not judged)\n"
+"  -h, --help              print this help and exit 0\n"
+"      --max-gap DUR       a longer interval ends a hold (default 15m)\n"
+"      --min-current A     charging means current above A (default 0.05)\n"
+"      --min-depth PCT     the smallest drop below the peak that counts\n"
+"                          (default 0.5)\n"
+"  -o, --output FILE       write to FILE atomically, not standard output\n"
+"  -s, --summary           one row per device (-e and -s exclude each other)\n"
+"  -v, --verbose           report counts on standard error\n"
+"      --version           print the version and exit 0\n"
+"\n"
+"Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
 }
 
 /* The device state that embeds TOP. */
