@@ -49,6 +49,29 @@ build/tests/%: tests/tools/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
 	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
 
+# make fuzz: the libFuzzer harnesses of tests/fuzz/, FUZZ_SECONDS each.
+# Built apart in build/fuzz/, so the flags of the other targets do not
+# matter here.
+FUZZ_SECONDS ?= 60
+FUZZCC    = clang
+FUZZFLAGS = -g -O1 -fno-omit-frame-pointer -fsanitize=address,undefined \
+	    -fno-sanitize-recover=all
+FUZZSRC   = $(wildcard tests/fuzz/fuzz_*.c)
+FUZZBIN   = $(patsubst tests/fuzz/%.c,build/fuzz/%,$(FUZZSRC))
+FUZZOBJ   = $(patsubst lib/%.c,build/fuzz/lib/%.o,$(LIBSRC))
+
+build/fuzz/lib/%.o: lib/%.c $(LIBHDR) config.mk
+	@mkdir -p build/fuzz/lib
+	$(FUZZCC) $(CWFLAGS) $(FUZZFLAGS) -fsanitize=fuzzer-no-link -c -o $@ $<
+
+build/fuzz/%: tests/fuzz/%.c tests/fuzz/fuzz.h tests/fuzz/fuzz_engine.h \
+	    $(FUZZOBJ) $(LIBHDR)
+	$(FUZZCC) $(CWFLAGS) $(FUZZFLAGS) -fsanitize=fuzzer -o $@ $< \
+	    $(FUZZOBJ) $(LDLIBS)
+
+fuzz: deps $(FUZZBIN)
+	@FUZZ_SECONDS=$(FUZZ_SECONDS) tests/fuzz/run $(FUZZBIN)
+
 deps:
 	@scripts/deps
 
@@ -82,5 +105,5 @@ clean:
 
 FORCE:
 
-.PHONY: all bench demo deps tests check lint install uninstall clean FORCE
-.SECONDARY: $(LIBOBJ)
+.PHONY: all bench demo deps tests check fuzz lint install uninstall clean FORCE
+.SECONDARY: $(LIBOBJ) $(FUZZOBJ)
