@@ -22,7 +22,7 @@ static void
 vwarn_at(const char *file, unsigned long line, const char *fmt, va_list ap)
 {
 	/* One fputs-sized write per message keeps lines whole under pipes. */
-	char buf[1024];
+	char buf[1024], *p;
 	int n;
 
 	if (file != NULL && line > 0)
@@ -35,6 +35,11 @@ vwarn_at(const char *file, unsigned long line, const char *fmt, va_list ap)
 	if (n < 0 || (size_t)n >= sizeof(buf))
 		n = 0;
 	vsnprintf(buf + n, sizeof(buf) - (size_t)n, fmt, ap);
+	/* Bytes quoted from a damaged input must not reach the terminal as
+	 * control characters (line ends, escapes): show them as '?'. */
+	for (p = buf; *p != '\0'; p++)
+		if ((unsigned char)*p < 0x20 || *p == 0x7f)
+			*p = '?';
 	fflush(stdout);
 	fprintf(stderr, "%s\n", buf);
 }
