@@ -125,7 +125,12 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 		dcir_series_add(&d->ser, st.t, st.r_ref, t->max_points);
 	else
 		write_step(t, d, &st);
-	return t->out.err ? CW_EXIT_DATA : 0;
+	if (t->out.err) {
+		/* Say so here: sampin_run() only passes the exit code on. */
+		cw_warn("write error: %s", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	return 0;
 }
 
 static void
