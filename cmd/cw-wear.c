@@ -548,8 +548,11 @@ main(int argc, char *argv[])
 			write_row(&w, &r, sorted[k], &x);
 		}
 		if (csvout_flush(&w) != 0) {
+			int e = errno;
+
 			csvout_free(&w);
-			cw_die(CW_EXIT_DATA, "write error");
+			cw_die(CW_EXIT_DATA, "%s: write error: %s", out != NULL ?
+			    out : "standard output", strerror(e));
 		}
 		csvout_free(&w);
 	}
