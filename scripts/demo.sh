@@ -113,9 +113,10 @@ awk -F, 'NR == 1 { print "device,site,group"; next }
     { print $1 "," $4 "," $2 }' "$in/truth-devices.csv" >"$in/fleet.csv"
 
 # Cleaning.  The packs are 10 cells in series; the gauges count charging
-# as negative; no real current of these packs comes near 30 A (the depot
-# charger gives 14 A), while the gauge's no-value code -32768 mA would
-# read as 32.8 A: the current bound keeps it out.
+# as negative.  cw-clean's default --sentinel list rejects the gauges'
+# no-value codes (-32768, 65535) by their raw value; the current bound is
+# a plausibility bound: no real current of these packs comes near 30 A
+# (the depot charger gives 14 A).
 say "cw-clean: raw logs -> $out/cw-clean.csv.gz (rejects kept)"
 mkfifo "$tmp/stream"
 job compress "$tmp/stream" "$out/cw-clean.csv.gz"
