@@ -119,6 +119,21 @@ $(scale x4 $devs $((days * 4)) $period)
 $(scale d10 $((devs * 10)) $days $((period * 10)))"
 fi
 
+# Memory at 10,000 devices (one day at 10 min): the 32 MiB target.
+if [ $tiny -eq 1 ]; then nd=50; else nd=10000; fi
+gen "$work/m" $nd 1 600
+mf=$(ls "$work"/m/*.a.csv.gz | tr '\n' ' ')
+$CLEAN $mf >"$work/m.csv"
+mem=""
+for k in "cw-clean --cells 10 --charge-negative --step 600 $mf" \
+    "cw-rainflow --summary $work/m.csv" "cw-thermal $work/m.csv" \
+    "cw-topoff $work/m.csv" "cw-dcir --trend $work/m.csv" \
+    "cw-wear $work/m.csv"; do
+	set -- $(reps=1 t "$k")
+	mem="$mem| ${k%% *} | $2 |
+"
+done
+
 # Two cores: GNU parallel over the day files.
 mkdir -p "$work/par"
 p1=$(reps=1 t "parallel -j1 '$CLEAN --step 60 {} > $work/par/{/.}.csv' ::: $files")
@@ -172,6 +187,12 @@ echo
 echo "| run | raw lines | clean s | clean KiB | wear s | wear KiB |"
 echo "| --- | --- | --- | --- | --- | --- |"
 echo "$sc" | awk '{ printf "| %s | %s | %s | %s | %s | %s |\n", $1, $2, $3, $4, $5, $6 }'
+echo
+echo "Peak memory with $nd devices (cw-synth -n $nd -d 1 -p 600):"
+echo
+echo "| tool | peak RSS KiB (target < 32768) |"
+echo "| --- | --- |"
+printf '%s' "$mem"
 echo
 echo "Instruction counts over $(basename "$first") (callgrind, repeatable):"
 echo "$irs."
