@@ -26,6 +26,7 @@
 	"topoff_cycles,share_cycling,share_high_soc,share_heat,fade_pct," \
 	"days_to_eol,dominant,damage"
 #define HEADER_CAP ",max_charge_c,mean_charge_c,fade_ah"
+#define MAXWARN 10	/* messages of one kind, then only a count */
 
 /* A device's state in the devtab: the devent first, as devtab.h asks. */
 struct dev {
@@ -50,6 +51,7 @@ struct run {
 	unsigned long joins;	/* states joined after or before another */
 	unsigned long stale;	/* rows already in a loaded state */
 	unsigned long stale_devs;
+	unsigned long straddles;	/* states overlapping by a little */
 	/* States read for RUN_DEV, not joined yet. */
 	struct dev *run_dev;
 	struct piece *piece;
@@ -91,6 +93,8 @@ static int on_row(void *, void *, const struct cw_sample *);
 static int on_state(void *, const char *, unsigned long, const char *,
     size_t, struct wear_dev *);
 static int piece_cmp(const void *, const void *);
+static void straddle(struct run *, const struct piece *,
+    const struct dev *, const char *);
 static int flush(struct run *);
 static int exists(const char *);
 static void write_row(struct csvout *, const struct run *,
@@ -188,6 +192,30 @@ piece_cmp(const void *pa, const void *pb)
 	return a->line < b->line ? -1 : a->line > b->line;
 }
 
+/*
+ * State P of device D overlaps the one D holds by a little, at its end or
+ * its beginning (WHERE): a clock that went back across the boundary of
+ * two files.  It is joined all the same, after or before, and counted.
+ */
+static void
+straddle(struct run *r, const struct piece *p, const struct dev *d,
+    const char *where)
+{
+	char t[3][TS_FMTMAX];
+
+	if (r->straddles++ >= MAXWARN)
+		return;
+	ts_format(p->w.acc.first, t[0]);
+	ts_format(p->w.acc.last, t[1]);
+	ts_format(where[0] == 'e' ? d->w.acc.last : d->w.acc.first, t[2]);
+	cw_warn_at(p->src, p->line, "the state of %s from %s to %s overlaps "
+	    "the one joined so far, which %s at %s: joined all the same, its "
+	    "rows on the other side of %s counted (one pass over the rows "
+	    "would skip them as going back in time)%s", d->e.name, t[0],
+	    t[1], where, t[2], t[2], r->straddles == MAXWARN ?
+	    " (further ones only counted)" : "");
+}
+
 /* Join the gathered states of R->run_dev into it, in time order. */
 static int
 flush(struct run *r)
@@ -209,6 +237,18 @@ flush(struct run *r)
 			wear_join(&d->w, w, &r->conf);
 			r->joins++;
 		} else if (w->acc.last <= d->w.acc.first) {
+			wear_join(w, &d->w, &r->conf);
+			d->w = *w;
+			r->joins++;
+		} else if (w->acc.first > d->w.acc.first &&
+		    w->acc.last > d->w.acc.last) {
+			/* It begins before the end: a clock gone back. */
+			straddle(r, &r->piece[k], d, "ends");
+			wear_join(&d->w, w, &r->conf);
+			r->joins++;
+		} else if (w->acc.first < d->w.acc.first &&
+		    w->acc.last < d->w.acc.last) {
+			straddle(r, &r->piece[k], d, "begins");
 			wear_join(w, &d->w, &r->conf);
 			d->w = *w;
 			r->joins++;
@@ -501,6 +541,10 @@ main(int argc, char *argv[])
 			exit(rc);
 		if ((rc = flush(&r)) != 0)
 			exit(rc);
+		if (r.straddles > 0)
+			cw_warn("%lu states overlapped the one before or "
+			    "after them by a little, and were joined all the "
+			    "same", r.straddles);
 		if (cw_verbose)
 			cw_warn("%lu state rows read (%lu header, %lu end "
 			    "rows), %zu devices", rd.rows, rd.headers,

@@ -48,3 +48,25 @@ for c in 6 8 19; do
 	        "days apart %.10g, one pass %.10g\n", c, d, s[d], o[d] }' \
 	    "$d/r1.csv" "$d/r2.csv" "$d/one.csv" | sort
 done
+# A clock gone back across midnight: the second file begins two hours
+# before the first ends.  --merge joins them with a warning, the rows on
+# the other side counted; one pass over the rows skips those that go back
+# in time, and so does --state.
+awk -F, 'NR == 1 || $2 < "2026-03-03T01"' "$f" >"$d/early.csv"
+awk -F, 'NR == 1 || $2 >= "2026-03-02T23"' "$f" >"$d/late.csv"
+cw-wear --state-out "$d/early.csv" >"$d/early.state"
+cw-wear --state-out "$d/late.csv" >"$d/late.state"
+cw-wear --merge "$d/early.state" "$d/late.state" >"$d/straddle.csv" \
+    2>"$d/err"
+echo "rc $?"
+sed "s|$d/||" "$d/err" | head -n 2
+tail -n 1 "$d/err"
+cw-wear "$d/early.csv" "$d/late.csv" >"$d/onepass.csv" 2>/dev/null
+cw-wear --state "$d/s.state" "$d/early.csv" >/dev/null
+cw-wear --state "$d/s.state" "$d/late.csv" 2>"$d/err" |
+    cmp - "$d/onepass.csv" && echo "--state = one pass over the rows"
+sed "s|$d/||" "$d/err"
+awk -F, 'FNR == 1 { k++ } FNR > 1 && k == 1 { h[$1] = $8 }
+    FNR > 1 && k == 2 && h[$1] != $8 { print $1 ": hours at >= 95 % " \
+    h[$1] " one pass, " $8 " merged across the overlap" }' \
+    "$d/onepass.csv" "$d/straddle.csv"
