@@ -39,6 +39,7 @@ static void pre_join(struct wear_dev *, struct wear_dev *, unsigned long,
     unsigned long);
 static void topoff_join(struct wear_dev *, struct wear_dev *,
     const struct wear_conf *);
+static void rf_pair(struct wear_dev *, const struct wear_conf *);
 
 static double
 maxd(double a, double b)
@@ -418,8 +419,9 @@ wear_push(struct wear_dev *d, const struct wear_conf *c, cw_time t,
 	}
 }
 
-void
-wear_compact(struct wear_dev *d, const struct wear_conf *c)
+/* A raw rainflow start side paired as a plain pass pairs it. */
+static void
+rf_pair(struct wear_dev *d, const struct wear_conf *c)
 {
 	struct cyc_ctx x;
 	struct rf_state q;
@@ -435,11 +437,22 @@ wear_compact(struct wear_dev *d, const struct wear_conf *c)
 }
 
 void
+wear_compact(struct wear_dev *d, const struct wear_conf *c)
+{
+	rf_pair(d, c);
+	/* Nothing is to come before it: the top-off prefix is not needed. */
+	free(d->pre);
+	d->pre = NULL;
+	d->pre_n = d->pre_cap = 0;
+	d->pre_state = WEAR_PRE_LOST;
+}
+
+void
 wear_finish(struct wear_dev *d, const struct wear_conf *c)
 {
 	struct cyc_ctx x;
 
-	wear_compact(d, c);
+	rf_pair(d, c);
 	x.d = d;
 	x.c = c;
 	rf_finish(&d->rf, c->residue, on_cycle, &x);

@@ -228,7 +228,8 @@ void	wear_join(struct wear_dev *a, struct wear_dev *b,
 /*
  * Give up joinability for a state that will only ever be continued (a
  * cumulative --state file): a raw rainflow start side is paired as a
- * plain pass pairs it, so it stays short.
+ * plain pass pairs it, so it stays short, and the top-off prefix is
+ * dropped (WEAR_PRE_LOST).
  */
 void	wear_compact(struct wear_dev *d, const struct wear_conf *c);
 
