@@ -16,6 +16,9 @@
 #define FNV_BASIS	0xcbf29ce484222325ull
 #define FNV_PRIME	0x100000001b3ull
 
+/* What the first record of a file is (csvin skips copies of it). */
+enum { FIRST_DEV, FIRST_HEADER, FIRST_END };
+
 /* Kinds of fields. */
 enum {
 	K_DBL,		/* double, finite */
@@ -204,8 +207,9 @@ struct rd {
 	int strict;
 	unsigned long nrec;		/* records of this file */
 	unsigned long rows, announced;	/* this file's */
-	int last_end;		/* the latest record was an end row */
-	int first_data;		/* the first record was a device row */
+	unsigned long ends;	/* end rows of this file */
+	int first_kind;		/* of the first record: FIRST_* */
+	unsigned long first_n;	/* the first record's N, an end row's */
 };
 
 static struct buf B;
@@ -877,9 +881,11 @@ end_rec(struct rd *d, const struct csvin_rec *rec)
 		    "is corrupt");
 		return CW_EXIT_DATA;
 	}
+	if (d->nrec == 1)
+		d->first_n = n;
 	d->announced += n;
+	d->ends++;
 	d->r->ends++;
-	d->last_end = 1;
 	return 0;
 }
 
@@ -891,10 +897,10 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	const struct buf *h;
 	const char *tag;
 
-	d->last_end = 0;
-	if (d->nrec++ == 0 && !(rec->nf > 0 && strcmp(rec->f[0], "device") ==
-	    0) && !(rec->nf > 0 && rec->len[0] == 0))
-		d->first_data = 1;
+	if (d->nrec++ == 0)
+		d->first_kind = rec->nf > 0 && strcmp(rec->f[0], "device") ==
+		    0 ? FIRST_HEADER : rec->nf > 0 && rec->len[0] == 0 ?
+		    FIRST_END : FIRST_DEV;
 	tag = rec->nf > 3 ? rec->f[3] : "";
 	if (strcmp(tag, WSTATE_TAG) != 0) {
 		if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
@@ -965,16 +971,21 @@ wstate_read(struct wstate_read *r, const char *path, int strict)
 	csvin_free(in);
 	if (rc != 0)
 		return rc;
-	if (rep > 0 && d.first_data) {
+	/* Copies of the first record were skipped: count them as theirs. */
+	if (rep > 0 && d.first_kind == FIRST_DEV) {
 		cw_warn("%s: a state row comes more than once", name);
 		return CW_EXIT_DATA;
 	}
-	r->headers += rep;
+	if (d.first_kind == FIRST_END) {
+		d.ends += rep;
+		d.announced += rep * d.first_n;
+		r->ends += rep;
+	} else
+		r->headers += rep;
 	if (!strict)
 		return 0;
-	if (!d.last_end) {
-		cw_warn("%s: no end row at the end: the state is cut short",
-		    name);
+	if (d.ends == 0) {
+		cw_warn("%s: no end row: the state is cut short", name);
 		return CW_EXIT_DATA;
 	}
 	if (d.announced != d.rows) {

@@ -22,8 +22,9 @@
  *
  * A file of states ends with an end row, ",,,cw-wear-state-1,end,N,check",
  * N being the rows of device states before it; files joined with cat hold
- * several, and their N add up.  A file without its end row, or whose rows
- * do not add up to the end rows' N, was cut short.
+ * several, and their N add up (sorted, they come first).  A file without
+ * an end row, or whose rows do not add up to the end rows' N, was cut
+ * short.
  */
 #ifndef WEARSTATE_H
 #define WEARSTATE_H
@@ -80,9 +81,9 @@ struct wstate_read {
 
 /*
  * Read the states in PATH ("-": standard input).  STRICT: PATH is one
- * file, or files joined with cat, that must end with an end row and hold
- * the rows its end rows announce; otherwise (a stream that was sorted or
- * split by device) end rows are only checked for their form.  Header rows
+ * file, or files joined with cat (sorted or not), that must hold end rows
+ * and the rows they announce; otherwise (a stream, perhaps split by
+ * device) end rows are only checked for their form.  Header and end rows
  * may come anywhere.  Returns 0, or CW_EXIT_DATA after a message
  * "FILE:LINE: what is wrong" (another version, a cut or corrupt row, a
  * setting that does not agree), or what R->dev returned.
