@@ -21,13 +21,11 @@ PATH="$top/bin:$PATH"
 export PATH
 tmp=$(mktemp -d)
 sshd_pid=
-made_run=
 cleanup() {
 	if [ -n "$sshd_pid" ]; then
 		kill "$sshd_pid" 2>/dev/null
 		wait "$sshd_pid" 2>/dev/null
 	fi
-	[ -n "$made_run" ] && rmdir /run/sshd 2>/dev/null
 	rm -rf "$tmp"
 }
 trap cleanup EXIT
@@ -40,12 +38,12 @@ for p in /usr/sbin/sshd ssh ssh-keygen parallel; do
 	    skip "$p is missing (Debian packages openssh-server, openssh-client, parallel; see scripts/deps)"
 done
 # sshd started as root needs its privilege separation folder, which the
-# Debian service makes at boot; make it (empty) if it is missing, and
-# remove it again at the end.
+# Debian service makes at boot; make it (empty, as the service would) if
+# it is missing.  It stays: another run of this test at the same time may
+# be using it.
 if [ "$(id -u)" -eq 0 ] && [ ! -d /run/sshd ]; then
-	mkdir -m 755 /run/sshd 2>/dev/null ||
+	mkdir -m 755 /run/sshd 2>/dev/null || [ -d /run/sshd ] ||
 	    skip "cannot make /run/sshd, which sshd needs when run as root"
-	made_run=1
 fi
 
 user=$(id -un)
