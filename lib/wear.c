@@ -58,9 +58,11 @@ time_above(double a, double b, double th, double dt)
 		return dt;
 	if (a < th && b < th)
 		return 0;
+	/* The fraction first, in halves: no step may overflow, whatever
+	 * finite values a damaged log holds (1e308 C gave inf hours). */
 	if (a >= th)
-		return dt * (a - th) / (a - b);
-	return dt * (b - th) / (b - a);
+		return dt * ((a * 0.5 - th * 0.5) / (a * 0.5 - b * 0.5));
+	return dt * ((b * 0.5 - th * 0.5) / (b * 0.5 - a * 0.5));
 }
 
 void
