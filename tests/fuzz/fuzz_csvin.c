@@ -128,7 +128,8 @@ on_header(void *ctx, const struct csvin_rec *r)
 		FZ_CHECK(m.col[f] >= -1 && m.col[f] < (int)r->nf);
 		if (c->required & (1u << f))
 			FZ_CHECK(m.col[f] >= 0);
-		FZ_CHECK(f == CM_DEVICE || m.unit[f] != CMU_NONE);
+		if (f >= CM_TIME && f <= CM_SOC)
+			FZ_CHECK(m.unit[f] != CMU_NONE);
 		FZ_CHECK(colmap_unit_name(m.unit[f]) != NULL);
 		for (g = f + 1; g < CM_NFIELD; g++)
 			FZ_CHECK(m.col[f] < 0 || m.col[f] != m.col[g]);
