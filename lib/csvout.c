@@ -288,7 +288,6 @@ csvout_date(struct csvout *w, cw_time t)
 	const cw_time day = 86400 * CW_US_PER_S;
 	long days = (long)(t / day), y;
 	unsigned m, d;
-	char *p;
 
 	/* Whole days before T: rounded down, so -1 us is 1969-12-31. */
 	if (t % day < 0)
@@ -298,16 +297,5 @@ csvout_date(struct csvout *w, cw_time t)
 	if (y < 0 || y > 9999)
 		return;
 	reserve(w, 10);
-	p = w->buf + w->n;
-	p[0] = (char)('0' + y / 1000);
-	p[1] = (char)('0' + y / 100 % 10);
-	p[2] = (char)('0' + y / 10 % 10);
-	p[3] = (char)('0' + y % 10);
-	p[4] = '-';
-	p[5] = (char)('0' + m / 10);
-	p[6] = (char)('0' + m % 10);
-	p[7] = '-';
-	p[8] = (char)('0' + d / 10);
-	p[9] = (char)('0' + d % 10);
-	w->n += 10;
+	w->n += ts_format_date(y, m, d, w->buf + w->n);
 }

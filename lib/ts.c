@@ -213,6 +213,22 @@ ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out)
 }
 
 size_t
+ts_format_date(long y, unsigned m, unsigned d, char *p)
+{
+	p[0] = (char)('0' + y / 1000);
+	p[1] = (char)('0' + y / 100 % 10);
+	p[2] = (char)('0' + y / 10 % 10);
+	p[3] = (char)('0' + y % 10);
+	p[4] = '-';
+	p[5] = (char)('0' + m / 10);
+	p[6] = (char)('0' + m % 10);
+	p[7] = '-';
+	p[8] = (char)('0' + d / 10);
+	p[9] = (char)('0' + d % 10);
+	return 10;
+}
+
+size_t
 ts_format(cw_time t, char *buf)
 {
 	int64_t sec = t / CW_US_PER_S, us = t % CW_US_PER_S, days, rem;
@@ -239,16 +255,7 @@ ts_format(cw_time t, char *buf)
 		/* Outside ISO 8601's four-digit years: plain epoch seconds. */
 		return (size_t)snprintf(buf, TS_FMTMAX, "%lld", (long long)sec);
 	}
-	p[0] = (char)('0' + y / 1000);
-	p[1] = (char)('0' + y / 100 % 10);
-	p[2] = (char)('0' + y / 10 % 10);
-	p[3] = (char)('0' + y % 10);
-	p[4] = '-';
-	p[5] = (char)('0' + m / 10);
-	p[6] = (char)('0' + m % 10);
-	p[7] = '-';
-	p[8] = (char)('0' + d / 10);
-	p[9] = (char)('0' + d % 10);
+	ts_format_date(y, m, d, p);
 	p[10] = 'T';
 	p[11] = (char)('0' + hh / 10);
 	p[12] = (char)('0' + hh % 10);

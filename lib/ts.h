@@ -31,6 +31,8 @@ int	ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out);
 /* Write T as YYYY-MM-DDThh:mm:ss[.ffffff]Z (fraction only when not whole,
  * trailing zeros dropped).  Returns the length. */
 size_t	ts_format(cw_time t, char *buf);
+/* Write YYYY-MM-DD (10 bytes, no NUL) of a year 0..9999; returns 10. */
+size_t	ts_format_date(long y, unsigned m, unsigned d, char *buf);
 /* Days since 1970-01-01 of a proleptic Gregorian date, and back. */
 long	ts_days_from_civil(long y, unsigned m, unsigned d);
 void	ts_civil_from_days(long z, long *y, unsigned *m, unsigned *d);
