@@ -199,6 +199,7 @@ main(int argc, char *argv[])
 	struct outf *of, *rf = NULL;
 	const char *outpath = NULL, *rejpath = NULL, *err;
 	double max_reject = 0.5, cells = 1, full_v = 0;
+	unsigned long nrej, nlines;
 	int ch, rc, set[CM_NFIELD] = { 0 };
 
 	cw_setprog("cw-clean");
@@ -302,11 +303,14 @@ main(int argc, char *argv[])
 	rc = clean_run(&c, argv, argc, &out, rf ? &rej : NULL, &st);
 	if (cw_verbose)
 		report(&st);
-	if (rc == 0 && st.lines > 0 &&
-	    (double)st.rejected > max_reject * (double)st.lines) {
+	/* Empty lines are rejected and counted, but hold no data to lose. */
+	nrej = st.rejected - st.reason[CR_EMPTY];
+	nlines = st.lines - st.reason[CR_EMPTY];
+	if (rc == 0 && nlines > 0 &&
+	    (double)nrej > max_reject * (double)nlines) {
 		cw_warn("%lu of %lu data lines rejected, more than "
-		    "--max-reject %g%s", st.rejected, st.lines, max_reject,
-		    st.reason[CR_RANGE] > st.rejected / 2 ? " (mostly out of "
+		    "--max-reject %g%s", nrej, nlines, max_reject,
+		    st.reason[CR_RANGE] > nrej / 2 ? " (mostly out of "
 		    "range: are the units and --cells right?)" : "");
 		rc = CW_EXIT_DATA;
 	}
