@@ -107,7 +107,12 @@ wear_init(struct wear_dev *d, const struct wear_conf *c)
 	rf_init(&d->rf, c->hysteresis);
 	d->rf.raw_start = c->joinable != 0;
 	topoff_init(&d->top);
-	d->pre_state = WEAR_PRE_OPEN;
+	/*
+	 * Only a state written for a later join (--state-out) needs the
+	 * top-off prefix; a plain pass or a cumulative --state does not keep
+	 * it (as wear_compact() drops it), which saves its memory.
+	 */
+	d->pre_state = c->joinable ? WEAR_PRE_OPEN : WEAR_PRE_LOST;
 }
 
 /* A micro-cycle of the top-off detector embedded in a struct wear_dev. */
