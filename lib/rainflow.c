@@ -385,7 +385,12 @@ rf_hist_add(struct rf_hist *h, const struct rf_cycle *c)
 	long ri, mi;
 	size_t i;
 
-	if (!(c->count > 0) || !isfinite(c->range))
+	/*
+	 * A cycle of an infinite range (values near the limits of a double)
+	 * lands in the last bin rf_bin_index() allows, not nowhere: nothing
+	 * counted is left out of the histogram.
+	 */
+	if (!(c->count > 0))
 		return;
 	ri = rf_bin_index(c->range, h->rw);
 	mi = h->mw > 0 ? rf_bin_index(c->mean, h->mw) : 0;
