@@ -467,13 +467,7 @@ main(int argc, char *argv[])
 			fixed |= WSTATE_SET_MODEL;
 			break;
 		case OPT_RESIDUE:
-			if (strcmp(optarg, "half") == 0)
-				r.conf.residue = RF_RESIDUE_HALF;
-			else if (strcmp(optarg, "full") == 0)
-				r.conf.residue = RF_RESIDUE_FULL;
-			else if (strcmp(optarg, "repeat") == 0)
-				r.conf.residue = RF_RESIDUE_REPEAT;
-			else
+			if ((r.conf.residue = rf_residue_parse(optarg)) < 0)
 				cw_usage_error("--residue: '%s' is not half, "
 				    "full or repeat", optarg);
 			break;
@@ -487,14 +481,8 @@ main(int argc, char *argv[])
 			break;
 		case OPT_VERSION:
 			cw_print_version();
-		case ':':
-			cw_usage_error("option '%s' needs a value",
-			    argv[optind - 1]);
 		default:
-			if (optopt != 0 && optopt < 256)
-				cw_usage_error("unknown option '-%c'", optopt);
-			cw_usage_error("unknown option '%s'",
-			    argv[optind - 1]);
+			opt_getopt_fail(ch, argv);
 		}
 	}
 	argc -= optind;
