@@ -234,8 +234,8 @@ main(int argc, char *argv[])
 	if (optind < argc)
 		cw_usage_error("unexpected argument '%s'", argv[optind]);
 	outdir_prepare(c.outdir);
-	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 45)
-		cw_warn("late rows need a period of 45 s or less; none are "
+	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 60)
+		cw_warn("late rows need a period of 60 s or less; none are "
 		    "injected");
 	synth_write(&c, &st);
 	if (cw_verbose)

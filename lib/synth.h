@@ -167,8 +167,8 @@ enum synth_loc { SYNTH_AT_DEPOT, SYNTH_AT_DOCK, SYNTH_PARKED, SYNTH_RIDING };
 
 enum synth_fault {
 	SYNTH_F_DUP,		/* a row written twice */
-	SYNTH_F_LATE,		/* a row written up to 45 s late */
-	SYNTH_F_STALE,		/* a row written 90 s to 10 min late */
+	SYNTH_F_LATE,		/* a row written up to 60 s late */
+	SYNTH_F_STALE,		/* a row written over 60 s to 10 min late */
 	SYNTH_F_TRUNC,		/* a line cut before its last field */
 	SYNTH_F_SENTINEL,	/* a field holding a gauge's no-value code */
 	SYNTH_F_GAP,		/* the device not logging for a while */

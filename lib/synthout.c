@@ -806,9 +806,14 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	r.f = synth_fleet_new(c, &h);
 	r.rpd = synth_fleet_rows_per_day(r.f);
 	n = synth_fleet_ndev(r.f);
-	/* Late: within 45 s; stale: 90 s to 10 min, and a period past 60 s. */
-	r.late_kmax = (long)(45.0 / per);
-	r.stale_kmin = (long)ceil((per > 15 ? 60.0 + 2 * per : 90.0) / per);
+	/*
+	 * Late: 1 to 60 s, the reorder window of cw-clean inclusive; stale:
+	 * the first period past 60 s to 10 min.  The two meet at the window,
+	 * so a window a period shorter or longer than 60 s is told apart
+	 * (tests/ref/synth_truth_clean.sh).
+	 */
+	r.late_kmax = (long)(60.0 / per);
+	r.stale_kmin = r.late_kmax + 1;
 	r.stale_kmax = (long)(600.0 / per);
 	if (r.stale_kmax < r.stale_kmin)
 		r.stale_kmax = r.stale_kmin;
