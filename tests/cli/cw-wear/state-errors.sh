@@ -1,6 +1,7 @@
 # States that are cut short, damaged, of another version, made with other
 # settings or overlapping are refused (exit 1) and never taken for an
 # empty state; the --state file is left as it was.
+# source: spec
 f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
 cw-wear --state "$d/good.state" "$f" >/dev/null

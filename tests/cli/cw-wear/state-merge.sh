@@ -1,6 +1,9 @@
 # --state-out and --merge: the states of the two days, however they come
 # (sorted by device, in either order, merged in two stages, from sets of
 # devices apart), merge to the report of one pass, byte for byte.
+# source: snapshot: the one-pass report is example-report.sh's; the
+#   differences of the days-apart run (rows across midnight counted on one
+#   side) are pinned as written, not worked by hand
 f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
 awk -F, 'NR == 1 || $2 < "2026-03-03"' "$f" >"$d/day1.csv"

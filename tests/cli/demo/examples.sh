@@ -2,6 +2,8 @@
 # scripts/morning-report.sh, as written there, on a small invented fleet
 # without faults (4 packs, 2 days); the CSVs they make and the size of each
 # plot (a PNG's IHDR width and height).
+# source: snapshot: the CSVs and plot sizes of a small invented fleet, pinned
+#   as the scripts make them
 png() {
 	od -An -tu1 -N24 "$1" | tr -s ' \n' '  ' | awk -v f="$1" '{
 	    png = ($1 == 137 && $2 == 80 && $3 == 78 && $4 == 71)

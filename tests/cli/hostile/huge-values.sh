@@ -6,6 +6,7 @@
 # more for all but a vanishing part of the interval: 60 s, 0.01666... h;
 # the third row, -1e308 C, is below absolute zero and left out of the
 # temperature terms (wear.h).
+# source: hand
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 printf '%s\n' device,time,voltage_v,current_a,temp_c,soc_pct \
