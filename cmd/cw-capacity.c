@@ -344,7 +344,7 @@ main(int argc, char *argv[])
 			    optarg, 16, 1L << 24);
 			break;
 		case OPT_MAX_REST:
-			t.conf.max_rest = opt_dur_arg("--max-rest", optarg, 1);
+			t.conf.max_rest = opt_dur_arg("--max-rest", optarg, 0);
 			break;
 		case OPT_MIN_CURRENT:
 			t.conf.min_current = opt_num_arg("--min-current",
