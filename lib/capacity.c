@@ -31,6 +31,7 @@ static int	judge(const struct cap_conf *c, struct cap_dev *d,
 		    enum cap_reason end, struct cap_counts *cnt,
 		    struct cap_est *out);
 static int	cmp_double(const void *a, const void *b);
+static double	median(const double *x, unsigned n);
 
 void
 cap_conf_default(struct cap_conf *c)
@@ -50,6 +51,7 @@ cap_dev_init(struct cap_dev *d, double rated_ah)
 {
 	memset(d, 0, sizeof *d);
 	d->prev_soc = CW_MISSING;
+	d->recent_med = CW_MISSING;
 	d->rated_ah = rated_ah > 0 ? rated_ah : CW_MISSING;
 }
 
@@ -61,6 +63,17 @@ cmp_double(const void *a, const void *b)
 	return x < y ? -1 : x > y;
 }
 
+/* The median of X[0..N), 0 < N <= CAP_RECENT. */
+static double
+median(const double *x, unsigned n)
+{
+	double v[CAP_RECENT];
+
+	memcpy(v, x, n * sizeof v[0]);
+	qsort(v, n, sizeof v[0], cmp_double);
+	return n % 2 ? v[n / 2] : (v[n / 2 - 1] + v[n / 2]) / 2;
+}
+
 /*
  * The capacity the jump test expects a step from: the rating, else the
  * median of the device's last accepted estimates, else the open segment's
@@ -69,16 +82,12 @@ cmp_double(const void *a, const void *b)
 static double
 ref_capacity(const struct cap_dev *d)
 {
-	double v[CAP_RECENT], ds;
-	unsigned n = d->nrecent;
+	double ds;
 
 	if (cw_isnum(d->rated_ah))
 		return d->rated_ah;
-	if (n > 0) {
-		memcpy(v, d->recent, n * sizeof v[0]);
-		qsort(v, n, sizeof v[0], cmp_double);
-		return n % 2 ? v[n / 2] : (v[n / 2 - 1] + v[n / 2]) / 2;
-	}
+	if (d->nrecent > 0)
+		return d->recent_med;
 	if (d->dir != 0 && d->has_a && d->has_b) {
 		ds = fabs(d->b.soc - d->a.soc);
 		if (ds >= CAP_SELF_SWING)
@@ -220,6 +229,7 @@ judge(const struct cap_conf *c, struct cap_dev *d, enum cap_reason end,
 		d->recent_head = (d->recent_head + 1) % CAP_RECENT;
 		if (d->nrecent < CAP_RECENT)
 			d->nrecent++;
+		d->recent_med = median(d->recent, d->nrecent);
 	}
 	cnt->n[out->reason]++;
 	if (end != CAP_SWING)

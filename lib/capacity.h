@@ -108,6 +108,7 @@ struct cap_dev {
 	double rated_ah;	/* NaN when unknown */
 	double recent[CAP_RECENT];
 	unsigned nrecent, recent_head;
+	double recent_med;	/* their median, NaN without any */
 };
 
 /* One estimate, or a rejected segment (reason != CAP_OK). */
