@@ -431,11 +431,11 @@ main(int argc, char *argv[])
 	}
 	if (cw_verbose)
 		report(&t, devs, &st);
-	if (t.cnt.n[CAP_SIGN] >= 10 && t.cnt.n[CAP_SIGN] > t.cnt.n[CAP_OK])
-		cw_warn("%lu segments moved the SoC against their current, "
-		    "%lu with it: is current_a positive while charging? "
-		    "(cw-clean --charge-negative)", t.cnt.n[CAP_SIGN],
-		    t.cnt.n[CAP_OK]);
+	if (t.cnt.against >= 100 && t.cnt.against > 2 * t.cnt.with)
+		cw_warn("the SoC stepped against the current on %lu rows, with "
+		    "it on %lu: is current_a positive while charging? "
+		    "(cw-clean --charge-negative)", t.cnt.against,
+		    t.cnt.with);
 	if (rc != 0) {
 		/* Complete rows written so far stay; the output is not
 		 * committed, so -o FILE keeps its old contents. */

@@ -265,6 +265,12 @@ cap_feed(const struct cap_conf *c, struct cap_dev *d, cw_time t, double i_a,
 	sgn = i_a >= c->min_current ? 1 : i_a <= -c->min_current ? -1 : 0;
 	temp_ok = c->temp_any || (temp_c >= c->temp_lo &&
 	    temp_c <= c->temp_hi);
+	if (sgn != 0 && !gap && ds != 0 && cw_isnum(ds)) {
+		if (ds * sgn > 0)
+			cnt->with++;
+		else
+			cnt->against++;
+	}
 
 	if (d->dir != 0) {
 		/* What ends the open segment at this row, first found. */

@@ -75,6 +75,9 @@ struct cap_counts {
 	unsigned long n[CAP_NREASON];
 	unsigned long cut[CAP_NREASON];	/* segments ended by GAP..NO_I,
 					 * whatever their fate */
+	/* Rows with a current of at least min_current whose SoC stepped
+	 * the way of the current, and against it: a sign check. */
+	unsigned long with, against;
 };
 
 /* A SoC step inside a segment. */
