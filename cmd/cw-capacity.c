@@ -17,6 +17,7 @@
 #include "dcir.h"
 #include "devtab.h"
 #include "fleet.h"
+#include "ocv.h"
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
@@ -37,7 +38,9 @@
 struct dev {
 	struct devent e;
 	int init;
+	int cells;
 	struct cap_dev cd;
+	struct cap_ocvdev od;
 	struct dcir_series ser;
 };
 
@@ -49,15 +52,18 @@ struct tool {
 	struct csvout rej;
 	int has_rej;
 	struct fleet *fleet;
+	struct ocv *ocv;
 	double rated;
+	int cells;
 	size_t max_points;
 	int trend;
 };
 
 enum {
-	OPT_CONFIDENCE = 256, OPT_EOL, OPT_FLEET, OPT_JUMP, OPT_MAX_GAP,
-	OPT_MAX_POINTS, OPT_MAX_REST, OPT_MIN_CURRENT, OPT_MIN_ESTIMATES,
-	OPT_MIN_SWING, OPT_RATED, OPT_REJECTS, OPT_TEMP, OPT_VERSION
+	OPT_CELLS = 256, OPT_CONFIDENCE, OPT_EOL, OPT_FLEET, OPT_JUMP,
+	OPT_MAX_GAP, OPT_MAX_POINTS, OPT_MAX_REST, OPT_MIN_CURRENT,
+	OPT_MIN_ESTIMATES, OPT_MIN_SWING, OPT_OCV, OPT_OCV_REST, OPT_OCV_SPAN,
+	OPT_RATED, OPT_REJECTS, OPT_TEMP, OPT_VERSION
 };
 
 static void	usage(FILE *fp);
@@ -74,13 +80,15 @@ static void
 usage(FILE *fp)
 {
 	fprintf(fp,
-	    "usage: cw-capacity [-htv] [--confidence P] [--eol PCT] "
-	    "[--fleet FILE]\n"
-	    "                   [--jump PTS] [--max-gap DUR] "
+	    "usage: cw-capacity [-htv] [--cells N] [--confidence P] "
+	    "[--eol PCT]\n"
+	    "                   [--fleet FILE] [--jump PTS] [--max-gap DUR] "
 	    "[--max-points N]\n"
 	    "                   [--max-rest DUR] [--min-current A] "
 	    "[--min-estimates N]\n"
-	    "                   [--min-swing PCT] [-o FILE] [--rated AH] "
+	    "                   [--min-swing PCT] [-o FILE] [--ocv FILE] "
+	    "[--ocv-rest DUR]\n"
+	    "                   [--ocv-span DUR] [--rated AH] "
 	    "[--rejects FILE]\n"
 	    "                   [--temp LO,HI | any] [--version] "
 	    "[FILE ...]\n");
@@ -89,6 +97,7 @@ usage(FILE *fp)
 "Measured capacity by coulomb counting over charge and discharge segments,\n"
 "and its fade per device.\n"
 "\n"
+"      --cells N           cells in series, for --ocv (default 1)\n"
 "      --confidence P      confidence level of the slope's interval\n"
 "                          (default 0.95)\n"
 "      --eol PCT           end of life at PCT percent of the rated\n"
@@ -106,6 +115,11 @@ usage(FILE *fp)
 "      --min-estimates N   fewest estimates for a trend (default 5)\n"
 "      --min-swing PCT     smallest SoC change of an estimate (default 20)\n"
 "  -o, --output FILE       write to FILE atomically, not standard output\n"
+"      --ocv FILE          SoC from the rest voltage by this OCV table,\n"
+"                          not from soc_pct\n"
+"      --ocv-rest DUR      rest before a voltage is an OCV point\n"
+"                          (default 30m)\n"
+"      --ocv-span DUR      longest time between two OCV points (default 1d)\n"
 "      --rated AH          rated capacity of every pack (default none)\n"
 "      --rejects FILE      write the rejected segments and why to FILE\n"
 "  -t, --trend             one row per device with the trend\n"
@@ -128,6 +142,14 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 		d->init = 1;
 		cap_dev_init(&d->cd, fleet_capacity(t->fleet, d->e.name,
 		    d->e.namelen, t->rated));
+		d->cells = fleet_cells(t->fleet, d->e.name, d->e.namelen,
+		    t->cells);
+	}
+	if (t->ocv != NULL) {
+		if (cap_ocv_feed(&t->conf, t->ocv, &d->od, s->t,
+		    s->v / d->cells, s->i, s->temp, &t->cnt, &e) == 1)
+			return on_est(t, d, &e);
+		return 0;
 	}
 	if (cap_feed(&t->conf, &d->cd, s->t, s->i, s->temp, s->soc, &t->cnt,
 	    &e) == 1)
@@ -263,6 +285,7 @@ int
 main(int argc, char *argv[])
 {
 	static const struct option longopts[] = {
+		{ "cells", required_argument, NULL, OPT_CELLS },
 		{ "confidence", required_argument, NULL, OPT_CONFIDENCE },
 		{ "eol", required_argument, NULL, OPT_EOL },
 		{ "fleet", required_argument, NULL, OPT_FLEET },
@@ -274,6 +297,9 @@ main(int argc, char *argv[])
 		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
 		{ "min-estimates", required_argument, NULL, OPT_MIN_ESTIMATES },
 		{ "min-swing", required_argument, NULL, OPT_MIN_SWING },
+		{ "ocv", required_argument, NULL, OPT_OCV },
+		{ "ocv-rest", required_argument, NULL, OPT_OCV_REST },
+		{ "ocv-span", required_argument, NULL, OPT_OCV_SPAN },
 		{ "output", required_argument, NULL, 'o' },
 		{ "rated", required_argument, NULL, OPT_RATED },
 		{ "rejects", required_argument, NULL, OPT_REJECTS },
@@ -290,6 +316,7 @@ main(int argc, char *argv[])
 	struct outf *of, *rf = NULL;
 	struct cap_est e;
 	const char *outpath = NULL, *rejpath = NULL, *fleetpath = NULL;
+	const char *ocvpath = NULL;
 	double w[2];
 	void **sorted;
 	size_t i, n;
@@ -301,6 +328,7 @@ main(int argc, char *argv[])
 	cap_trend_conf_default(&t.tconf);
 	t.max_points = MAX_POINTS_DEFAULT;
 	t.rated = CW_MISSING;
+	t.cells = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":ho:tv", longopts, NULL)) !=
 	    -1) {
@@ -316,6 +344,9 @@ main(int argc, char *argv[])
 			break;
 		case 'v':
 			cw_verbose = 1;
+			break;
+		case OPT_CELLS:
+			t.cells = (int)opt_long_arg("--cells", optarg, 1, 1000);
 			break;
 		case OPT_CONFIDENCE:
 			t.tconf.conf = opt_num_arg("--confidence", optarg,
@@ -364,6 +395,15 @@ main(int argc, char *argv[])
 				cw_usage_error("--min-swing: %s is not above 0",
 				    optarg);
 			break;
+		case OPT_OCV:
+			ocvpath = optarg;
+			break;
+		case OPT_OCV_REST:
+			t.conf.ocv_rest = opt_dur_arg("--ocv-rest", optarg, 0);
+			break;
+		case OPT_OCV_SPAN:
+			t.conf.ocv_span = opt_dur_arg("--ocv-span", optarg, 0);
+			break;
 		case OPT_RATED:
 			t.rated = opt_num_arg("--rated", optarg, 0, 1e9);
 			if (t.rated <= 0)
@@ -397,6 +437,8 @@ main(int argc, char *argv[])
 
 	if (fleetpath != NULL)
 		t.fleet = fleet_load(fleetpath);
+	if (ocvpath != NULL)
+		t.ocv = ocv_load(ocvpath);
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
@@ -410,7 +452,8 @@ main(int argc, char *argv[])
 
 	memset(&sc, 0, sizeof(sc));
 	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_SOC);
+	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
+	    SAMP_SOC);
 	if (!t.conf.temp_any)
 		sc.need |= SAMP_BIT(SAMP_TEMP);
 	sc.row = on_row;
@@ -424,8 +467,9 @@ main(int argc, char *argv[])
 		for (i = 0; i < n && rc == 0; i++) {
 			struct dev *d = devtab_at(devs, i);
 
-			if (d->init && cap_finish(&t.conf, &d->cd, &t.cnt,
-			    &e) == 1)
+			if (d->init && (t.ocv != NULL ? cap_ocv_finish(&t.conf,
+			    &d->od, &t.cnt, &e) : cap_finish(&t.conf, &d->cd,
+			    &t.cnt, &e)) == 1)
 				rc = on_est(&t, d, &e);
 		}
 	}
@@ -445,6 +489,7 @@ main(int argc, char *argv[])
 			csvout_free(&t.rej);
 		free_devs(devs);
 		fleet_free(t.fleet);
+		ocv_free(t.ocv);
 		return rc;
 	}
 	if (t.trend) {
@@ -472,5 +517,6 @@ main(int argc, char *argv[])
 		csvout_free(&t.rej);
 	free_devs(devs);
 	fleet_free(t.fleet);
+	ocv_free(t.ocv);
 	return CW_EXIT_OK;
 }

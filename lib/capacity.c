@@ -8,6 +8,7 @@
 
 #include "capacity.h"
 #include "charge.h"
+#include "ocv.h"
 #include "theilsen.h"
 
 #define US_PER_DAY	(86400.0 * CW_US_PER_S)
@@ -31,6 +32,8 @@ static int	judge(const struct cap_conf *c, struct cap_dev *d,
 		    enum cap_reason end, struct cap_counts *cnt,
 		    struct cap_est *out);
 static int	cmp_double(const void *a, const void *b);
+static int	ocv_commit(const struct cap_conf *c, struct cap_ocvdev *d,
+		    struct cap_counts *cnt, struct cap_est *out);
 static double	median(const double *x, unsigned n);
 
 void
@@ -44,6 +47,8 @@ cap_conf_default(struct cap_conf *c)
 	c->temp_hi = 45;
 	c->min_swing = 20;
 	c->jump = 2;
+	c->ocv_rest = 30 * 60 * CW_US_PER_S;
+	c->ocv_span = 86400 * CW_US_PER_S;
 }
 
 void
@@ -319,6 +324,108 @@ cap_finish(const struct cap_conf *c, struct cap_dev *d,
 	if (d->dir == 0)
 		return 0;
 	return judge(c, d, CAP_SWING, cnt, out);
+}
+
+/*
+ * The rest of D has ended: its candidate becomes a point.  Returns 1 with
+ * *OUT when it ends an estimate.
+ */
+static int
+ocv_commit(const struct cap_conf *c, struct cap_ocvdev *d,
+    struct cap_counts *cnt, struct cap_est *out)
+{
+	const struct cap_pt *a = &d->anchor, *p = &d->cand;
+	double ds, q;
+
+	if (!d->has_cand)
+		return 0;
+	d->has_cand = 0;
+	if (!d->has_anchor || p->t - a->t > c->ocv_span) {
+		d->anchor = *p;
+		d->has_anchor = 1;
+		return 0;
+	}
+	ds = p->soc - a->soc;
+	if (fabs(ds) < c->min_swing)
+		return 0;
+	q = p->q - a->q;
+	memset(out, 0, sizeof out[0]);
+	out->dir = q > 0 ? 1 : -1;
+	out->start = a->t;
+	out->end = p->t;
+	out->soc_from = a->soc;
+	out->soc_to = p->soc;
+	out->charge_ah = q;
+	out->temp_c = (a->temp + p->temp) / 2;
+	out->rows = p->rows - a->rows;
+	out->resolution_pct = CW_MISSING;
+	out->capacity_ah = CW_MISSING;
+	if (ds * q <= 0)
+		out->reason = CAP_SIGN;
+	else {
+		out->reason = CAP_OK;
+		out->capacity_ah = 100 * fabs(q) / fabs(ds);
+	}
+	cnt->n[out->reason]++;
+	d->anchor = *p;
+	return 1;
+}
+
+int
+cap_ocv_feed(const struct cap_conf *c, const struct ocv *o,
+    struct cap_ocvdev *d, cw_time t, double v_cell, double i_a,
+    double temp_c, struct cap_counts *cnt, struct cap_est *out)
+{
+	int n = 0, low = fabs(i_a) < c->min_current;
+	double soc;
+
+	if (!d->have_prev || t - d->prev_t > c->max_gap || !cw_isnum(i_a)) {
+		/* Nothing is known of the charge before: a rest held so far
+		 * is still a point, but no estimate spans this row. */
+		if (d->have_prev) {
+			n = ocv_commit(c, d, cnt, out);
+			cnt->cut[cw_isnum(i_a) ? CAP_GAP : CAP_NO_I]++;
+		}
+		d->have_prev = 1;
+		d->has_anchor = 0;
+		d->q = 0;
+		d->rows = 0;
+		d->resting = cw_isnum(i_a) && low;
+		d->rest_start = t;
+		d->prev_t = t;
+		return n;
+	}
+	d->q += charge_ah(i_a, d->prev_t, t, c->max_gap);
+	d->rows++;
+	if (!low) {
+		n = ocv_commit(c, d, cnt, out);
+		d->resting = 0;
+	} else {
+		if (!d->resting) {
+			d->resting = 1;
+			d->rest_start = d->prev_t;
+		}
+		soc = cw_isnum(v_cell) ? ocv_soc(o, v_cell) : CW_MISSING;
+		if (t - d->rest_start >= c->ocv_rest && cw_isnum(soc) &&
+		    (c->temp_any || (temp_c >= c->temp_lo &&
+		    temp_c <= c->temp_hi))) {
+			d->cand.t = t;
+			d->cand.soc = soc;
+			d->cand.temp = temp_c;
+			d->cand.q = d->q;
+			d->cand.rows = d->rows;
+			d->has_cand = 1;
+		}
+	}
+	d->prev_t = t;
+	return n;
+}
+
+int
+cap_ocv_finish(const struct cap_conf *c, struct cap_ocvdev *d,
+    struct cap_counts *cnt, struct cap_est *out)
+{
+	return ocv_commit(c, d, cnt, out);
 }
 
 void

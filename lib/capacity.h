@@ -50,6 +50,9 @@ struct cap_conf {
 	double temp_lo, temp_hi;	/* C, the window */
 	double min_swing;	/* points of SoC between the steps */
 	double jump;		/* points a step may miss the charge by */
+	/* With an OCV table (cap_ocv_feed): */
+	cw_time ocv_rest;	/* rest before a voltage is an OCV point */
+	cw_time ocv_span;	/* longest time between two points */
 };
 
 /* Defaults as SPEC.md and the manual page give them. */
@@ -142,6 +145,49 @@ int	cap_feed(const struct cap_conf *c, struct cap_dev *d, cw_time t,
 	    struct cap_est *out);
 /* At the end of the input: judge the open segment, as cap_feed(). */
 int	cap_finish(const struct cap_conf *c, struct cap_dev *d,
+	    struct cap_counts *cnt, struct cap_est *out);
+
+/*
+ * The voltage-based variant, for gauges without a SoC: an OCV point is the
+ * last row of a rest (rows below min_current, no gap) at least ocv_rest
+ * long, whose cell voltage the OCV table turns into a SoC, inside the
+ * temperature window.  Between two points at most ocv_span apart, with no
+ * gap and no row without current between them, the charge is counted as
+ * ever, and a SoC change of at least min_swing gives an estimate; a
+ * smaller one keeps the earlier point, so small moves add up.  The
+ * temperature between the points does not matter: both are rested states.
+ */
+struct ocv;
+
+struct cap_pt {
+	cw_time t;
+	double soc, temp;
+	double q;		/* charge since the state was reset */
+	unsigned long rows;	/* rows since then */
+};
+
+struct cap_ocvdev {
+	int have_prev;
+	cw_time prev_t;
+	double q;
+	unsigned long rows;
+	int resting;
+	cw_time rest_start;
+	int has_cand, has_anchor;
+	struct cap_pt cand;	/* the last rested row of this rest */
+	struct cap_pt anchor;	/* the point estimates start from */
+};
+
+/*
+ * Feed a row of a device: cell voltage V_CELL, current, temperature (NaN
+ * when missing), against the table O.  Returns 1 with *OUT when an
+ * estimate (or a segment rejected for its sign) ends here, else 0.
+ */
+int	cap_ocv_feed(const struct cap_conf *c, const struct ocv *o,
+	    struct cap_ocvdev *d, cw_time t, double v_cell, double i_a,
+	    double temp_c, struct cap_counts *cnt, struct cap_est *out);
+/* At the end of the input: a rest still open gives its point. */
+int	cap_ocv_finish(const struct cap_conf *c, struct cap_ocvdev *d,
 	    struct cap_counts *cnt, struct cap_est *out);
 
 struct cap_trend_conf {
