@@ -28,6 +28,13 @@
 #    fitted pack but at most one (a 95 % interval misses by chance one
 #    time in 20; with four or five fitted packs one miss or more happens
 #    about one time in five, two or more one time in fifty);
+#  - --ocv with cw-synth's own OCV curve (testdata/ocv-synth.csv, from
+#    the formula of cw-synth(1)) on the first run, as if the gauge had
+#    no SoC: the same accuracy checks for every pack with a trend, no
+#    estimate without a swing, and a trend for every deep-depot pack (the
+#    ones that rest: parked overnight at the depot on 0.01 to 0.03 A; the
+#    docked ones draw 0.08 to 0.25 A on the dock, and a draw above
+#    --min-current is no rest);
 #  - all of the above again with cw-synth's default faults (gaps, clock
 #    jumps, duplicates, late and stale rows, sentinels, cut lines; cw-clean
 #    mends or drops what it can, its warnings are not the point here).
@@ -43,6 +50,10 @@ for run in 1:none 0:none 1:default; do
 	cw-capacity -o "$d/est.csv" "$d/s.csv"
 	cw-capacity -t --rated 14 -o "$d/trend.csv" "$d/s.csv"
 done
+d=$tmp/a1none
+O="--ocv testdata/ocv-synth.csv --cells 10"
+cw-capacity $O -o "$d/ocv-est.csv" "$d/s.csv"
+cw-capacity $O -t --rated 14 -o "$d/ocv-trend.csv" "$d/s.csv"
 /usr/bin/python3 - "$tmp" <<'PY'
 import csv, datetime, os, sys
 fails = []
@@ -118,6 +129,46 @@ for run in ('1none', '0none', '1default'):
               % (holds, fitted))
         print('aging 0: zero inside the interval for %d of %d fitted packs'
               % (holds, fitted))
+# The rest-voltage variant on the first run: no gauge SoC at all.
+d = os.path.join(sys.argv[1], 'a1none')
+truth = {r['device']: r for r in load(os.path.join(d, 'truth-devices.csv'))}
+trend = {r['device']: r for r in load(os.path.join(d, 'ocv-trend.csv'))}
+def cap_at(dv, when):
+    x = truth[dv]
+    c0, c1 = float(x['capacity_start_ah']), float(x['capacity_end_ah'])
+    t0, t1 = t(x['first']), t(x['last'])
+    return c0 + (c1 - c0) * (when - t0) / (t1 - t0)
+n, worst, per = 0, 0.0, {}
+for r in load(os.path.join(d, 'ocv-est.csv')):
+    dv = r['device']
+    per[dv] = per.get(dv, 0) + 1
+    err = 100 * (float(r['capacity_ah']) /
+                 cap_at(dv, (t(r['start']) + t(r['end'])) / 2) - 1)
+    n += 1
+    worst = max(worst, abs(err))
+    check(abs(err) <= 4, 'ocv %s: estimate %s at %s off by %.2f %%'
+          % (dv, r['capacity_ah'], r['start'], err))
+print('ocv: %d estimates, worst %.2f %%' % (n, worst))
+for dv, x in sorted(truth.items()):
+    r = trend[dv]
+    tag = 'ocv %s (%s, %s swings)' % (dv, x['profile'], x['swings_20'])
+    if x['swings_20'] == '0':
+        check(per.get(dv, 0) == 0, '%s: estimates without a swing' % tag)
+    if x['profile'] == 'deep-depot':
+        check(r['capacity_start_ah'] != '', '%s: no trend' % tag)
+    if r['capacity_start_ah'] == '':
+        continue
+    c0 = cap_at(dv, t(r['first']))
+    got = float(r['capacity_start_ah'])
+    check(abs(got / c0 - 1) <= 0.02, '%s: capacity_start %.4f, truth %.4f'
+          % (tag, got, c0))
+    days = (t(x['last']) - t(x['first'])) / 86400
+    want = float(x['fade_pct']) / days * 30
+    fr = float(r['fade_pct_per_30d'])
+    check(abs(fr - want) <= max(0.25 * want, 0.4), '%s: fade per 30 d '
+          '%.3f, truth %.3f' % (tag, fr, want))
+    print('%s: start %.3f Ah (truth %.3f, %+.2f %%), fade per 30 d %.2f %% '
+          '(truth %.2f %%)' % (tag, got, c0, 100 * (got / c0 - 1), fr, want))
 for f in fails[:20]:
     print('FAIL', f)
 print(len(fails), 'failures')
