@@ -68,7 +68,7 @@ usage(FILE *fp, int status)
 "                      day), header (per file); 0 disables one\n"
 "      --mix w,w,w,w   weights of the profiles deep-depot, topup-dock,\n"
 "                      idle-dock, topup-nocutoff (default 3,3,3,1)\n"
-"      --aging x       multiply every resistance growth rate (default 1)\n"
+"      --aging x       multiply every growth and fade rate (default 1)\n"
 "  -o, --outdir dir    write the files there (default .; made if missing)\n"
 "  -z, --level n       gzip level 0..9 (default 1)\n"
 "  -v, --verbose       print what was written to stderr\n"

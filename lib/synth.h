@@ -95,6 +95,12 @@ struct synth_pack {
 	double k_cal;		/* growth per second at 25 C, full charge */
 	double k_cyc;		/* growth per equivalent full cycle at 25 C */
 	double k_cold;		/* growth per capacity charged at 0 C */
+	/* Capacity fade, by the same stresses at rates of its own. */
+	double cap0_ah;		/* true capacity when new, Ah */
+	double fade;		/* fraction of cap0_ah lost so far */
+	double kf_cal;		/* fade per second at 25 C, full charge */
+	double kf_cyc;		/* fade per equivalent full cycle at 25 C */
+	double kf_cold;		/* fade per capacity charged at 0 C */
 	/* What the last step did, for the caller's bookkeeping. */
 	double v;		/* terminal voltage at its end, V */
 	double heat_w;		/* heat generated in it, W */
@@ -197,7 +203,7 @@ struct synth_conf {
 	long period_s;		/* sampling period, s; divides 86400 */
 	uint64_t seed;
 	double mix[SYNTH_NPROFILE];	/* weights of the profiles */
-	double aging;		/* multiplies every growth rate */
+	double aging;		/* multiplies every growth and fade rate */
 	double rate[SYNTH_NFAULT];
 	unsigned formats;	/* SYNTH_FMT_* bits */
 	int level;		/* gzip level */
@@ -245,6 +251,12 @@ struct synth_truth {
 	double peak_soc;
 	double hours_soc95, hours_t45;
 	double cold_ah, hot_ah;		/* charge below 10 C, above 45 C */
+	double cap_first;		/* true capacity at the first sample */
+	/* Swings of true SoC: runs between turning points (1 point of
+	 * hysteresis), counted when they span 20 points or more. */
+	int sw_dir;
+	double sw_from, sw_ext;
+	unsigned long swings20;
 	unsigned long rides, plugins, cevents, topoffs;
 	unsigned long rows;		/* samples taken */
 	unsigned long written;		/* data lines written (one format) */
@@ -285,6 +297,8 @@ struct synth_dev {
 	/* The gauge. */
 	double g_deficit;	/* Ah below full, as the gauge counts */
 	double g_gain, g_off;	/* its current error: gain, offset A */
+	double g_drift;		/* its SoC drift, points per second */
+	double g_bias;		/* drift since the last full-charge reset */
 	/* Truth bookkeeping. */
 	struct synth_truth tr;
 	int have_prev;

@@ -676,7 +676,8 @@ write_devices(struct run *r)
 	    "efc,max_depth_pct,rides,plug_ins,hours_soc_ge_95,"
 	    "hours_temp_ge_45,cold_charge_ah,hot_charge_ah,charge_events,"
 	    "topoff_cycles,rows,lines,dup,late,stale,trunc,sentinel,gaps,"
-	    "gap_rows,jumps,jump_rows");
+	    "gap_rows,jumps,jump_rows,capacity_start_ah,capacity_end_ah,"
+	    "fade_pct,gauge_gain_pct,gauge_drift_pct_per_day,swings_20");
 	for (i = 0; i < n; i++) {
 		struct synth_dev *d = synth_fleet_dev(r->f, i);
 
@@ -694,7 +695,7 @@ write_devices(struct run *r)
 		synth_dev_site(d, site);
 		csvout_str(w, site);
 		csvout_str(w, d->gauge_int ? "int" : "tenth");
-		csvout_fixed(w, p->cap_ah, 4);
+		csvout_fixed(w, p->cap0_ah, 4);
 		csvout_fixed(w, p->r0_ref, 6);
 		csvout_fixed(w, p->r0_ref * g, 6);
 		csvout_fixed(w, p->r1_ref, 6);
@@ -710,7 +711,7 @@ write_devices(struct run *r)
 		csvout_fixed(w, tr->charge_ah, 4);
 		csvout_fixed(w, tr->discharge_ah, 4);
 		csvout_fixed(w, (tr->charge_ah + tr->discharge_ah) /
-		    (2.0 * p->cap_ah), 4);
+		    (2.0 * p->cap0_ah), 4);
 		csvout_fixed(w, tr->max_depth, 3);
 		csvout_int(w, (long long)tr->rides);
 		csvout_int(w, (long long)tr->plugins);
@@ -728,6 +729,12 @@ write_devices(struct run *r)
 		csvout_int(w, (long long)tr->gap_rows);
 		csvout_int(w, (long long)tr->fault[SYNTH_F_JUMP]);
 		csvout_int(w, (long long)tr->jump_rows);
+		csvout_fixed(w, tr->cap_first, 4);
+		csvout_fixed(w, p->cap_ah, 4);
+		csvout_fixed(w, 100.0 * (1.0 - p->cap_ah / tr->cap_first), 4);
+		csvout_fixed(w, 100.0 * d->g_gain, 4);
+		csvout_fixed(w, 86400.0 * d->g_drift, 4);
+		csvout_int(w, (long long)tr->swings20);
 		csvout_endrow(w);
 	}
 	free(v);

@@ -5,8 +5,8 @@
 #
 # The truth counts with the true current, SoC and temperature of each
 # 10 s row; the tools see the gauge: current with 8 mA of noise, SoC by
-# coulomb counting against 14 Ah (the true capacity is 4 % below to 3 %
-# above), with a gain error up to 1.5 %, an offset drift, re-anchored to
+# coulomb counting over the pack's true capacity (as it fades), with a
+# gain error up to 1.5 %, an offset and a drift, re-anchored to
 # 100 at each termination and shown in whole percent on some packs,
 # temperature in 0.1 K steps offset 0.05 K from whole degrees plus 0.1 K
 # of noise.  Checks and their tolerances:
@@ -14,11 +14,11 @@
 #    is positive although part of their interval discharged);
 #  - cw-wear's efc equals cw-rainflow --summary's (one engine, ASTM
 #    E1049-85); against the truth's efc ((charge + discharge) / 2 / true
-#    capacity), scaled to the gauge's 14 Ah and less the top-offs shallower
+#    capacity at the start), less the top-offs shallower
 #    than the 1 % hysteresis (truth-topoff.csv), within 6 % + 0.1 EFC
 #    (1.5 % gain, the drift and re-anchoring, whole-percent steps; the
 #    ratios measured over several seeds lie within 0.96 to 1.05);
-#  - max_depth_pct, scaled likewise, within 2 points + 3 % of the truth's
+#  - max_depth_pct within 2 points + 3 % of the truth's
 #    largest fall from an earlier peak;
 #  - cold and hot charge bracketed: with T2 moved 0.5 K down, cold_charge_ah
 #    is at most the truth's (+ 0.01 Ah); moved 0.5 K up, at least (- 0.01
@@ -33,11 +33,16 @@
 #  - dominant, the packs rated as their data sheet would (--cycle-life
 #    500, as in the demo): cold-charge exactly for the packs that took at
 #    least 2 % of their charge below 10 C by the truth (SPEC.md's rule
-#    applied to the truth, whose shares are 0 or above 80 % here).  And
+#    applied to the truth, whose shares are 0 or above 80 % here), judged
+#    with T2 moved 0.5 K down as above: a dock charger holds a cold pack
+#    until it is 10 C warm, so its charge sits on the threshold and
+#    4.5 sigma of the noise decide whether 2 % of it reads below.  And
 #    the scenario's intent in summer, the model's verdict rather than a
 #    truth (the truth has no dominant column): the deep-depot packs,
-#    cycled deep daily and stored indoors, are cycling; every pack left
-#    on a dock in the sun, near full, is heat or high-soc.
+#    cycled deep daily and stored indoors, are cycling, or heat where the
+#    two shares are within 0.05 of each other (a tie: the verdict then
+#    turns on a few percent of depth); every pack left on a dock in the
+#    sun, near full, is heat or high-soc.
 set -eu
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
@@ -91,17 +96,16 @@ for season in ('2026-01-12', '2026-07-13'):
     for dv, x in truth.items():
         w = wear[dv]
         tag = '%s %s' % (season, dv)
-        cap = float(x['capacity_ah'])
         a, b = float(w['charge_ah']), float(x['charge_ah'])
         check(abs(a - b) <= 0.005 * b + 0.05, '%s: charge %g, truth %g' %
               (tag, a, b))
         check(w['efc'] == rf[dv]['efc'], '%s: efc %s, cw-rainflow %s' %
               (tag, w['efc'], rf[dv]['efc']))
         want = float(x['efc']) - shallow[dv]
-        got = float(rf[dv]['efc']) * 14 / cap
+        got = float(rf[dv]['efc'])
         check(abs(got - want) <= 0.06 * want + 0.1, '%s: efc %.3f (scaled '
               'to the true capacity), truth %.3f' % (tag, got, want))
-        got = float(rf[dv]['max_range']) * 14 / cap
+        got = float(rf[dv]['max_range'])
         want = float(x['max_depth_pct'])
         check(abs(got - want) <= 2 + 0.03 * want, '%s: max depth %.2f, '
               'truth %.2f' % (tag, got, want))
@@ -117,12 +121,15 @@ for season in ('2026-01-12', '2026-07-13'):
             check(abs(a - b) <= near[dv] + 0.1, '%s: %s %g, truth %g, '
                   '%.2f h near the threshold' % (tag, k, a, b, near[dv]))
         cold = float(x['cold_charge_ah']) / float(x['charge_ah'])
-        check((w['dominant'] == 'cold-charge') == (cold >= 0.02),
-              '%s: dominant %s, truth cold share %.3f' % (tag, w['dominant'],
-              cold))
+        check((wide[dv]['dominant'] == 'cold-charge') == (cold >= 0.02),
+              '%s: dominant %s, truth cold share %.3f' % (tag,
+              wide[dv]['dominant'], cold))
         if season == '2026-07-13':
-            ok = ('cycling',) if x['profile'] == 'deep-depot' else \
-                 ('heat', 'high-soc')
+            tie = abs(float(w['share_cycling']) -
+                      float(w['share_heat'])) < 0.05
+            ok = ('cycling', 'heat') if x['profile'] == 'deep-depot' and \
+                 tie else ('cycling',) if x['profile'] == 'deep-depot' \
+                 else ('heat', 'high-soc')
             check(w['dominant'] in ok, '%s (%s): dominant %s' %
                   (tag, x['profile'], w['dominant']))
     print(season, ' '.join('%s:%s' % (dv, wear[dv]['dominant'])
