@@ -10,6 +10,7 @@
 # its gauge jumps by 4 points on 2026-05-01, which ends that discharge
 # early (89 to 75.3, 13.7 points: rejected, jump) and begins another.
 # Everything else: snapshot.
+# source: hand
 cd "$TMPDIR_CASE" || exit 2
 top=$OLDPWD
 ln -s "$top/testdata" testdata

@@ -6,6 +6,7 @@
 # output.  By hand from testdata/capacity-fleet.py: EB-0102's last
 # estimate, 108 days after its first, is of 12.6 - 0.012 x 108 = 11.30 Ah,
 # 80.7 % of 14 Ah and 90.4 % of 12.5 Ah (the fitted line: 11.29 Ah).
+# source: hand
 cd "$TMPDIR_CASE" || exit 2
 top=$OLDPWD
 printf 'device,site,capacity_ah\nEB-0102,dock-02,12.5\nEB-0999,x,10\n' \

@@ -2,6 +2,7 @@
 # every option of OPTIONS in the help and no other, each with the manual's
 # default (tests/tools/helpman.sh); -h prints the same as --help;
 # --version prints the version.
+# source: spec
 sh tests/tools/helpman.sh cw-capacity
 echo "rc=$?"
 cw-capacity -h >"$TMPDIR_CASE/h"

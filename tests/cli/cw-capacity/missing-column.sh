@@ -3,6 +3,7 @@
 # which makes the temperature optional (and then the 25 Ah estimate by
 # hand: 10 A for 36 s a row is 0.1 Ah, 0.4 points of 25 Ah; 60 rows from
 # 90 to 66, steps from 89.6: 59 rows, 5.9 Ah over 23.6 points).
+# source: hand
 cd "$TMPDIR_CASE" || exit 2
 printf 'device,time,current_a,temp_c\nA,0,1,25\n' >nosoc.csv
 cw-capacity nosoc.csv

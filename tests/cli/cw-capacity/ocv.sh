@@ -6,6 +6,7 @@
 # not an OCV point (shorter than --ocv-rest 30m); --ocv-rest 15m makes it
 # one (70 %, 6 Ah over 30 points: 20 Ah again).  The rows need no
 # soc_pct.  Then the table's errors: FILE:LINE, exit 1.
+# source: hand
 cd "$TMPDIR_CASE" || exit 2
 printf 'voltage_v,soc_pct\n3.0,0\n4.0,100\n' >ocv.csv
 awk 'BEGIN { print "device,time,voltage_v,current_a,temp_c"; t = 0

@@ -1,6 +1,7 @@
 # -o FILE and --rejects FILE are written atomically: on a data error (here
 # a second input without soc_pct) both keep their old contents and no
 # temporary file is left beside them; on success they are replaced.
+# source: spec
 cd "$TMPDIR_CASE" || exit 2
 top=$OLDPWD
 echo old contents >out.csv

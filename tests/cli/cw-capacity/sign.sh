@@ -4,6 +4,7 @@
 # check; exit 0.
 # testdata/capacity-fleet.csv has 10-minute rows of 3.3 points, each a
 # jump against the current (cw-capacity(1), Jumps and resets).
+# source: hand
 awk -F, -v OFS=, 'NR > 1 { $4 = -$4 } { print }' \
     testdata/capacity-fleet.csv | cw-capacity -v
 echo "rc=$?"

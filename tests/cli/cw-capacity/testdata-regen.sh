@@ -1,4 +1,5 @@
 # testdata/capacity-fleet.csv is what testdata/capacity-fleet.py writes.
+# source: snapshot: the generator's output pinned byte for byte
 cd "$TMPDIR_CASE" || exit 2
 top=$OLDPWD
 cp "$top/testdata/capacity-fleet.py" .

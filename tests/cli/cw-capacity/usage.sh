@@ -1,5 +1,6 @@
 # Bad option values are usage errors (exit 2), never silently 0; so is
 # --rejects to standard output (which holds the estimates).
+# source: spec
 for o in "--min-current 0" "--min-current x" "--min-swing 0" \
     "--min-swing 101" "--temp 45,10" "--temp 10" "--temp cold" \
     "--eol 0" "--eol 100" "--rated 0" "--rated -1" "--rated 14Ah" \
