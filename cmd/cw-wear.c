@@ -13,6 +13,7 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "fleet.h"
 #include "model.h"
 #include "opt.h"
 #include "outf.h"
@@ -22,9 +23,10 @@
 #include "wearstate.h"
 
 #define HEADER "device,first,last,days,charge_ah,efc,max_depth_pct," \
-	"hours_soc_ge_95,hours_temp_ge_45,cold_charge_ah,hot_charge_ah," \
-	"topoff_cycles,share_cycling,share_high_soc,share_heat,fade_pct," \
-	"days_to_eol,dominant,damage"
+	"hours_near_full,hours_hot,cold_charge_ah,cool_charge_ah," \
+	"hot_charge_ah,topoff_cycles,share_age,share_cycling," \
+	"share_high_soc,share_heat,fade_pct,soh_pct,days_to_eol,dominant," \
+	"prior,damage,damage_prior"
 #define HEADER_CAP ",max_charge_c,mean_charge_c,fade_ah"
 #define MAXWARN 10	/* messages of one kind, then only a count */
 
@@ -47,6 +49,9 @@ struct piece {
 struct run {
 	struct wear_conf conf;
 	double capacity;	/* Ah, 0 when not given */
+	struct fleet *fleet;	/* --fleet, or NULL */
+	const char *fleet_path;
+	unsigned long late_service;	/* in_service after the first row */
 	struct devtab *devs;
 	unsigned long joins;	/* states joined after or before another */
 	unsigned long stale;	/* rows already in a loaded state */
@@ -59,7 +64,8 @@ struct run {
 };
 
 enum {
-	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_FULL,
+	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_FLEET,
+	OPT_FULL,
 	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
 	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
@@ -69,6 +75,7 @@ static const struct option longopts[] = {
 	{ "calendar-life", required_argument, NULL, OPT_CALENDAR_LIFE },
 	{ "capacity", required_argument, NULL, OPT_CAPACITY },
 	{ "cycle-life", required_argument, NULL, OPT_CYCLE_LIFE },
+	{ "fleet", required_argument, NULL, OPT_FLEET },
 	{ "full", required_argument, NULL, OPT_FULL },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
 	{ "help", no_argument, NULL, 'h' },
@@ -102,6 +109,7 @@ static void write_row(struct csvout *, const struct run *,
 static void write_states(struct outf *, const char *, struct run *,
     struct dev **, size_t);
 static void report(const struct run *, struct dev **, size_t);
+static void set_prior(struct run *, struct dev *);
 
 static void
 usage(FILE *fp)
@@ -109,7 +117,7 @@ usage(FILE *fp)
 	fprintf(fp,
 	    "usage: cw-wear [-hv] [--calendar-life DAYS] [--capacity AH] "
 	    "[--cycle-life N]\n"
-	    "               [--full PCT] [--full-voltage V] "
+	    "               [--fleet FILE] [--full PCT] [--full-voltage V] "
 	    "[--hysteresis PCT]\n"
 	    "               [--limits T1,T2,T3,T4] [--max-gap DUR] "
 	    "[--min-current A]\n"
@@ -284,19 +292,24 @@ write_row(struct csvout *w, const struct run *r, const struct dev *d,
 	csvout_num(w, x->charge_ah);
 	csvout_num(w, x->efc);
 	csvout_num(w, x->max_depth_pct);
-	csvout_num(w, x->hours_soc_ge_95);
-	csvout_num(w, x->hours_temp_ge_45);
+	csvout_num(w, x->hours_near_full);
+	csvout_num(w, x->hours_hot);
 	csvout_num(w, x->cold_charge_ah);
+	csvout_num(w, x->cool_charge_ah);
 	csvout_num(w, x->hot_charge_ah);
 	csvout_num(w, x->topoff_cycles);
+	csvout_num(w, x->share_age);
 	csvout_num(w, x->share_cycling);
 	csvout_num(w, x->share_high_soc);
 	csvout_num(w, x->share_heat);
 	csvout_num(w, x->fade_pct);
+	csvout_num(w, x->soh_pct);
 	csvout_num(w, x->days_to_eol);
 	csvout_str(w, x->dominant);
+	csvout_str(w, x->prior);
 	csvout_num(w, x->damage);
-	if (r->capacity > 0) {
+	csvout_num(w, x->damage_prior);
+	if (r->capacity > 0 || r->fleet != NULL) {
 		csvout_num(w, x->max_charge_c);
 		csvout_num(w, x->mean_charge_c);
 		csvout_num(w, x->fade_ah);
@@ -365,6 +378,48 @@ report(const struct run *r, struct dev **devs, size_t n)
 		    t.topoff_cut, WEAR_PRE_MAX);
 }
 
+/*
+ * The prior of device D from the fleet file, unless its state has one
+ * (the state's first row is the one the prior was taken for): a measured
+ * SoH first, else its time in service before the first row and its
+ * equivalent full cycles.
+ */
+static void
+set_prior(struct run *r, struct dev *d)
+{
+	const struct fleet_pack *p;
+	struct wear_prior *w = &d->w.prior;
+	char t[2][TS_FMTMAX];
+
+	p = fleet_find(r->fleet, d->e.name, d->e.namelen);
+	if (p == NULL || w->kind != WEAR_PRIOR_NEW || !d->w.acc.have)
+		return;
+	if (p->have & FLEET_SOH) {
+		w->kind = WEAR_PRIOR_SOH;
+		w->soh_pct = p->soh_pct;
+		return;
+	}
+	if (!(p->have & (FLEET_IN_SERVICE | FLEET_EFC_PRIOR)))
+		return;
+	w->kind = WEAR_PRIOR_AGE;
+	if (p->have & FLEET_EFC_PRIOR)
+		w->efc = p->efc_prior;
+	if (!(p->have & FLEET_IN_SERVICE))
+		return;
+	if (p->in_service <= d->w.acc.first) {
+		w->age_s = (double)(d->w.acc.first - p->in_service) /
+		    CW_US_PER_S;
+		return;
+	}
+	if (r->late_service++ < MAXWARN) {
+		ts_format(p->in_service, t[0]);
+		ts_format(d->w.acc.first, t[1]);
+		cw_warn_at(r->fleet_path, p->line, "%.*s entered service at "
+		    "%s, after its first row at %s: taken as no time in "
+		    "service", (int)d->e.namelen, d->e.name, t[0], t[1]);
+	}
+}
+
 /* Whether PATH names something that exists (a state to load). */
 static int
 exists(const char *path)
@@ -389,7 +444,7 @@ main(int argc, char *argv[])
 	struct csvout w;
 	struct outf *of, *sf = NULL;
 	struct dev **sorted;
-	const char *out = NULL, *state = NULL;
+	const char *out = NULL, *state = NULL, *fleet = NULL;
 	double cycle_life = 0, calendar_life = 0;
 	size_t n, k;
 	unsigned fixed = 0;
@@ -420,6 +475,9 @@ main(int argc, char *argv[])
 		case OPT_CYCLE_LIFE:
 			cycle_life = opt_num_arg("--cycle-life", optarg, 1e-3,
 			    1e9);
+			break;
+		case OPT_FLEET:
+			fleet = optarg;
 			break;
 		case OPT_FULL:
 			r.conf.topoff.full_pct = opt_num_arg("--full", optarg,
@@ -495,6 +553,10 @@ main(int argc, char *argv[])
 	 * side; one that is only ever continued (--state) stays compact.
 	 */
 	r.conf.joinable = state_out && state == NULL;
+	if (fleet != NULL) {
+		r.fleet = fleet_load(fleet);
+		r.fleet_path = fleet;
+	}
 	r.devs = devtab_new(sizeof(struct dev));
 	memset(&rd, 0, sizeof(rd));
 	rd.conf = &r.conf;
@@ -562,6 +624,11 @@ main(int argc, char *argv[])
 
 	sorted = (struct dev **)devtab_sorted(r.devs);
 	n = devtab_count(r.devs);
+	for (k = 0; k < n; k++)
+		set_prior(&r, sorted[k]);
+	if (r.late_service > MAXWARN)
+		cw_warn("%lu packs in all entered service after their first "
+		    "row", r.late_service);
 	if (state != NULL) {
 		for (k = 0; k < n; k++)
 			wear_compact(&sorted[k]->w, &r.conf);
@@ -571,12 +638,14 @@ main(int argc, char *argv[])
 		write_states(of, out, &r, sorted, n);
 	else {
 		csvout_init(&w, outf_fp(of));
-		csvout_header(&w, r.capacity > 0 ? HEADER HEADER_CAP :
-		    HEADER);
+		csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
+		    HEADER HEADER_CAP : HEADER);
 		for (k = 0; k < n; k++) {
 			wear_finish(&sorted[k]->w, &r.conf);
-			wear_report(&r.conf, &sorted[k]->w.acc, r.capacity,
-			    &x);
+			wear_report(&r.conf, &sorted[k]->w.acc,
+			    &sorted[k]->w.prior, fleet_capacity(r.fleet,
+			    sorted[k]->e.name, sorted[k]->e.namelen,
+			    r.capacity), &x);
 			write_row(&w, &r, sorted[k], &x);
 		}
 		if (csvout_flush(&w) != 0) {
@@ -595,6 +664,7 @@ main(int argc, char *argv[])
 	free(sorted);
 	free(r.piece);
 	devtab_free(r.devs);
+	fleet_free(r.fleet);
 	/* The state moves on last, once the report is out. */
 	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
 		exit(CW_EXIT_DATA);

@@ -74,13 +74,14 @@ finish(void *ctx, void *dp)
 	int t, ok;
 
 	wear_finish(&d->w, &r->conf);
-	wear_report(&r->conf, &d->w.acc, r->capacity, &x);
+	wear_report(&r->conf, &d->w.acc, NULL, r->capacity, &x);
 	t = d->tame;
 	FZ_CHECK(nonneg(x.days, 1) && nonneg(x.charge_ah, t));
 	FZ_CHECK(nonneg(x.efc, t) && nonneg(x.max_depth_pct, t));
-	FZ_CHECK(nonneg(x.hours_soc_ge_95, 1));
-	FZ_CHECK(nonneg(x.hours_temp_ge_45, 1));
+	FZ_CHECK(nonneg(x.hours_near_full, 1));
+	FZ_CHECK(nonneg(x.hours_hot, 1));
 	FZ_CHECK(nonneg(x.cold_charge_ah, t) && nonneg(x.hot_charge_ah, t));
+	FZ_CHECK(nonneg(x.cool_charge_ah, t));
 	FZ_CHECK(nonneg(x.topoff_cycles, 1));
 	FZ_CHECK(nonneg(x.fade_pct, t) && nonneg(x.damage, t));
 	FZ_CHECK(nonneg(x.days_to_eol, 0));
@@ -97,20 +98,27 @@ finish(void *ctx, void *dp)
 		FZ_CHECK(x.fade_pct <= 100 + 1e-9);
 	span_h = d->w.acc.have ? (double)(d->w.acc.last - d->w.acc.first) /
 	    (3600.0 * CW_US_PER_S) : 0;
-	if (cw_isnum(x.hours_soc_ge_95))
-		FZ_CHECK(x.hours_soc_ge_95 <= span_h * (1 + 1e-9) + 1e-9);
-	if (cw_isnum(x.hours_temp_ge_45))
-		FZ_CHECK(x.hours_temp_ge_45 <= span_h * (1 + 1e-9) + 1e-9);
+	if (cw_isnum(x.hours_near_full))
+		FZ_CHECK(x.hours_near_full <= span_h * (1 + 1e-9) + 1e-9);
+	if (cw_isnum(x.hours_hot))
+		FZ_CHECK(x.hours_hot <= span_h * (1 + 1e-9) + 1e-9);
 	FZ_CHECK(x.dominant != NULL);
 	for (ok = 0, k = 0; k < sizeof(dom) / sizeof(dom[0]); k++)
 		ok |= strcmp(x.dominant, dom[k]) == 0;
 	FZ_CHECK(ok);
 	if (t) {
 		const double v[] = { x.share_cycling, x.share_high_soc,
-		    x.share_heat, x.max_charge_c, x.mean_charge_c, x.fade_ah };
+		    x.share_heat, x.max_charge_c, x.mean_charge_c, x.fade_ah,
+		    x.share_age, x.soh_pct };
 
 		for (k = 0; k < sizeof(v) / sizeof(v[0]); k++)
 			FZ_CHECK(!isinf(v[k]));
+		/* The shares add up to 1 (SPEC.md). */
+		if (cw_isnum(x.share_age) && isfinite(x.damage))
+			FZ_CHECK(fabs(x.share_age + x.share_cycling +
+			    x.share_high_soc + x.share_heat - 1) <= 1e-9 *
+			    (fabs(x.share_age) + fabs(x.share_cycling) +
+			    fabs(x.share_high_soc) + fabs(x.share_heat)));
 	}
 	FZ_CHECK(d->w.acc.rows == d->e.nrows);
 	wear_free(&d->w);
