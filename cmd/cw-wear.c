@@ -13,6 +13,7 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "dwell.h"
 #include "fleet.h"
 #include "model.h"
 #include "opt.h"
@@ -28,6 +29,8 @@
 	"share_high_soc,share_heat,fade_pct,soh_pct,days_to_eol,dominant," \
 	"prior,damage,damage_prior"
 #define HEADER_CAP ",max_charge_c,mean_charge_c,fade_ah"
+#define HEADER_DWELL "device,soc_lo,soc_hi,temp_lo_c,temp_hi_c,hours," \
+	"idle_hours"
 #define MAXWARN 10	/* messages of one kind, then only a count */
 
 /* A device's state in the devtab: the devent first, as devtab.h asks. */
@@ -37,6 +40,12 @@ struct dev {
 	int loaded;		/* from a --state file, up to UPTO */
 	cw_time upto;
 	struct wear_dev w;
+};
+
+/* A device's state with --dwell. */
+struct ddev {
+	struct devent e;
+	struct dwell_dev d;
 };
 
 /* A state read back, with where it came from. */
@@ -64,8 +73,8 @@ struct run {
 };
 
 enum {
-	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_FLEET,
-	OPT_FULL,
+	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
+	OPT_FLEET, OPT_FULL,
 	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
 	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
@@ -75,6 +84,7 @@ static const struct option longopts[] = {
 	{ "calendar-life", required_argument, NULL, OPT_CALENDAR_LIFE },
 	{ "capacity", required_argument, NULL, OPT_CAPACITY },
 	{ "cycle-life", required_argument, NULL, OPT_CYCLE_LIFE },
+	{ "dwell", no_argument, NULL, OPT_DWELL },
 	{ "fleet", required_argument, NULL, OPT_FLEET },
 	{ "full", required_argument, NULL, OPT_FULL },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
@@ -110,6 +120,8 @@ static void write_states(struct outf *, const char *, struct run *,
     struct dev **, size_t);
 static void report(const struct run *, struct dev **, size_t);
 static void set_prior(struct run *, struct dev *);
+static int on_dwell(void *, void *, const struct cw_sample *);
+static void dwell_run(struct run *, char **, int, const char *);
 
 static void
 usage(FILE *fp)
@@ -117,15 +129,15 @@ usage(FILE *fp)
 	fprintf(fp,
 	    "usage: cw-wear [-hv] [--calendar-life DAYS] [--capacity AH] "
 	    "[--cycle-life N]\n"
-	    "               [--fleet FILE] [--full PCT] [--full-voltage V] "
-	    "[--hysteresis PCT]\n"
-	    "               [--limits T1,T2,T3,T4] [--max-gap DUR] "
-	    "[--min-current A]\n"
-	    "               [--merge] [--min-depth PCT] [--model NAME] "
-	    "[-o FILE]\n"
-	    "               [--residue half|full|repeat] [--state FILE] "
-	    "[--state-out]\n"
-	    "               [--version] [file ...]\n");
+	    "               [--dwell] [--fleet FILE] [--full PCT] "
+	    "[--full-voltage V]\n"
+	    "               [--hysteresis PCT] [--limits T1,T2,T3,T4] "
+	    "[--max-gap DUR]\n"
+	    "               [--merge] [--min-current A] [--min-depth PCT] "
+	    "[--model NAME]\n"
+	    "               [-o FILE] [--residue half|full|repeat] "
+	    "[--state FILE]\n"
+	    "               [--state-out] [--version] [file ...]\n");
 }
 
 static int
@@ -420,6 +432,89 @@ set_prior(struct run *r, struct dev *d)
 	}
 }
 
+static int
+on_dwell(void *ctx, void *state, const struct cw_sample *s)
+{
+	const struct dwell_conf *c = ctx;
+	struct ddev *d = state;
+
+	dwell_push(&d->d, c, s->t, s->i, s->temp, s->soc);
+	return 0;
+}
+
+/*
+ * --dwell: the hours of every device by SoC and temperature band, the
+ * cells with time in them only, devices in name order, to OUT.
+ */
+static void
+dwell_run(struct run *r, char **argv, int argc, const char *out)
+{
+	struct dwell_conf dc;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct csvout w;
+	struct outf *of;
+	struct ddev **v;
+	unsigned long skipped = 0, empty = 0;
+	size_t n, k;
+	int rc, s, t;
+
+	dwell_conf_set(&dc, &r->conf.lim, r->conf.min_current,
+	    r->conf.max_gap);
+	r->devs = devtab_new(sizeof(struct ddev));
+	of = outf_open(out);
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
+	sc.row = on_dwell;
+	sc.ctx = &dc;
+	sc.devs = r->devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (cw_verbose)
+		sampin_report(&st, NULL);
+	if (rc != 0)
+		exit(rc);
+	v = (struct ddev **)devtab_sorted(r->devs);
+	n = devtab_count(r->devs);
+	csvout_init(&w, outf_fp(of));
+	csvout_header(&w, HEADER_DWELL);
+	for (k = 0; k < n; k++) {
+		const struct dwell_dev *d = &v[k]->d;
+
+		skipped += d->rows_skipped;
+		empty += !(d->covered_h > 0);
+		for (s = 0; s < DWELL_NSOC; s++)
+			for (t = 0; t < dc.ntemp; t++) {
+				if (!(d->hours[s][t] > 0))
+					continue;
+				csvout_strn(&w, v[k]->e.name, v[k]->e.namelen);
+				csvout_num(&w, dc.soc_edge[s]);
+				csvout_num(&w, dc.soc_edge[s + 1]);
+				csvout_num(&w, dwell_temp_lo(&dc, t));
+				csvout_num(&w, dwell_temp_hi(&dc, t));
+				csvout_num(&w, d->hours[s][t]);
+				csvout_num(&w, d->idle_hours[s][t]);
+				csvout_endrow(&w);
+			}
+	}
+	if (csvout_flush(&w) != 0) {
+		int e = errno;
+
+		csvout_free(&w);
+		cw_die(CW_EXIT_DATA, "%s: write error: %s", out != NULL ?
+		    out : "standard output", strerror(e));
+	}
+	csvout_free(&w);
+	if (cw_verbose)
+		cw_warn("%zu devices, %lu of them without two rows with SoC "
+		    "and temperature (no rows); %lu rows without SoC or "
+		    "temperature passed over", n, empty, skipped);
+	free(v);
+	devtab_free(r->devs);
+	if (outf_commit(of) != 0)
+		exit(CW_EXIT_DATA);
+}
+
 /* Whether PATH names something that exists (a state to load). */
 static int
 exists(const char *path)
@@ -448,7 +543,7 @@ main(int argc, char *argv[])
 	double cycle_life = 0, calendar_life = 0;
 	size_t n, k;
 	unsigned fixed = 0;
-	int ch, rc, merge = 0, state_out = 0;
+	int ch, rc, merge = 0, state_out = 0, dwell = 0;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -475,6 +570,9 @@ main(int argc, char *argv[])
 		case OPT_CYCLE_LIFE:
 			cycle_life = opt_num_arg("--cycle-life", optarg, 1e-3,
 			    1e9);
+			break;
+		case OPT_DWELL:
+			dwell = 1;
 			break;
 		case OPT_FLEET:
 			fleet = optarg;
@@ -547,6 +645,13 @@ main(int argc, char *argv[])
 	argv += optind;
 	if (state != NULL && out != NULL && strcmp(state, out) == 0)
 		cw_usage_error("--state and -o name the same file");
+	if (dwell && (state != NULL || state_out || merge))
+		cw_usage_error("--dwell does not go with --state, --state-out "
+		    "or --merge (a dwell table is not kept in a state)");
+	if (dwell) {
+		dwell_run(&r, argv, argc, out);
+		return CW_EXIT_OK;
+	}
 
 	/*
 	 * A state to be joined before another keeps a raw rainflow start

@@ -23,9 +23,9 @@ cw-wear --cycle-life 500 -o out/cw-wear.csv log.csv || exit 1
 cw-thermal -o out/cw-thermal.csv log.csv || exit 1
 
 echo "== plot-fade.gp"
-(head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k16,16gr |
+(head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k18,18gr |
     head -n 40) >top.csv
-cut -d, -f1,16 top.csv
+cut -d, -f1,18 top.csv
 gnuplot -e "in='wear.csv'; out='fade.png'" "scripts/plot-fade.gp"
 png fade.png
 gnuplot -e "in='top.csv'; out='top.png'" "scripts/plot-fade.gp"
