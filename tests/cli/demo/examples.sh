@@ -66,6 +66,20 @@ gnuplot -e "in='charging.csv'; out='charge-temp.png'" \
     "scripts/plot-charge-temp.gp"
 png charge-temp.png
 
+echo "== plot-dwell.gp"
+cw-wear --dwell log.csv | awk -F, -v dev=EB-0001 -v days=2 '
+    BEGIN { n = split("0 10 25 35 45", e, " ")
+        for (k = 1; k <= n; k++) ti[e[k]] = k
+        print "soc_i,temp_i,soc_band,temp_band," \
+            "hours_per_pack_day,idle_pct" }
+    $1 == dev { t = $4 == "" ? "<" $5 : $5 == "" ? ">" $4 : $4 "-" $5
+        print ($2 == 95 ? 5 : $2 / 20) "," ($4 == "" ? 0 : ti[$4]) \
+            "," $2 "-" $3 "," t "," $6 / days "," 100 * $7 / $6 }' \
+    >dwell.csv
+cat dwell.csv
+gnuplot -e "in='dwell.csv'; out='dwell.png'" "scripts/plot-dwell.gp"
+png dwell.png
+
 echo "== morning-report.sh"
 "scripts/morning-report.sh" -n 2 out fleet.csv
 echo "exit $?"
