@@ -263,6 +263,69 @@ test_unknown_empty(void **st)
 	wear_free(&d);
 }
 
+/*
+ * Packs in service (SPEC.md): a measured SoH of 90 % is the damage f0
+ * with L(f0) = 0.10 (Xu et al. 2018's L, inverted); the fade of the span
+ * is L(f0 + f) - L(f0), the SoH at the end 90 less it, the end of life
+ * where L = 0.20.  By age: 100 days at rest and 50 full cycles at the
+ * reference, k_t 86400 100 + 50 / 17000 unscaled.
+ */
+static void
+test_prior(void **st)
+{
+	const struct xu2018_params *p = &xu2018_published;
+	struct wear_conf c;
+	struct wear_acc a;
+	struct wear_prior pr;
+	struct wear_result r;
+	double f = 4.14e-10 * 86400 * 30, f0;
+
+	(void)st;
+	wear_conf_default(&c);
+	memset(&a, 0, sizeof(a));
+	a.have = 1;
+	a.rows = 10;
+	a.first = T0;
+	a.last = T0 + MIN(60 * 24 * 30);
+	a.model_s = 86400 * 30;
+	a.cal[WEAR_FULL] = a.cal[WEAR_REF] = f;
+	memset(&pr, 0, sizeof(pr));
+	pr.kind = WEAR_PRIOR_SOH;
+	pr.soh_pct = 90;
+	wear_report(&c, &a, &pr, 0, &r);
+	f0 = r.damage_prior;
+	near(xu2018_fade(p, f0), 0.10, 1e-12);
+	near(r.fade_pct, 100 * (xu2018_fade(p, f0 + f) - 0.10), 1e-9);
+	near(r.soh_pct, 90 - r.fade_pct, 1e-12);
+	near(r.days_to_eol, (xu2018_damage_at(p, 0.20) - f0 - f) / f * 30,
+	    1e-9);
+	assert_string_equal(r.prior, "soh");
+	/* Far less than a new pack's fade over the same month. */
+	wear_report(&c, &a, NULL, 0, &r);
+	assert_true(r.fade_pct > 3 * 100 * (xu2018_fade(p, f0 + f) - 0.10));
+	assert_string_equal(r.prior, "new");
+	near(r.damage_prior, 0, 0);
+	/* By age. */
+	memset(&pr, 0, sizeof(pr));
+	pr.kind = WEAR_PRIOR_AGE;
+	pr.age_s = 86400 * 100;
+	pr.efc = 50;
+	wear_report(&c, &a, &pr, 0, &r);
+	near(r.damage_prior, 4.14e-10 * 86400 * 100 + 50.0 / 17000, 1e-9);
+	assert_string_equal(r.prior, "age");
+	/* Above its rating: new, the soh_pct column from the measured one. */
+	memset(&pr, 0, sizeof(pr));
+	pr.kind = WEAR_PRIOR_SOH;
+	pr.soh_pct = 103;
+	wear_report(&c, &a, &pr, 0, &r);
+	near(r.damage_prior, 0, 0);
+	near(r.soh_pct, 103 - r.fade_pct, 1e-12);
+	/* The inverse of L across its range, robust near 0 and 1. */
+	for (f0 = 1e-9; f0 < 30; f0 *= 3)
+		near(xu2018_damage_at(p, xu2018_fade(p, f0)), f0, 1e-9 * f0 +
+		    1e-15);
+}
+
 /* Merging the totals of two devices adds them (issue 11 will save and
  * merge states; the sums must stay plain). */
 static void
@@ -310,6 +373,7 @@ main(void)
 		cmocka_unit_test(test_life_scales),
 		cmocka_unit_test(test_unknown_empty),
 		cmocka_unit_test(test_merge),
+		cmocka_unit_test(test_prior),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
