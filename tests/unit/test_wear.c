@@ -198,7 +198,7 @@ test_cold_share_edge(void **st)
 	near(r.share_heat, -2.0 / 3, 1e-12);
 	near(r.share_high_soc, 1.0 / 3, 1e-12);
 	near(r.share_age + r.share_cycling + r.share_high_soc + r.share_heat,
-	    1, 1e-15);
+	    1, 1e-12);
 	assert_string_equal(r.dominant, "high-soc");
 }
 
