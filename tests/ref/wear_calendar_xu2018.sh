@@ -24,6 +24,10 @@
 #         (efc_prior), --cycle-life 500: f0 = k_t * 365 d + 200 * f20 /
 #         500 (rest and cycles at reference, f20 = L^-1(0.20)); "age"
 #   NEW   not in the fleet file: f0 = 0, "new"
+# The constants below are typed from the paper's parameter table as
+# recalled (k_s, k_T, k_t, alpha_sei, beta_sei), not re-read from it for
+# this check: they agree with lib/xu2018.c, so this check proves the
+# equations and the split, not the constants.
 # End of life at 20 % fade (80 % state of health): common practice, no
 # source.
 set -eu
