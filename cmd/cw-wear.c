@@ -407,11 +407,16 @@ static void
 report(const struct run *r, struct dev **devs, size_t n)
 {
 	struct wear_acc t;
+	unsigned long kind[WEAR_PRIOR_NKIND] = { 0 };
 	size_t k;
 
 	memset(&t, 0, sizeof(t));
-	for (k = 0; k < n; k++)
+	for (k = 0; k < n; k++) {
 		wear_acc_merge(&t, &devs[k]->w.acc);
+		if (devs[k]->w.prior.kind >= 0 &&
+		    devs[k]->w.prior.kind < WEAR_PRIOR_NKIND)
+			kind[devs[k]->w.prior.kind]++;
+	}
 	cw_warn("model %s: %s; cycle scale %g, calendar scale %g",
 	    r->conf.model->name, r->conf.model->title, r->conf.cycle_scale,
 	    r->conf.cal_scale);
@@ -430,6 +435,9 @@ report(const struct run *r, struct dev **devs, size_t n)
 	if (t.gaps > 0)
 		cw_warn("gaps over --max-gap: %lu, %g h in all, the state "
 		    "before each held through it", t.gaps, t.gap_s / 3600.0);
+	cw_warn("prior damage: %lu packs by measured SoH, %lu by age and "
+	    "cycles, %lu new%s", kind[WEAR_PRIOR_SOH], kind[WEAR_PRIOR_AGE],
+	    kind[WEAR_PRIOR_NEW], r->fleet == NULL ? " (no --fleet)" : "");
 	if (r->joins > 0)
 		cw_warn("%lu states joined to the one before or after them",
 		    r->joins);
