@@ -435,9 +435,10 @@ report(const struct run *r, struct dev **devs, size_t n)
 	if (t.gaps > 0)
 		cw_warn("gaps over --max-gap: %lu, %g h in all, the state "
 		    "before each held through it", t.gaps, t.gap_s / 3600.0);
-	cw_warn("prior damage: %lu packs by measured SoH, %lu by age and "
-	    "cycles, %lu new%s", kind[WEAR_PRIOR_SOH], kind[WEAR_PRIOR_AGE],
-	    kind[WEAR_PRIOR_NEW], r->fleet == NULL ? " (no --fleet)" : "");
+	if (r->fleet != NULL || kind[WEAR_PRIOR_NEW] < n)
+		cw_warn("prior damage: %lu packs by measured SoH, %lu by age "
+		    "and cycles, %lu new", kind[WEAR_PRIOR_SOH],
+		    kind[WEAR_PRIOR_AGE], kind[WEAR_PRIOR_NEW]);
 	if (r->joins > 0)
 		cw_warn("%lu states joined to the one before or after them",
 		    r->joins);
