@@ -76,13 +76,13 @@ static const struct field devf[] = {
 	FU("topoff_judged", acc.topoff_judged),
 	FU("topoff_cut", acc.topoff_cut),
 	FD("cyc_full", acc.cyc[WEAR_FULL]),
-	FD("cyc_soc_capped", acc.cyc[WEAR_SOC_CAPPED]),
-	FD("cyc_temp_capped", acc.cyc[WEAR_TEMP_CAPPED]),
-	FD("cyc_depth_only", acc.cyc[WEAR_DEPTH_ONLY]),
+	FD("cyc_ref", acc.cyc[WEAR_REF]),
+	FD("cyc_soc", acc.cyc[WEAR_SOC]),
+	FD("cyc_temp", acc.cyc[WEAR_TEMP]),
 	FD("cal_full", acc.cal[WEAR_FULL]),
-	FD("cal_soc_capped", acc.cal[WEAR_SOC_CAPPED]),
-	FD("cal_temp_capped", acc.cal[WEAR_TEMP_CAPPED]),
-	FD("cal_depth_only", acc.cal[WEAR_DEPTH_ONLY]),
+	FD("cal_ref", acc.cal[WEAR_REF]),
+	FD("cal_soc", acc.cal[WEAR_SOC]),
+	FD("cal_temp", acc.cal[WEAR_TEMP]),
 	FN("head_i", head_i),
 	FN("head_temp", head_temp),
 	FI("have_soc0", have_soc0, 0, 1),
@@ -94,9 +94,9 @@ static const struct field devf[] = {
 	FI("have_model0", have_model0, 0, 1),
 	FT("model0_t", model0_t),
 	FD("rate0_full", rate0.full),
-	FD("rate0_soc_capped", rate0.soc_capped),
-	FD("rate0_temp_capped", rate0.temp_capped),
-	FD("rate0_depth_only", rate0.depth_only),
+	FD("rate0_ref", rate0.ref),
+	FD("rate0_soc", rate0.soc),
+	FD("rate0_temp", rate0.temp),
 	FI("have_soc", have_soc, 0, 1),
 	FT("soc_t", soc_t),
 	FD("soc", soc),
@@ -106,9 +106,9 @@ static const struct field devf[] = {
 	FI("have_model", have_model, 0, 1),
 	FT("model_t", model_t),
 	FD("rate_full", rate.full),
-	FD("rate_soc_capped", rate.soc_capped),
-	FD("rate_temp_capped", rate.temp_capped),
-	FD("rate_depth_only", rate.depth_only),
+	FD("rate_ref", rate.ref),
+	FD("rate_soc", rate.soc),
+	FD("rate_temp", rate.temp),
 	FI("rf_raw", rf.raw_start, 0, 1),
 	FI("rf_dir", rf.dir, 0, 3),
 	FT("rf_lo_t", rf.lo.t),
@@ -153,7 +153,11 @@ static const struct field devf[] = {
 	FD("top_cyc_ah", top.cyc_ah),
 	FI("pre_state", pre_state, 0, WEAR_PRE_NSTATE - 1),
 	FU("pre_cycles", pre_cycles),
-	FU("pre_judged", pre_judged)
+	FU("pre_judged", pre_judged),
+	FI("prior", prior.kind, 0, WEAR_PRIOR_NKIND - 1),
+	FN("prior_soh_pct", prior.soh_pct),
+	FD("prior_age_s", prior.age_s),
+	FD("prior_efc", prior.efc)
 };
 #define NDEVF (sizeof(devf) / sizeof(devf[0]))
 
@@ -783,6 +787,10 @@ check_dev(const struct wear_dev *d, const struct wear_conf *c)
 		return "top-off prefix does not start at the first row";
 	if (n > a->rows || (d->pre_state == WEAR_PRE_OPEN && n != a->rows))
 		return "top-off prefix inconsistent";
+	if ((d->prior.kind == WEAR_PRIOR_SOH && !(d->prior.soh_pct > 0 &&
+	    d->prior.soh_pct <= 150)) || d->prior.age_s < 0 ||
+	    d->prior.efc < 0)
+		return "prior out of range";
 	return NULL;
 }
 
@@ -903,7 +911,14 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 		    FIRST_END : FIRST_DEV;
 	tag = rec->nf > 3 ? rec->f[3] : "";
 	if (strcmp(tag, WSTATE_TAG) != 0) {
-		if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
+		if (strcmp(tag, TAG_STEM "1") == 0)
+			cw_warn_at(rec->src, rec->line, "a state of format "
+			    "%s, whose damage is not split by cause as this "
+			    "cw-wear splits it (%s): make the state again from "
+			    "the logs (cw-wear --state FILE, with --fleet for "
+			    "packs in service), or read it with the cw-wear "
+			    "that wrote it", tag, WSTATE_TAG);
+		else if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
 			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
 		else if (rec->nf <= 3)

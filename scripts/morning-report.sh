@@ -96,6 +96,7 @@ FNR == 1 {
 		cdom = need("dominant", FILENAME)
 		ccold = need("cold_charge_ah", FILENAME)
 		cchg = need("charge_ah", FILENAME)
+		csoh = need("soh_pct", FILENAME)
 		wear = 1
 	} else {
 		ckind = need("kind", FILENAME); czone = need("zone", FILENAME)
@@ -112,6 +113,7 @@ wear {
 	if ($clast > last) last = $clast
 	if ($cdays > span) span = $cdays
 	fade[d] = $cfade; eol[d] = $ceol; dom[d] = $cdom; days[d] = $cdays
+	soh[d] = $csoh
 	coldsh[d] = $cchg > 0 ? 100 * $ccold / $cchg : 0
 	next
 }
@@ -160,7 +162,7 @@ END {
 		    (d in site) ? " at " site[d] : "",
 		    dom[d] == "" ? "no model estimate" : dom[d]
 		if (dom[d] == "cold-charge")
-			printf ", %.0f %% of its charge below T2", coldsh[d]
+			printf ", %.0f %% of its charge below T1", coldsh[d]
 		printf "\n"
 		for (zi = 1; zi <= 2; zi++) {
 			z = zi == 1 ? "below-min" : "above-max"
@@ -172,11 +174,14 @@ END {
 				    hours(sx[d SUBSEP z]), ax[d SUBSEP z]
 		}
 		if (fade[d] != "")
-			printf "    modelled fade %.2f %% in %.1f days",
-			    fade[d], days[d]
+			printf "    modelled fade %.2f points in %.1f days%s",
+			    fade[d], days[d], soh[d] != "" ? \
+			    sprintf(", SoH %.1f %%", soh[d]) : ""
 		if (eol[d] != "")
 			printf "; 80 %% health in %.1f years at this pace",
 			    eol[d] / 365.25
+		else if (dom[d] == "cold-charge" && fade[d] != "")
+			printf "; no life told (the model has no plating term)"
 		if (fade[d] != "")
 			printf "\n"
 		if (d in rg)

@@ -616,8 +616,8 @@ test_round_trip(void **st)
 			wear_finish(&one[k], &c);
 			assert_memory_equal(&g.d[k].acc, &one[k].acc,
 			    sizeof(one[k].acc));
-			wear_report(&c, &one[k].acc, 10, &x1);
-			wear_report(&c2, &g.d[k].acc, 10, &x2);
+			wear_report(&c, &one[k].acc, NULL, 10, &x1);
+			wear_report(&c2, &g.d[k].acc, NULL, 10, &x2);
 			assert_memory_equal(&x1, &x2, offsetof(struct
 			    wear_result, dominant));
 			wear_free(&one[k]);
@@ -694,7 +694,7 @@ test_damage(void **st)
 	memcpy(t, s, len);
 	for (k = 0; k + 15 <= len; k++)
 		if (memcmp(t + k, WSTATE_TAG, 15) == 0)
-			t[k + 14] = '2';
+			t[k + 14] = '3';
 	spit(TMP, t, len);
 	wear_conf_default(&c2);
 	assert_int_equal(read_file(TMP, &c2, 0, 1, &g), CW_EXIT_DATA);
@@ -753,7 +753,8 @@ test_state_covers(void **st)
 	assert_int_equal(sizeof(struct topoff_hold), 80);
 	assert_int_equal(sizeof(struct model_eval), 32);
 	assert_int_equal(sizeof(struct wear_run), 48);
-	assert_int_equal(sizeof(struct wear_dev), 1040);
+	assert_int_equal(sizeof(struct wear_prior), 32);
+	assert_int_equal(sizeof(struct wear_dev), 1072);
 }
 
 int

@@ -43,7 +43,7 @@ cw-wear -v --merge "$d/day1.state" "$d/day2.state" 2>&1 >/dev/null |
 # intervals across midnight).
 cw-wear "$d/day1.csv" >"$d/r1.csv"
 cw-wear "$d/day2.csv" >"$d/r2.csv"
-for c in 6 8 19; do
+for c in 6 8 23; do
 	awk -F, -v c=$c -v one="$d/one.csv" '
 	    FNR > 1 && FILENAME != one { s[$1] += $c }
 	    FNR > 1 && FILENAME == one { o[$1] = $c }
