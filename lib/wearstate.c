@@ -153,9 +153,14 @@ static const struct field devf[] = {
 	FD("top_cyc_ah", top.cyc_ah),
 	FI("pre_state", pre_state, 0, WEAR_PRE_NSTATE - 1),
 	FU("pre_cycles", pre_cycles),
-	FU("pre_judged", pre_judged)
+	FU("pre_judged", pre_judged),
+	/* Since cw-wear-state-2: the top-off detector's use dips. */
+	FI("top_used", top.used, 0, 1),
+	FT("top_lvl_since", top.lvl_since)
 };
 #define NDEVF (sizeof(devf) / sizeof(devf[0]))
+/* Fields of a device in a state of version V (1 or 2). */
+#define NDEVF_V(v)	((v) == 1 ? NDEVF - 2 : NDEVF)
 
 /* The settings, over struct wear_conf, with the option that sets each. */
 struct setting {
@@ -186,13 +191,13 @@ static const struct setting setf[] = {
 #define NSETF (sizeof(setf) / sizeof(setf[0]))
 
 /* device, first, last, tag, model; the settings; the fields; rf_pts,
- * pre_rows, check. */
+ * pre_rows, check; in a state of version V. */
 #define COL_SET		5
 #define COL_DEV		(COL_SET + NSETF)
-#define COL_RF		(COL_DEV + NDEVF)
-#define COL_PRE		(COL_RF + 1)
-#define COL_CHECK	(COL_PRE + 1)
-#define NCOL		(COL_CHECK + 1)
+#define COL_RF(v)	(COL_DEV + NDEVF_V(v))
+#define COL_PRE(v)	(COL_RF(v) + 1)
+#define COL_CHECK(v)	(COL_PRE(v) + 1)
+#define NCOL(v)		(COL_CHECK(v) + 1)
 
 /* A growable text buffer for one row. */
 struct buf {
@@ -228,13 +233,14 @@ static int get_ul(const char *, size_t, unsigned long *);
 static int get_field(int, const char *, size_t, int, int, void *);
 static int same(int, const void *, const void *);
 static void show(int, const void *, char *, size_t);
-static const struct buf *header(void);
+static const struct buf *header(int);
+static int tag_version(const char *);
 static int settings(struct rd *, const struct csvin_rec *);
 static int get_rf(struct wear_dev *, const char *, size_t);
 static int get_pre(struct wear_dev *, const char *, size_t);
 static const char *check_dev(const struct wear_dev *,
     const struct wear_conf *);
-static int dev_row(struct rd *, const struct csvin_rec *);
+static int dev_row(struct rd *, const struct csvin_rec *, int);
 static int end_rec(struct rd *, const struct csvin_rec *);
 static int on_rec(void *, const struct csvin_rec *);
 static int on_bad(void *, const struct csvin_rec *, const char *);
@@ -354,32 +360,46 @@ end_row(FILE *fp, struct buf *b)
 	return fwrite(b->s, 1, b->n, fp) == b->n ? 0 : -1;
 }
 
-/* The header row, with its line end, made once. */
+/* The header row of version V (1 or 2), with its line end, made once. */
 static const struct buf *
-header(void)
+header(int v)
 {
-	static struct buf h;
+	static struct buf hb[2];
+	struct buf *h = &hb[v - 1];
 	size_t k;
 
-	if (h.n > 0)
-		return &h;
-	buf_str(&h, "device,first,last," WSTATE_TAG ",model");
+	if (h->n > 0)
+		return h;
+	buf_str(h, "device,first,last,");
+	buf_str(h, v == 1 ? WSTATE_TAG_V1 : WSTATE_TAG);
+	buf_str(h, ",model");
 	for (k = 0; k < NSETF; k++) {
-		buf_add(&h, ",", 1);
-		buf_str(&h, setf[k].name);
+		buf_add(h, ",", 1);
+		buf_str(h, setf[k].name);
 	}
-	for (k = 0; k < NDEVF; k++) {
-		buf_add(&h, ",", 1);
-		buf_str(&h, devf[k].name);
+	for (k = 0; k < NDEVF_V(v); k++) {
+		buf_add(h, ",", 1);
+		buf_str(h, devf[k].name);
 	}
-	buf_str(&h, ",rf_pts,pre_rows,check\n");
-	return &h;
+	buf_str(h, ",rf_pts,pre_rows,check\n");
+	return h;
+}
+
+/* The version of a state tag: 2, 1 (still read), or 0. */
+static int
+tag_version(const char *tag)
+{
+	if (strcmp(tag, WSTATE_TAG) == 0)
+		return 2;
+	if (strcmp(tag, WSTATE_TAG_V1) == 0)
+		return 1;
+	return 0;
 }
 
 int
 wstate_write_header(FILE *fp)
 {
-	const struct buf *h = header();
+	const struct buf *h = header(2);
 
 	return fwrite(h->s, 1, h->n, fp) == h->n ? 0 : -1;
 }
@@ -786,9 +806,9 @@ check_dev(const struct wear_dev *d, const struct wear_conf *c)
 	return NULL;
 }
 
-/* A device row. */
+/* A device row of version V. */
 static int
-dev_row(struct rd *d, const struct csvin_rec *rec)
+dev_row(struct rd *d, const struct csvin_rec *rec, int v)
 {
 	struct wstate_read *r = d->r;
 	struct wear_dev w;
@@ -798,18 +818,18 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 	unsigned long long want;
 	char hex[17];
 
-	if (rec->nf != NCOL) {
+	if (rec->nf != NCOL(v)) {
 		cw_warn_at(rec->src, rec->line, "a state row of %zu fields, "
 		    "not %d: the state is cut short or corrupt", rec->nf,
-		    (int)NCOL);
+		    (int)NCOL(v));
 		return CW_EXIT_DATA;
 	}
 	for (at = rec->rawlen; at > 0 && rec->raw[at - 1] != ','; at--)
 		;
 	want = (unsigned long long)fnv(rec->raw, at > 0 ? at - 1 : 0);
 	snprintf(hex, sizeof(hex), "%016llx", want);
-	if (at == 0 || rec->len[COL_CHECK] != 16 ||
-	    memcmp(rec->f[COL_CHECK], hex, 16) != 0) {
+	if (at == 0 || rec->len[COL_CHECK(v)] != 16 ||
+	    memcmp(rec->f[COL_CHECK(v)], hex, 16) != 0) {
 		cw_warn_at(rec->src, rec->line, "the check field does not "
 		    "match the row: the state is corrupt");
 		return CW_EXIT_DATA;
@@ -831,7 +851,7 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 		return CW_EXIT_DATA;
 	}
 	w.prev_t = w.acc.last;
-	for (k = 0; k < NDEVF; k++)
+	for (k = 0; k < NDEVF_V(v); k++)
 		if (get_field(devf[k].kind, rec->f[COL_DEV + k],
 		    rec->len[COL_DEV + k], devf[k].lo, devf[k].hi,
 		    (char *)&w + devf[k].off) < 0) {
@@ -841,9 +861,11 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 			wear_free(&w);
 			return CW_EXIT_DATA;
 		}
-	why = get_rf(&w, rec->f[COL_RF], rec->len[COL_RF]) < 0 ? "rf_pts" :
-	    get_pre(&w, rec->f[COL_PRE], rec->len[COL_PRE]) < 0 ? "pre_rows" :
-	    NULL;
+	if (v == 1)
+		w.top.lvl_since = w.top.lvl_t;	/* the best it can know */
+	why = get_rf(&w, rec->f[COL_RF(v)], rec->len[COL_RF(v)]) < 0 ?
+	    "rf_pts" : get_pre(&w, rec->f[COL_PRE(v)],
+	    rec->len[COL_PRE(v)]) < 0 ? "pre_rows" : NULL;
 	if (why != NULL) {
 		cw_warn_at(rec->src, rec->line, "bad list in column %s: the "
 		    "state is corrupt", why);
@@ -896,16 +918,18 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	struct rd *d = ctx;
 	const struct buf *h;
 	const char *tag;
+	int v;
 
 	if (d->nrec++ == 0)
 		d->first_kind = rec->nf > 0 && strcmp(rec->f[0], "device") ==
 		    0 ? FIRST_HEADER : rec->nf > 0 && rec->len[0] == 0 ?
 		    FIRST_END : FIRST_DEV;
 	tag = rec->nf > 3 ? rec->f[3] : "";
-	if (strcmp(tag, WSTATE_TAG) != 0) {
+	if ((v = tag_version(tag)) == 0) {
 		if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
-			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
+			    "%.40s; this cw-wear reads %s and %s", tag,
+			    WSTATE_TAG, WSTATE_TAG_V1);
 		else if (rec->nf <= 3)
 			cw_warn_at(rec->src, rec->line, "a row of %zu fields: "
 			    "a state cut short, or not a cw-wear state",
@@ -917,13 +941,13 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	}
 	if (rec->nf > 4 && strcmp(rec->f[0], "device") == 0 &&
 	    strcmp(rec->f[4], "model") == 0) {
-		/* A header; it must be this version's, column for column. */
-		h = header();
+		/* A header; it must be its version's, column for column. */
+		h = header(v);
 		if (rec->rawlen + 1 != h->n || memcmp(rec->raw, h->s,
 		    rec->rawlen) != 0) {
 			cw_warn_at(rec->src, rec->line, "a state header with "
 			    "other columns than %s has: the state is "
-			    "corrupt", WSTATE_TAG);
+			    "corrupt", tag);
 			return CW_EXIT_DATA;
 		}
 		d->r->headers++;
@@ -931,7 +955,7 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	}
 	if (rec->nf > 4 && rec->len[0] == 0 && strcmp(rec->f[4], "end") == 0)
 		return end_rec(d, rec);
-	return dev_row(d, rec);
+	return dev_row(d, rec, v);
 }
 
 static int

@@ -5,10 +5,10 @@
  *
  * A state is CSV, one row per device, keyed by device:
  *
- *	device,first,last,cw-wear-state-1,model,hysteresis,...,check
+ *	device,first,last,cw-wear-state-2,model,hysteresis,...,check
  *
  * The header row names every column; its fourth column is the name and
- * version of the format, "cw-wear-state-1", which every data row repeats
+ * version of the format, "cw-wear-state-2", which every data row repeats
  * in its fourth column, so that rows keep their version through sort,
  * cat and a shuffle.  Then come the settings the state was made with, the
  * device's totals, its first and last rows, the rainflow state with its
@@ -20,7 +20,11 @@
  * FNV-1a 64-bit hash of the row's text before it, in 16 hexadecimal
  * digits: a row cut short or altered does not match it.
  *
- * A file of states ends with an end row, ",,,cw-wear-state-1,end,N,check",
+ * Version 2 adds top_used and top_lvl_since (the top-off detector's use
+ * dips, topoff.h) after pre_judged; rows of version 1 are still read, the
+ * dip in progress taken as not used, its level as shown since its row.
+ *
+ * A file of states ends with an end row, ",,,cw-wear-state-2,end,N,check",
  * N being the rows of device states before it; files joined with cat hold
  * several, and their N add up (sorted, they come first).  A file without
  * an end row, or whose rows do not add up to the end rows' N, was cut
@@ -33,7 +37,9 @@
 
 #include "wear.h"
 
-#define WSTATE_TAG	"cw-wear-state-1"
+#define WSTATE_TAG	"cw-wear-state-2"
+/* Still read: without the top-off detector's use-dip fields. */
+#define WSTATE_TAG_V1	"cw-wear-state-1"
 
 /* The settings a state is made with, by the option that sets them. */
 enum {

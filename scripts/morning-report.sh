@@ -184,8 +184,8 @@ END {
 			    reol[d] != "" ? "; doubled by " reol[d] \
 			    " at this pace" : ""
 		if ((d in mcd) && mcd[d] != "" && mcd[d] >= 5)
-			printf "    %.0f top-off micro-cycles a day while " \
-			    "held near full\n", mcd[d]
+			printf "    %.0f top-off micro-cycles a day (rides " \
+			    "not counted)\n", mcd[d]
 	}
 	nc = split(soft["cool"], f, " ")
 	nw = split(soft["warm"], f, " ")

@@ -24,7 +24,7 @@ cmp "$d/empty.state" /dev/null && echo "empty file left as it was"
 sed '2s/,1,/,2,/' "$d/good.state" >"$d/digit.state"
 try --state "$d/digit.state" "$f"
 # Another version.
-sed 's/cw-wear-state-1/cw-wear-state-2/' "$d/good.state" >"$d/v2.state"
+sed "s/cw-wear-state-2/cw-wear-state-9/" "$d/good.state" >"$d/v2.state"
 try --state "$d/v2.state" "$f"
 # Other settings than the state's.
 try --state "$d/copy.state" --hysteresis 2 "$f"
