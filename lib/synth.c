@@ -707,6 +707,12 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 
 	if (loc == d->loc)
 		return;
+	if (d->loc == SYNTH_RIDING) {
+		d->rd.end = t;
+		d->rd.to_charger = is_ch;
+		if (f->h.ride != NULL)
+			f->h.ride(f->h.ctx, d, &d->rd);
+	}
 	if (was_ch) {
 		if (d->mc_on)
 			mc_end(f, d, t, 0);
@@ -720,6 +726,9 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 		d->tr.plugins++;
 	}
 	if (loc == SYNTH_RIDING) {
+		d->rd.start = t;
+		d->rd.soc_start = d->rd.soc_min = 100.0 * d->pack.soc;
+		d->rd.from_charger = was_ch;
 		d->tr.rides++;
 		d->ride_mean = d->seg[d->cur].mean_a;
 		d->ride_left = 0;
@@ -834,6 +843,8 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 		    3600.0;
 		if (d->g_deficit < 0)
 			d->g_deficit = 0;
+		if (d->loc == SYNTH_RIDING && 100.0 * p->soc < d->rd.soc_min)
+			d->rd.soc_min = 100.0 * p->soc;
 		if (d->mc_on) {
 			if (p->soc < d->mc_low)
 				d->mc_low = p->soc;
@@ -934,5 +945,10 @@ synth_fleet_finish(struct synth_fleet *f)
 			ev_close(f, d);
 		if (d->mc_on)
 			mc_end(f, d, d->tr.last, 0);
+		if (d->loc == SYNTH_RIDING && f->h.ride != NULL) {
+			d->rd.end = d->tr.last;
+			d->rd.to_charger = 0;
+			f->h.ride(f->h.ctx, d, &d->rd);
+		}
 	}
 }
