@@ -23,7 +23,8 @@
 	"r_ohm,r_ref_ohm,dt_s,i_pre_a"
 #define TREND_HEADER "device,steps,first,last,r_start_ohm,r_end_ohm," \
 	"growth_pct,growth_pct_per_30d,eol_date,fit_steps," \
-	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day"
+	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day," \
+	"soc_gate,growth_lo_pct_per_30d,growth_hi_pct_per_30d"
 
 /* Points kept per device for the trend before thinning sets in. */
 #define MAX_POINTS_DEFAULT 2048
@@ -68,7 +69,7 @@ usage(FILE *fp)
 	    "               [--max-dt DUR] [--max-points N] "
 	    "[--min-span DUR] [--min-step A]\n"
 	    "               [--min-steps N] [-o FILE] [--ref-temp T] "
-	    "[--soc LO,HI]\n"
+	    "[--soc LO,HI|auto]\n"
 	    "               [--steady N] [--steady-tol FRAC] "
 	    "[--temp LO,HI] [--version]\n"
 	    "               [FILE ...]\n");
@@ -93,7 +94,8 @@ usage(FILE *fp)
 "      --min-steps N       fewest steps for a trend (default 10)\n"
 "  -o, --output FILE       write to FILE atomically, not standard output\n"
 "      --ref-temp T        reference temperature (default 25C)\n"
-"      --soc LO,HI         SoC window in percent (default 20,80)\n"
+"      --soc LO,HI|auto    SoC window in percent (default 20,80); auto: per\n"
+"                          device, the 30-point window with most steps\n"
 "      --steady N          steady samples before a step (default 3)\n"
 "      --steady-tol FRAC   largest spread of those currents, as a fraction\n"
 "                          of the step (default 0.1)\n"
@@ -122,7 +124,8 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 	if (dcir_feed(&t->conf, &d->det, &p, &t->cnt, &st) != 1)
 		return 0;
 	if (t->trend)
-		dcir_series_add(&d->ser, st.t, st.r_ref, t->max_points);
+		dcir_series_add(&d->ser, st.t, st.r_ref, st.soc,
+		    t->max_points);
 	else
 		write_step(t, d, &st);
 	if (t->out.err) {
@@ -154,13 +157,20 @@ write_trend(struct tool *t, struct dev *d)
 {
 	struct dcir_trend tr;
 	struct csvout *w = &t->out;
+	char gate[64];
+	int lo = -1;
 
-	dcir_trend_fit(&d->ser, &t->tconf, &tr);
+	if (t->conf.soc_auto) {
+		lo = dcir_series_window(&d->ser);
+		if (lo < 0 && d->ser.steps > 0)
+			lo = DCIR_NBIN;	/* unknown SoC only: no bin */
+	}
+	dcir_trend_fit_window(&d->ser, &t->tconf, lo, &tr);
 	csvout_strn(w, d->e.name, d->e.namelen);
-	csvout_int(w, (long long)d->ser.steps);
-	if (d->ser.steps > 0) {
-		csvout_time(w, d->ser.first);
-		csvout_time(w, d->ser.last);
+	csvout_int(w, (long long)tr.steps);
+	if (tr.steps > 0) {
+		csvout_time(w, tr.first);
+		csvout_time(w, tr.last);
 	} else {
 		csvout_empty(w);
 		csvout_empty(w);
@@ -180,6 +190,16 @@ write_trend(struct tool *t, struct dev *d)
 	csvout_num(w, tr.slope);
 	csvout_num(w, tr.slope_lo);
 	csvout_num(w, tr.slope_hi);
+	if (!t->conf.soc_auto)
+		snprintf(gate, sizeof gate, "%g-%g", t->conf.soc_lo,
+		    t->conf.soc_hi);
+	else if (lo >= 0 && lo < DCIR_NBIN)
+		snprintf(gate, sizeof gate, "%d-%d", lo, lo + DCIR_WINDOW);
+	else
+		gate[0] = '\0';
+	csvout_str(w, gate);
+	csvout_num(w, tr.growth_lo_30d);
+	csvout_num(w, tr.growth_hi_30d);
 	csvout_endrow(w);
 	dcir_series_free(&d->ser);
 }
@@ -212,7 +232,7 @@ report(const struct tool *t, const struct devtab *devs,
 	for (i = 0; i < nd; i++) {
 		const struct dev *d = devtab_at(devs, i);
 
-		if (d->ser.stride > 1)
+		if (d->ser.level > 0)
 			thinned++;
 		if (d->ser.steps < t->tconf.min_steps ||
 		    d->ser.last - d->ser.first < t->tconf.min_span)
@@ -329,6 +349,11 @@ main(int argc, char *argv[])
 				    "absolute zero", optarg);
 			break;
 		case OPT_SOC:
+			if (strcmp(optarg, "auto") == 0) {
+				t.conf.soc_auto = 1;
+				break;
+			}
+			t.conf.soc_auto = 0;
 			opt_list_arg("--soc", optarg, w, 2, 0, 1);
 			if (w[0] < 0 || w[1] > 100)
 				cw_usage_error("--soc: %s is not within "
