@@ -41,6 +41,7 @@ struct dev {
 
 /* A state read back, with where it came from. */
 struct piece {
+	struct dev *dev;
 	struct dstate_dev w;
 	char src[256];
 	unsigned long line;
@@ -57,7 +58,6 @@ struct tool {
 	int state_out;		/* the output is the state */
 	struct dstate_conf sconf;
 	struct devtab *devs;
-	struct dev *run_dev;	/* device of the pieces gathered */
 	struct piece *piece;
 	size_t npiece, piececap;
 	unsigned long stale, joined;	/* rows skipped, steps across joins */
@@ -240,10 +240,10 @@ write_trend(struct tool *t, struct dev *d)
 }
 
 /*
- * A state read back.  The states of one device that come one after the
- * other (a stream sorted or grouped by device) are gathered, then joined
- * in time order when another device comes; each must come after or
- * before what its device holds, never overlap it.
+ * A state read back.  Every state read is gathered, then those of each
+ * device joined in time order at the end (flush), so that files and
+ * streams may come in any order; the pieces of a device must not
+ * overlap in time.
  */
 static int
 on_state(void *ctx, const char *src, unsigned long line, const char *name,
@@ -252,20 +252,14 @@ on_state(void *ctx, const char *src, unsigned long line, const char *name,
 	struct tool *t = ctx;
 	struct dev *d;
 	struct piece *p;
-	int rc;
-
 	d = devtab_get(t->devs, name, len, NULL);
-	if (d != t->run_dev && (rc = flush(t)) != 0) {
-		dstate_free(w);
-		return rc;
-	}
-	t->run_dev = d;
 	if (t->npiece == t->piececap) {
 		t->piececap = t->piececap ? 2 * t->piececap : 16;
 		t->piece = cw_realloc(t->piece, t->piececap *
 		    sizeof(*t->piece));
 	}
 	p = &t->piece[t->npiece++];
+	p->dev = d;
 	p->w = *w;
 	p->line = line;
 	snprintf(p->src, sizeof(p->src), "%s", src);
@@ -276,17 +270,27 @@ static int
 piece_cmp(const void *pa, const void *pb)
 {
 	const struct piece *a = pa, *b = pb;
+	int c;
 
+	if (a->dev != b->dev) {
+		/* By name, as devtab_sorted(). */
+		c = memcmp(a->dev->e.name, b->dev->e.name,
+		    a->dev->e.namelen < b->dev->e.namelen ?
+		    a->dev->e.namelen : b->dev->e.namelen);
+		if (c == 0)
+			c = a->dev->e.namelen < b->dev->e.namelen ? -1 : 1;
+		return c;
+	}
 	if (a->w.first != b->w.first)
 		return a->w.first < b->w.first ? -1 : 1;
 	return a->line < b->line ? -1 : a->line > b->line;
 }
 
-/* Join the gathered states of T->run_dev into it, in time order. */
+/* Join the gathered states into their devices, in time order. */
 static int
 flush(struct tool *t)
 {
-	struct dev *d = t->run_dev;
+	struct dev *d;
 	struct dstate_dev *w;
 	char a[4][TS_FMTMAX];
 	size_t k;
@@ -296,6 +300,7 @@ flush(struct tool *t)
 	qsort(t->piece, t->npiece, sizeof(*t->piece), piece_cmp);
 	for (k = 0; k < t->npiece; k++) {
 		w = &t->piece[k].w;
+		d = t->piece[k].dev;
 		if (d->ds.rows == 0) {
 			dstate_free(&d->ds);
 			d->ds = *w;

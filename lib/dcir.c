@@ -226,7 +226,7 @@ thin(struct dcir_series *s, int level)
 static void
 cap_points(struct dcir_series *s, size_t maxpts)
 {
-	while (s->n > maxpts && s->level < 62)
+	while (s->n > maxpts && s->level < DCIR_LEVEL_MAX)
 		thin(s, s->level + 1);
 }
 

@@ -113,6 +113,12 @@ double	dcir_arrhenius(double r, double temp_c, double ref_c, double ea_kj);
  */
 #define DCIR_NBIN	100
 #define DCIR_WINDOW	30
+/*
+ * The coarsest thinning: buckets of 2^40 s (35,000 years) hold any
+ * history whole, leaving one point per SoC bin with steps, which may be
+ * more than the cap (101 at most).
+ */
+#define DCIR_LEVEL_MAX	40
 
 struct dcir_bin {
 	unsigned long n;	/* steps */

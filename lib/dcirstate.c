@@ -296,8 +296,8 @@ check(const struct dstate_dev *d, const struct dstate_conf *sc)
 	if (d->det.n > 0 && d->det.hist[(d->det.head + DCIR_HIST_MAX - 1) %
 	    DCIR_HIST_MAX].t != d->last)
 		return "last samples do not end at the last row";
-	if (s->level < 0 || s->level > 62 || s->n > sc->max_points ||
-	    s->n > s->steps)
+	if (s->level < 0 || s->level > DCIR_LEVEL_MAX || (s->n >
+	    sc->max_points && s->level < DCIR_LEVEL_MAX) || s->n > s->steps)
 		return "trend points inconsistent";
 	for (k = 0; s->bin != NULL && k <= DCIR_NBIN; k++) {
 		if (s->bin[k].n > 0 && (s->bin[k].first > s->bin[k].last ||
@@ -373,7 +373,7 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 	    sfmt_get_ul(rec->f[COL_N + 1], rec->len[COL_N + 1],
 	    &s->steps) < 0 ||
 	    sfmt_get_i64(rec->f[COL_N + 2], rec->len[COL_N + 2], &lv) < 0 ||
-	    lv < 0 || lv > 62)
+	    lv < 0 || lv > DCIR_LEVEL_MAX)
 		return bad_row(rec, "a bad count or time");
 	s->level = (int)lv;
 	if (get_pts(rec->f[COL_LIST], rec->len[COL_LIST], w.det.hist,
@@ -424,7 +424,7 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 		q = memchr(p, ';', (size_t)(e - p));
 		if (q == NULL)
 			q = e;
-		if (s->n == d->r->sc->max_points ||
+		if (s->n > d->r->sc->max_points + DCIR_NBIN ||
 		    split(p, (size_t)(q - p), ':', f, fl, 3) != 3) {
 			dstate_free(&w);
 			return bad_row(rec, "a bad list in column points");
