@@ -166,7 +166,7 @@ on_est(struct tool *t, struct dev *d, const struct cap_est *e)
 			write_est(&t->rej, d, e, 1);
 	} else if (t->trend)
 		dcir_series_add(&d->ser, e->start + (e->end - e->start) / 2,
-		    e->capacity_ah, t->max_points);
+		    e->capacity_ah, CW_MISSING, t->max_points);
 	else
 		write_est(&t->out, d, e, 0);
 	if (t->out.err || t->rej.err) {
@@ -261,7 +261,7 @@ report(const struct tool *t, const struct devtab *devs,
 	for (i = 0; i < nd; i++) {
 		const struct dev *d = devtab_at(devs, i);
 
-		if (d->ser.stride > 1)
+		if (d->ser.n < d->ser.steps)
 			thinned++;
 		if (d->ser.steps < t->tconf.min_estimates)
 			few++;

@@ -451,10 +451,13 @@ cap_trend_fit(const struct dcir_series *s, double rated_ah,
 	out->fade_pct = out->fade_30d = out->soh_pct = CW_MISSING;
 	if (s->steps < c->min_estimates || s->steps == 0 || s->n < 2)
 		return;
-	x = cw_malloc(s->n * sizeof *x);
-	for (i = 0; i < s->n; i++)
-		x[i] = (double)(s->t[i] - s->first) / US_PER_DAY;
-	rc = theil_fit(x, s->r, s->n, c->conf, &f);
+	/* One SoC bin for all (dcir_series_add with SoC unknown). */
+	x = cw_malloc(2 * s->n * sizeof *x);
+	for (i = 0; i < s->n; i++) {
+		x[i] = (double)(s->pt[i].t - s->first) / US_PER_DAY;
+		x[s->n + i] = s->pt[i].r;
+	}
+	rc = theil_fit(x, x + s->n, s->n, c->conf, &f);
 	free(x);
 	if (rc != 0)
 		return;

@@ -730,6 +730,12 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 
 	if (loc == d->loc)
 		return;
+	if (d->loc == SYNTH_RIDING) {
+		d->rd.end = t;
+		d->rd.to_charger = is_ch;
+		if (f->h.ride != NULL)
+			f->h.ride(f->h.ctx, d, &d->rd);
+	}
 	if (was_ch) {
 		if (d->mc_on)
 			mc_end(f, d, t, 0);
@@ -743,6 +749,9 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 		d->tr.plugins++;
 	}
 	if (loc == SYNTH_RIDING) {
+		d->rd.start = t;
+		d->rd.soc_start = d->rd.soc_min = 100.0 * d->pack.soc;
+		d->rd.from_charger = was_ch;
 		d->tr.rides++;
 		d->ride_mean = d->seg[d->cur].mean_a;
 		d->ride_left = 0;
@@ -858,6 +867,8 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 		if (d->g_deficit < 0)
 			d->g_deficit = 0;
 		d->g_bias += d->g_drift * h;
+		if (d->loc == SYNTH_RIDING && 100.0 * p->soc < d->rd.soc_min)
+			d->rd.soc_min = 100.0 * p->soc;
 		if (d->mc_on) {
 			if (p->soc < d->mc_low)
 				d->mc_low = p->soc;
@@ -999,5 +1010,10 @@ synth_fleet_finish(struct synth_fleet *f)
 			mc_end(f, d, d->tr.last, 0);
 		if (d->tr.rows > 0)
 			swing(&d->tr, d->tr.soc_end, 1);
+		if (d->loc == SYNTH_RIDING && f->h.ride != NULL) {
+			d->rd.end = d->tr.last;
+			d->rd.to_charger = 0;
+			f->h.ride(f->h.ctx, d, &d->rd);
+		}
 	}
 }

@@ -242,6 +242,16 @@ struct synth_topoff {
 	int completed;		/* the recharge reached termination */
 };
 
+/* One ride, in true values. */
+struct synth_ride {
+	cw_time start;		/* taken (about: the sample after) */
+	cw_time end;		/* parked or put on a charger again */
+	double soc_start;	/* percent, at the start */
+	double soc_min;		/* lowest during the ride, percent */
+	int from_charger;	/* taken from a dock or the depot */
+	int to_charger;		/* put on a charger at its end */
+};
+
 /* The truth kept per device. */
 struct synth_truth {
 	cw_time first, last;		/* first and last sample */
@@ -309,6 +319,7 @@ struct synth_dev {
 	int held;		/* the charger terminated, no ride since */
 	struct synth_topoff mc;
 	double mc_peak, mc_low;
+	struct synth_ride rd;	/* the ride in progress */
 	cw_time term_t;
 	double term_soc;
 	/* Fault state (synthout.c). */
@@ -328,6 +339,8 @@ struct synth_hooks {
 		    const struct synth_cevent *e);
 	void	(*topoff)(void *ctx, const struct synth_dev *d,
 		    const struct synth_topoff *m);
+	void	(*ride)(void *ctx, const struct synth_dev *d,
+		    const struct synth_ride *m);
 	void	*ctx;
 };
 

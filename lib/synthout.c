@@ -70,7 +70,7 @@ struct run {
 	unsigned long line;	/* number of the next line of the day files */
 	long day, slot, rpd;
 	char daystr[16];
-	struct tfile faults, charging, topoff;
+	struct tfile faults, charging, topoff, rides;
 	struct dayrec *days;
 	struct synth_rng hrng;	/* repeated headers */
 	struct synth_stats *st;
@@ -94,6 +94,8 @@ static void on_cevent(void *, const struct synth_dev *,
 	    const struct synth_cevent *);
 static void on_topoff(void *, const struct synth_dev *,
 	    const struct synth_topoff *);
+static void on_ride(void *, const struct synth_dev *,
+	    const struct synth_ride *);
 static void write_devices(struct run *);
 static void write_days(struct run *);
 static void write_run(struct run *);
@@ -659,6 +661,22 @@ on_topoff(void *ctx, const struct synth_dev *d, const struct synth_topoff *m)
 }
 
 static void
+on_ride(void *ctx, const struct synth_dev *d, const struct synth_ride *m)
+{
+	struct run *r = ctx;
+	struct csvout *w = &r->rides.w;
+
+	csvout_strn(w, d->name, d->namelen);
+	csvout_time(w, m->start);
+	csvout_time(w, m->end);
+	csvout_fixed(w, m->soc_start, 3);
+	csvout_fixed(w, m->soc_min, 3);
+	csvout_int(w, m->from_charger);
+	csvout_int(w, m->to_charger);
+	csvout_endrow(w);
+}
+
+static void
 write_devices(struct run *r)
 {
 	struct tfile t;
@@ -809,6 +827,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	r.st = st;
 	h.cevent = on_cevent;
 	h.topoff = on_topoff;
+	h.ride = on_ride;
 	h.ctx = &r;
 	r.f = synth_fleet_new(c, &h);
 	r.rpd = synth_fleet_rows_per_day(r.f);
@@ -840,6 +859,8 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	    "soc_start_pct,soc_end_pct,charger,site");
 	tf_open(&r, &r.topoff, "truth-topoff.csv",
 	    "device,start,restart,end,depth_pct,charge_ah,completed");
+	tf_open(&r, &r.rides, "truth-rides.csv", "device,start,end,"
+	    "soc_start_pct,soc_min_pct,from_charger,to_charger");
 	for (r.day = 0; r.day < c->ndays; r.day++) {
 		unsigned long before = 0;
 
@@ -877,7 +898,8 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 		st->lines += r.line - 1;
 		if (csvout_flush(&r.faults.w) != 0 ||
 		    csvout_flush(&r.charging.w) != 0 ||
-		    csvout_flush(&r.topoff.w) != 0)
+		    csvout_flush(&r.topoff.w) != 0 ||
+		    csvout_flush(&r.rides.w) != 0)
 			cw_die(CW_EXIT_DATA, "%s: cannot write the truth files",
 			    c->outdir);
 	}
@@ -885,6 +907,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	tf_close(&r.faults);
 	tf_close(&r.charging);
 	tf_close(&r.topoff);
+	tf_close(&r.rides);
 	write_devices(&r);
 	write_days(&r);
 	write_run(&r);

@@ -20,6 +20,11 @@
  * FNV-1a 64-bit hash of the row's text before it, in 16 hexadecimal
  * digits: a row cut short or altered does not match it.
  *
+ * Version 2 adds top_used and top_lvl_since (the top-off detector's use
+ * dips, topoff.h) and the prior (the damage before the log: prior,
+ * prior_soh_pct, prior_age_s, prior_efc) after pre_judged; version 1 is
+ * refused with a message, as its damage is not split by cause.
+ *
  * A file of states ends with an end row, ",,,cw-wear-state-2,end,N,check",
  * N being the rows of device states before it; files joined with cat hold
  * several, and their N add up (sorted, they come first).  A file without

@@ -171,7 +171,9 @@ tail -n 2 "$out/cw-clean.log" | sed "s/^/demo: /" >&2
 # DCIR gates are widened for a winter fleet (most charging starts near
 # 10 C, most top-ups above 80 %); the activation energy stays at the
 # default 30 kJ/mol, which is what cw-synth's cells have.  Real cells
-# need theirs fitted first (see cw-dcir(1)).
+# need theirs fitted first (see cw-dcir(1)).  The trend takes each pack's
+# own SoC window (--soc auto), so that dock packs, which live near full,
+# get one too.
 S=$out/cw-clean.csv.gz
 DCIR="--temp -10,45 --soc 10,90"
 say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear -> $out/"
@@ -179,7 +181,7 @@ job cw-rainflow -o "$out/cw-rainflow.csv" "$S"
 job cw-thermal -o "$out/cw-thermal.csv" "$S"
 job cw-topoff -s -o "$out/cw-topoff.csv" "$S"
 job cw-dcir $DCIR -o "$out/cw-dcir.csv" "$S"
-job cw-dcir -t $DCIR -o "$out/cw-dcir-trend.csv" "$S"
+job cw-dcir -t --temp -10,45 --soc auto -o "$out/cw-dcir-trend.csv" "$S"
 job cw-wear --cycle-life 500 --capacity 14 -o "$out/cw-wear.csv" "$S"
 job cw-wear --dwell -o "$out/cw-wear-dwell.csv" "$S"
 # Temperature of the charging rows, one a minute per pack, for the plot.

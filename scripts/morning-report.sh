@@ -15,7 +15,9 @@
 #      cw-thermal's events), most hours there first: a safety matter;
 #   2. packs whose dominant stressor is cold-charge or heat, or whose
 #      resistance grows by 5 % or more per 30 days (it would double within
-#      two years), shortest time to end of life first;
+#      two years) for sure: the lower end of the confidence interval of
+#      the growth (cw-dcir's growth_lo_pct_per_30d) at 5 % or more, not
+#      only the estimate; shortest time to end of life first;
 #   3. the rest, shortest time to end of life (cw-wear's days_to_eol)
 #      first.
 #
@@ -74,6 +76,9 @@ BEGIN {
 			if (v("growth_pct_per_30d") != "") {
 				rg[$1] = v("growth_pct_per_30d") + 0
 				reol[$1] = v("eol_date")
+				# No lower end (an older cw-dcir): not sure.
+				if (v("growth_lo_pct_per_30d") != "")
+					rglo[$1] = v("growth_lo_pct_per_30d") + 0
 			}
 		}
 	}
@@ -136,7 +141,7 @@ END {
 		if (sx[d] > 0)
 			key = sprintf("1 %015.3f", 1e9 - sx[d])
 		else if (dom[d] == "cold-charge" || dom[d] == "heat" ||
-		    ((d in rg) && rg[d] >= 5))
+		    ((d in rglo) && rglo[d] >= 5))
 			key = sprintf("2 %015.3f", e)
 		else
 			key = sprintf("3 %015.3f", e)
@@ -185,12 +190,13 @@ END {
 		if (fade[d] != "")
 			printf "\n"
 		if (d in rg)
-			printf "    resistance %+.1f %% per 30 days%s\n", rg[d],
-			    reol[d] != "" ? "; doubled by " reol[d] \
-			    " at this pace" : ""
+			printf "    resistance %+.1f %% per 30 days%s%s\n", rg[d],
+			    (d in rglo) ? sprintf(" (at least %+.1f %%)", \
+			    rglo[d]) : "", reol[d] != "" ? "; doubled by " \
+			    reol[d] " at this pace" : ""
 		if ((d in mcd) && mcd[d] != "" && mcd[d] >= 5)
-			printf "    %.0f top-off micro-cycles a day while " \
-			    "held near full\n", mcd[d]
+			printf "    %.0f top-off micro-cycles a day (rides " \
+			    "not counted)\n", mcd[d]
 	}
 	nc = split(soft["cool"], f, " ")
 	nw = split(soft["warm"], f, " ")

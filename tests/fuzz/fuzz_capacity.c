@@ -74,7 +74,7 @@ check_est(struct run *r, struct dev *d, const struct cap_est *e)
 	else
 		FZ_CHECK(e->resolution_pct >= 0);
 	dcir_series_add(&d->ser, e->start + (e->end - e->start) / 2,
-	    e->capacity_ah, r->maxpts);
+	    e->capacity_ah, CW_MISSING, r->maxpts);
 	FZ_CHECK(d->ser.n <= r->maxpts && d->ser.steps == d->ok);
 }
 

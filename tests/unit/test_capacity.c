@@ -350,7 +350,7 @@ test_trend(void **state)
 	memset(&s, 0, sizeof s);
 	cap_trend_conf_default(&c);
 	for (k = 0; k < 40; k++)
-		dcir_series_add(&s, T0 + k * DAY, 14 - 0.01 * k, 2048);
+		dcir_series_add(&s, T0 + k * DAY, 14 - 0.01 * k, CW_MISSING, 2048);
 	cap_trend_fit(&s, 14, &c, &tr);
 	assert_true(tr.fitted);
 	near(tr.slope, -0.01, 1e-12);
@@ -368,13 +368,13 @@ test_trend(void **state)
 	dcir_series_free(&s);
 
 	for (k = 0; k < 4; k++)
-		dcir_series_add(&s, T0 + k * DAY, 14, 2048);
+		dcir_series_add(&s, T0 + k * DAY, 14, CW_MISSING, 2048);
 	cap_trend_fit(&s, 14, &c, &tr);
 	assert_false(tr.fitted);
 	assert_false(tr.cap_start == tr.cap_start);
 	for (k = 4; k < 20; k++)
 		dcir_series_add(&s, T0 + k * DAY, 14 + (k % 2 ? 0.1 : -0.1),
-		    2048);
+		    CW_MISSING, 2048);
 	cap_trend_fit(&s, 14, &c, &tr);
 	assert_true(tr.fitted);
 	assert_false(tr.has_eol);

@@ -3,7 +3,9 @@
 # were made with Ea = 30, so with 35 the corrected values keep a factor
 # exp(-(5000 / 8.314462618) (1/T - 1/298.15)): warm steps read high, cold
 # ones low, and EB-0042, whose temperature wanders from day to day, is no
-# longer flat and gets a wide interval.  The output file appears only
+# longer flat and gets a wide interval, whose lower end is 0: so no
+# eol_date (only a sure growth, the interval above zero, gets one) and
+# growth_lo_pct_per_30d 0.  The output file appears only
 # after success, and stdout stays empty.
 # source: snapshot: with --ea 35 on data made with 30 the corrected values
 #   come from a Theil-Sen fit of 38 steps each off by its own temperature
