@@ -5,8 +5,11 @@
 # --aging 10 (see synth_truth_dcir.sh for the truth's columns:
 # rstep_start_ohm and rstep_end_ohm, the resistance a 10 s step shows at
 # 25 C at the first and the last sample).  Checks:
-#  - the default gate, 20..80 % SoC, gives a trend to at most 2 of the 8
-#    (the issue this option is for: almost every step is near full);
+#  - the default gate, 20..80 % SoC, gives a trend to at most half of the
+#    8 (the issue this option is for: almost every step is near full;
+#    0 of 8 with the gauge of old, 3 of 8 since cw-synth's gauge drifts
+#    between resets and its packs fade, which moves some steps down into
+#    the gate);
 #  - --soc auto gives every pack a trend, with a soc_gate whose lower end
 #    is 60 or more (near full);
 #  - the truth's mean slope lies inside Sen's 95 % interval of the
@@ -40,7 +43,7 @@ truth = {r['device']: r for r in
          csv.DictReader(open(os.path.join(d, 'in', 'truth-devices.csv')))}
 fixed = [r for r in csv.DictReader(open(os.path.join(d, 'fixed.csv')))
          if r['slope_ohm_per_day'] != '']
-check(len(fixed) <= 2, '%d packs with a trend at 20..80 %%' % len(fixed))
+check(len(fixed) <= 4, '%d packs with a trend at 20..80 %%' % len(fixed))
 auto = list(csv.DictReader(open(os.path.join(d, 'auto.csv'))))
 check(len(auto) == 8, '%d packs' % len(auto))
 inside = 0
