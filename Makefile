@@ -105,6 +105,8 @@ install: $(BIN)
 	mkdir -p $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(MANPREFIX)/man1
 	cp -f $(BIN) $(DESTDIR)$(PREFIX)/bin/
 	cp -f $(MAN) $(DESTDIR)$(MANPREFIX)/man1/
+	mkdir -p $(DESTDIR)$(PREFIX)/share/cellwear
+	cp -f scripts/slurm-day.sh scripts/slurm-merge.sh $(DESTDIR)$(PREFIX)/share/cellwear/
 
 uninstall:
 	for f in $(BIN); do rm -f $(DESTDIR)$(PREFIX)/$$f; done
