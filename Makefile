@@ -91,6 +91,11 @@ check: deps
 	@$(MAKE) -s tests
 	@tests/run
 
+# make mutate: the mutations of tests/mutate/list, each alone against
+# the fast part of make check (scripts/mutate.sh); fails when one survives.
+mutate: deps
+	@scripts/mutate.sh
+
 bench: all
 	scripts/bench.sh
 
@@ -117,5 +122,5 @@ clean:
 
 FORCE:
 
-.PHONY: all bench demo deps tests check fuzz lint install uninstall clean FORCE
+.PHONY: all bench demo deps mutate tests check fuzz lint install uninstall clean FORCE
 .SECONDARY: $(LIBOBJ) $(FUZZOBJ)

@@ -80,8 +80,8 @@ usage(FILE *fp, int status)
 "      --device name       device name for logs without a device column;\n"
 "                          @file takes each file's base name\n"
 "      --charge-negative   the log counts charging current as negative\n"
-"      --charge-sign sign  positive or negative: the sign of charging current\n"
-"                          in the log (default positive)\n"
+"      --charge-sign sign  auto, positive or negative: the sign of charging\n"
+"                          current in the log (default auto: per file)\n"
 "      --tz +hh:mm         offset of local times without a zone (default UTC)\n"
 "      --cells n           series cells per pack (voltage bounds 1.5..5.0 V per cell)\n"
 "      --bounds f=lo:hi    plausible range of voltage, current, temp or soc\n"
@@ -237,16 +237,18 @@ main(int argc, char *argv[])
 			cells = (double)opt_long_arg("--cells", optarg, 1, 1000);
 			break;
 		case OPT_CHARGE_NEGATIVE:
-			c.charge_negative = 1;
+			c.charge_sign = CLEAN_SIGN_NEGATIVE;
 			break;
 		case OPT_CHARGE_SIGN:
-			if (strcmp(optarg, "positive") == 0)
-				c.charge_negative = 0;
+			if (strcmp(optarg, "auto") == 0)
+				c.charge_sign = CLEAN_SIGN_AUTO;
+			else if (strcmp(optarg, "positive") == 0)
+				c.charge_sign = CLEAN_SIGN_POSITIVE;
 			else if (strcmp(optarg, "negative") == 0)
-				c.charge_negative = 1;
+				c.charge_sign = CLEAN_SIGN_NEGATIVE;
 			else
 				cw_usage_error("--charge-sign: '%s' is not "
-				    "positive or negative", optarg);
+				    "auto, positive or negative", optarg);
 			break;
 		case OPT_DECIMAL_COMMA:
 			c.dec = ',';
