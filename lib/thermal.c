@@ -251,7 +251,10 @@ ev_add(struct thermal_event *ev, const struct thermal_limits *l, cw_time t,
 			ev->soc_start = soc;
 		ev->soc_end = soc;
 	}
-	if (ev->kind == THERMAL_CHARGE) {
+	/* The protocol applies to the rows outside the window, not to the
+	 * rows of the hysteresis band. */
+	if (ev->kind == THERMAL_CHARGE &&
+	    thermal_zone_of(l, temp_c) != THERMAL_NORMAL) {
 		if (cw_isnum(i_a) && !(i_a <= ev->i_max))
 			ev->i_max = i_a;
 		if (cw_isnum(v) && !(v <= ev->v_max))

@@ -132,8 +132,9 @@ struct thermal_event {
 	unsigned long parts;	/* runs merged into it, 1 when none */
 	/*
 	 * Charge events: the highest current and pack voltage of the rows
-	 * of its runs (not of the rows between merged parts), NaN when none
-	 * was known, and the verdict, an enum thermal_protocol, set before
+	 * of its runs outside T2..T3 (not of the rows of the hysteresis
+	 * band, nor of those between merged parts), NaN when none was
+	 * known, and the verdict, an enum thermal_protocol, set before
 	 * the event is emitted; use events: NaN, NaN, -1.
 	 */
 	double i_max, v_max;

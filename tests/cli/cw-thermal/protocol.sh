@@ -18,6 +18,10 @@
 #   HOT     65 C, 0.2 A, 40.0 V         no-charge-allowed
 # A warm pack at 4.15 V per cell charged at 14 A in the warm zone is
 # judged by the voltage only (the scheme reduces the voltage there).
+# BAND: 5 rows at 50 C and 41.0 V, then 5 at 44.8 C (back inside the
+# window by less than the 0.5 C hysteresis, so still in the event) at
+# 42.0 V and 14 A: normal-zone rows, where 4.20 V and 1 C are allowed,
+# so they count for neither maximum: 2 A, 4.10 V, within.
 f=$TMPDIR_CASE/p.csv
 echo device,time,voltage_v,current_a,temp_c >"$f"
 row() {	# device I T V
@@ -38,6 +42,14 @@ row() {	# device I T V
 	row WARM413 2 50 41.3
 	row COLD 0.2 -5 38.0
 	row HOT 0.2 65 40.0
+	echo "BAND,0,41.0,0,20"
+	k=1; while [ $k -le 5 ]; do
+		echo "BAND,$((k * 60)),41.0,2,50"; k=$((k + 1))
+	done
+	while [ $k -le 10 ]; do
+		echo "BAND,$((k * 60)),42.0,14,44.8"; k=$((k + 1))
+	done
+	echo "BAND,660,42.0,0,20"
 } >>"$f"
 cw-thermal --capacity 14 --cells 10 "$f" | cut -d, -f1,3,12-
 # Without --capacity the cool events are unknown, without --cells the
@@ -56,7 +68,7 @@ cw-thermal --capacity 14 --cells 10 --cool-rate 1 --warm-voltage 4.2 "$f" |
 # No margins: COOLLO (7.34 A > 7 A) over-current, WARM411 over-voltage.
 cw-thermal --capacity 14 --cells 10 --cool-margin 0 --warm-margin 0 "$f" |
     cut -d, -f1,3,12- | grep -e COOLLO -e WARM411
-# The summary: 10 charge events, 4 within, 2 over-current, 2
+# The summary: 11 charge events, 5 within, 2 over-current, 2
 # over-voltage, 2 no-charge-allowed, 0 unknown (the last five columns).
 cw-thermal -s --capacity 14 --cells 10 "$f" |
     awk -F, '{ for (i = NF - 4; i <= NF; i++) { s[i] += $i } }
