@@ -17,6 +17,11 @@
 static int	side_of(const struct volt_conf *c, int open, int limit,
 		    double vc);
 static int	kind_of(const struct volt_conf *c, double i_a);
+static void	ev_begin(struct volt_event *ev, int limit, int kind, cw_time t0,
+		    double soc0);
+static void	ev_row(struct volt_event *ev, cw_time t, double vc, double ah,
+		    double soc);
+static void	ev_join(struct volt_event *ev, const struct volt_event *tail);
 static void	ev_close(struct volt_dev *d, const struct volt_conf *c);
 
 static const char *const limit_names[VOLT_NLIMIT] = { "over", "under" };
@@ -92,12 +97,67 @@ kind_of(const struct volt_conf *c, double i_a)
 	return VOLT_REST;
 }
 
-/* End the event in progress: keep it, or drop it if short. */
+static void
+ev_begin(struct volt_event *ev, int limit, int kind, cw_time t0, double soc0)
+{
+	ev->limit = limit;
+	ev->kind = kind;
+	ev->start = ev->end = t0;
+	ev->v_min = INFINITY;
+	ev->v_max = -INFINITY;
+	ev->charge_ah = ev->ah_in = 0.0;
+	ev->soc_start = ev->soc_end = soc0;
+	ev->rows = 0;
+}
+
+/* Add the row at T, cell voltage VC, that carried AH, to EV. */
+static void
+ev_row(struct volt_event *ev, cw_time t, double vc, double ah, double soc)
+{
+	ev->end = t;
+	if (vc < ev->v_min)
+		ev->v_min = vc;
+	if (vc > ev->v_max)
+		ev->v_max = vc;
+	ev->charge_ah += ah;
+	if (ev->kind == VOLT_CHARGE)
+		ev->ah_in += ah;
+	if (cw_isnum(soc)) {
+		if (!cw_isnum(ev->soc_start))
+			ev->soc_start = soc;
+		ev->soc_end = soc;
+	}
+	ev->rows++;
+}
+
+/* Append TAIL, which follows EV, to it. */
+static void
+ev_join(struct volt_event *ev, const struct volt_event *tail)
+{
+	ev->end = tail->end;
+	if (tail->v_min < ev->v_min)
+		ev->v_min = tail->v_min;
+	if (tail->v_max > ev->v_max)
+		ev->v_max = tail->v_max;
+	ev->charge_ah += tail->charge_ah;
+	ev->ah_in += tail->ah_in;
+	if (cw_isnum(tail->soc_end))
+		ev->soc_end = tail->soc_end;
+	ev->rows += tail->rows;
+}
+
+/*
+ * End the event in progress, with a pending change of kind that did not
+ * last: keep it, or drop it if short.
+ */
 static void
 ev_close(struct volt_dev *d, const struct volt_conf *c)
 {
 	const struct volt_event *ev = &d->ev;
 
+	if (d->tail_on)
+		ev_join(&d->ev, &d->tail);
+	d->tail_on = 0;
 	d->open = 0;
 	if (ev->end - ev->start < c->min_duration) {
 		d->short_dropped++;
@@ -150,34 +210,40 @@ volt_push(struct volt_dev *d, const struct volt_conf *c, cw_time t,
 	} else
 		d->unjudged++;
 
-	if (d->open && (side != ev->limit || kind != ev->kind))
+	if (d->open && side != ev->limit)
 		ev_close(d, c);
-	if (side >= 0) {
-		if (!d->open) {
+	if (side < 0)
+		;
+	else if (!d->open) {
+		d->open = 1;
+		ev_begin(ev, side, kind, t0, soc0);
+		ev_row(ev, t, vc, ah, soc);
+	} else if (kind == ev->kind) {
+		if (d->tail_on)
+			ev_join(ev, &d->tail);
+		d->tail_on = 0;
+		ev_row(ev, t, vc, ah, soc);
+	} else {
+		/*
+		 * Another kind: it splits the event only once it has lasted
+		 * the minimum duration, so a noisy current near
+		 * --min-current does not cut a storage event into pieces.
+		 */
+		if (d->tail_on && d->tail.kind != kind) {
+			ev_join(ev, &d->tail);
+			d->tail_on = 0;
+		}
+		if (!d->tail_on) {
+			d->tail_on = 1;
+			ev_begin(&d->tail, side, kind, t0, soc0);
+		}
+		ev_row(&d->tail, t, vc, ah, soc);
+		if (d->tail.end - d->tail.start >= c->min_duration) {
+			d->tail_on = 0;
+			ev_close(d, c);
+			*ev = d->tail;
 			d->open = 1;
-			ev->limit = side;
-			ev->kind = kind;
-			ev->start = t0;
-			ev->v_min = INFINITY;
-			ev->v_max = -INFINITY;
-			ev->charge_ah = ev->ah_in = 0.0;
-			ev->soc_start = ev->soc_end = soc0;
-			ev->rows = 0;
 		}
-		ev->end = t;
-		if (vc < ev->v_min)
-			ev->v_min = vc;
-		if (vc > ev->v_max)
-			ev->v_max = vc;
-		ev->charge_ah += ah;
-		if (kind == VOLT_CHARGE)
-			ev->ah_in += ah;
-		if (cw_isnum(soc)) {
-			if (!cw_isnum(ev->soc_start))
-				ev->soc_start = soc;
-			ev->soc_end = soc;
-		}
-		ev->rows++;
 	}
 	d->have_prev = 1;
 	d->prev_t = t;

@@ -11,9 +11,11 @@
  * event at the first row beyond a limit and leaves it only at a row back
  * inside by at least the hysteresis (a Schmitt trigger), so noise at a
  * limit gives one event instead of a burst of fragments.  A change of
- * kind ends the event and starts the next at the same time, so that each
- * event has one kind; a row that cannot be judged (no voltage or no
- * current) ends an event.
+ * kind that lasts at least the minimum duration ends the event and starts
+ * the next where the change began, so that each event has one kind; a
+ * shorter change (a noisy current near the minimum current) stays in the
+ * event.  A row that cannot be judged (no voltage or no current) ends an
+ * event.
  *
  * A row stands for the interval since the previous row of its device, as
  * its current does (charge.h): an event starts at the time of the row
@@ -83,6 +85,8 @@ struct volt_dev {
 	int cells;
 	int open;			/* an event is in progress in EV */
 	struct volt_event ev;
+	int tail_on;			/* rows of another kind follow EV */
+	struct volt_event tail;
 	int have_prev;
 	cw_time first, prev_t;
 	double prev_soc;

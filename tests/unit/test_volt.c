@@ -144,14 +144,15 @@ test_per_cell_over(void **state)
 }
 
 /*
- * Use, rest and charge below the minimum, in one cell: kind changes split
- * the event at the row before the change.  -4 A at 2.45 V from 10 s
- * (start 0 s; the first row stands for its own instant), until 40 s;
- * then rest (0.01 A, below --min-current) at 2.46..2.47 V until 100 s;
- * then charge at 1 A, 2.50 V (inside, but within 0.02 V: still under) at
- * 110 and 120 s, 2.53 V at 130 s ends it.  Use 0..40 s, -4 A * 40 s =
- * -0.0444444 Ah; rest 40..100 s, 0.01 A * 60 s; the charge, 100..120 s
- * (20 s), is under 30 s and dropped.
+ * Use, rest and charge below the minimum, in one cell: a change of kind
+ * that lasts the minimum duration splits the event at the row before the
+ * change.  -4 A at 2.45 V from 10 s (start 0 s; the first row stands for
+ * its own instant), until 40 s; then rest (0.01 A, below --min-current)
+ * at 2.46..2.47 V until 100 s; then charge at 1 A, 2.50 V (inside, but
+ * within 0.02 V: still under) at 110 and 120 s, 2.53 V at 130 s ends it.
+ * Use 0..40 s, -4 A * 40 s = -0.0444444 Ah; the charge, 100..120 s, lasts
+ * 20 s, less than 30 s: it stays in the rest event, 40..120 s,
+ * 0.01 A * 60 s + 1 A * 20 s.
  */
 static void
 test_kinds(void **state)
@@ -180,21 +181,56 @@ test_kinds(void **state)
 	near(got[0].ah_in, 0, 0);
 	assert_int_equal(got[1].kind, VOLT_REST);
 	assert_true(got[1].start == 40 * S);
-	assert_true(got[1].end == 100 * S);
-	near(got[1].charge_ah, 0.01 * 60 / 3600, 1e-12);
-	assert_int_equal(d.short_dropped, 1);
+	assert_true(got[1].end == 120 * S);
+	near(got[1].charge_ah, (0.01 * 60 + 20) / 3600, 1e-12);
+	/* The charging rows' charge counts as charged, whatever the kind. */
+	near(got[1].ah_in, 20.0 / 3600, 1e-12);
+	assert_int_equal(d.short_dropped, 0);
 	assert_int_equal(d.events[VOLT_UNDER][VOLT_USE], 1);
 	assert_int_equal(d.events[VOLT_UNDER][VOLT_REST], 1);
-	/* With a 10 s minimum the charge part is kept: 1 A * 20 s. */
+	/*
+	 * With a 10 s minimum the charge part splits the rest event at
+	 * 100 s (rest 40..100 s) and is kept: 1 A * 20 s.  A one-row
+	 * change of kind (10 s) now lasts the minimum too.
+	 */
 	setup(&c, &d, 1);
 	c.min_duration = 10 * S;
 	feed(&d, &c, rows, sizeof(rows) / sizeof(rows[0]));
 	assert_int_equal(ngot, 3);
+	assert_true(got[1].end == 100 * S);
 	assert_int_equal(got[2].kind, VOLT_CHARGE);
 	assert_true(got[2].start == 100 * S);
 	assert_true(got[2].end == 120 * S);
 	near(got[2].ah_in, 20.0 / 3600, 1e-12);
 	near(d.ah_in[VOLT_UNDER], 20.0 / 3600, 1e-12);
+}
+
+/*
+ * A storage event with a noisy standby current: single rows above
+ * --min-current (0.06 A, "use") inside a run of 0.02 A rows ("rest")
+ * are shorter than the minimum duration and do not split it.  One cell at
+ * 2.30 V, rows 10 s apart from 0 to 300 s, the rows at 100 and 200 s at
+ * -0.06 A: one rest event 0..300 s; net charge (-0.02 * 280 - 0.06 *
+ * 20) / 3600 Ah.
+ */
+static void
+test_kind_noise(void **state)
+{
+	struct volt_conf c;
+	struct volt_dev d;
+	int k;
+
+	(void)state;
+	setup(&c, &d, 1);
+	for (k = 0; k <= 30; k++)
+		volt_push(&d, &c, (cw_time)k * 10 * S, 2.30,
+		    k == 10 || k == 20 ? -0.06 : -0.02, NA);
+	volt_finish(&d, &c);
+	assert_int_equal(ngot, 1);
+	assert_int_equal(got[0].kind, VOLT_REST);
+	assert_true(got[0].start == 0 && got[0].end == 300 * S);
+	near(got[0].charge_ah, (-0.02 * 280 - 0.06 * 20) / 3600, 1e-12);
+	assert_int_equal(got[0].rows, 31);
 }
 
 /*
@@ -283,6 +319,7 @@ main(void)
 		cmocka_unit_test(test_defaults_and_names),
 		cmocka_unit_test(test_per_cell_over),
 		cmocka_unit_test(test_kinds),
+		cmocka_unit_test(test_kind_noise),
 		cmocka_unit_test(test_limits_and_hysteresis),
 		cmocka_unit_test(test_gap_and_unjudged),
 	};

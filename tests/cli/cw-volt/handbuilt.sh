@@ -9,11 +9,12 @@ f=$TMPDIR_CASE/a.csv
 # 2 A * 40 s = 0.0222222 Ah, SoC 92 (the row at 20 s) to 96.
 # P2, one cell, use at -5 A: 2.60, 2.55, 2.49 (under) at 20 s, 2.40,
 # 2.45 at 40 s, then -5 A -> +1 A (regenerative braking) at 2.47 V (50 s,
-# still under: a charge event starts at 40 s), 2.52 at 60 s (exit,
-# >= 2.50 + 0.02).  Use: 10..40 s, 30 s, 2.40..2.49, -5 A * 30 s =
-# -0.0416667 Ah.  The charge part, 40..50 s (10 s), is below the 30 s
-# minimum and dropped; with --min-duration 10s it is kept (1 A * 10 s =
-# 0.0027778 Ah, 2.47..2.47 V).
+# still under), 2.52 at 60 s (exit, >= 2.50 + 0.02).  The change of kind
+# lasts 10 s (40..50 s), less than the 30 s minimum, so it stays in the
+# use event: 10..50 s, 40 s, 2.40..2.49 V, -5 A * 30 s + 1 A * 10 s =
+# -0.0388889 Ah.  With --min-duration 10s it lasts the minimum and splits
+# the event: use 10..40 s (-5 A * 30 s = -0.0416667 Ah), charge 40..50 s
+# (1 A * 10 s = 0.0027778 Ah, 2.47..2.47 V).
 cat >"$f" <<'ROWS'
 device,time,voltage_v,current_a,soc_pct
 P1,0,4.20,2,90
@@ -42,8 +43,8 @@ cw-volt --cells 12 "$TMPDIR_CASE/b.csv" | sed 's/,12$/,1/' >"$TMPDIR_CASE/b.out"
 cw-volt "$f" | cmp - "$TMPDIR_CASE/b.out" && echo "12 cells: same events"
 # Without --cells the 12-cell pack is 29..52 V a cell: all over, from the
 # first row (at its own time): P1 charge 0..70 s, 2 A * 70 s =
-# 0.0388889 Ah; P2 use 0..40 s (-5 A * 40 s = -0.0555556 Ah), then the
-# kind changes to charge: 40..60 s, 20 s, dropped (under 30 s).
+# 0.0388889 Ah; P2 use 0..60 s, the 20 s of charge (40..60 s, under the
+# 30 s minimum) included: -5 A * 40 s + 1 A * 20 s = -0.05 Ah.
 cw-volt "$TMPDIR_CASE/b.csv"; echo "rc=$?"
 # Limits that leave no event: the highest reading is 4.31 and the lowest
 # 2.40, and a voltage exactly at a limit is inside.
