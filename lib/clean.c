@@ -3,6 +3,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
 
 #include "clean.h"
 #include "csvin.h"
@@ -570,15 +571,23 @@ scan_signs(const struct clean_conf *c, char **files, int n, unsigned req)
 	sg = cw_calloc((size_t)n, 1);
 	for (k = 0; k < n; k++) {
 		struct run r;
+		struct stat sb;
 		const char *why;
 		unsigned long a, d;
 
 		neg = c->charge_sign == CLEAN_SIGN_NEGATIVE;
 		sg[k] = (signed char)neg;
-		if (strcmp(files[k], "-") == 0) {
+		/*
+		 * Only a regular file can be read twice: a pipe or FIFO
+		 * (standard input, <(zcat ...)) read ahead would lose its
+		 * rows to the main pass.
+		 */
+		if (strcmp(files[k], "-") == 0 || stat(files[k], &sb) != 0 ||
+		    !S_ISREG(sb.st_mode)) {
 			if (cw_verbose && c->charge_sign == CLEAN_SIGN_AUTO)
-				cw_warn("-: standard input is not read ahead; "
-				    "charge sign taken as positive");
+				cw_warn("%s: not a regular file, not read "
+				    "ahead; charge sign taken as positive",
+				    files[k]);
 			continue;
 		}
 		memset(&r, 0, sizeof(r));

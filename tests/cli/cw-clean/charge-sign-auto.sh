@@ -28,3 +28,8 @@ cw-clean --charge-negative pos.csv >/dev/null
 echo '== too little evidence'
 head -n 4 pos.csv >few.csv
 cw-clean -v few.csv >/dev/null
+echo '== a FIFO is not read ahead (its rows would be lost): all 25 rows, sign as logged'
+mkfifo fifo
+cat neg.csv >fifo &
+cw-clean -v fifo | sed 1d | awk -F, '$4 < 0' | wc -l
+wait
