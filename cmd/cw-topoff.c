@@ -96,8 +96,8 @@ static const struct optab opts[] = {
 
 static const struct optool tool = {
 	"cw-topoff", "[FILE ...]",
-	"Holds near full charge and top-off micro-cycles, per device; dips driven\n"
-	"by use (discharge above the standby level) are counted apart.\n",
+	"Holds near full charge and top-off micro-cycles, per device; dips\n"
+	"driven by use (discharge above the standby level) are counted apart.\n",
 	"Durations take 90, 90s, 15m, 2h, 1d.\n",
 	opts
 };
@@ -335,7 +335,8 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 			t->use_dips = 1;
 			break;
 		case OPT_FULL:
-			t->conf.full_pct = opt_num_arg("--full", optarg, 0, 100);
+			t->conf.full_pct = opt_num_arg("--full", optarg, 0,
+			    100);
 			break;
 		case OPT_FULL_VOLTAGE:
 			t->conf.full_v = opt_num_arg("--full-voltage", optarg,
