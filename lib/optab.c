@@ -272,8 +272,12 @@ optab_help(FILE *fp, const struct optool *tool)
 		}
 		put_text(fp, o->help, &col, TEXTCOL);
 		if (o->dflt != NULL) {
+			/* "(default X)" on one line when X is one word. */
 			snprintf(buf, sizeof(buf), "(default %s)", o->dflt);
-			put_text(fp, buf, &col, TEXTCOL);
+			if (strchr(o->dflt, ' ') == NULL)
+				put_word(fp, buf, strlen(buf), &col, TEXTCOL);
+			else
+				put_text(fp, buf, &col, TEXTCOL);
 		}
 		fputc('\n', fp);
 	}
