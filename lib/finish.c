@@ -10,18 +10,18 @@
 #include "outf.h"
 
 void
-cw_write_error(const char *path)
+cw_write_error(const char *path, int errnum)
 {
 	if (path == NULL || strcmp(path, "-") == 0)
 		path = "standard output";
-	cw_warn("%s: write error: %s", path, strerror(errno));
+	cw_warn("%s: write error: %s", path, strerror(errnum));
 }
 
 int
 cw_finish(struct csvout *w, struct outf *o, const char *path, int rc)
 {
 	if (csvout_flush(w) != 0) {
-		cw_write_error(path);
+		cw_write_error(path, w->errnum != 0 ? w->errnum : EIO);
 		return CW_EXIT_DATA;
 	}
 	if (rc != CW_EXIT_OK)

@@ -13,10 +13,12 @@ struct outf;
  * written stay (they are flushed) but O is not committed, so an -o FILE
  * keeps its old contents, and RC is returned.  A write error is told
  * once, as "PATH: write error: REASON" (PATH "standard output" for
- * none).  Returns the exit status: RC, or CW_EXIT_DATA on a write error.
+ * none), with the errno of the first failed write.  A row callback that
+ * sees the csvout's err set just stops the run: this tells it.  Returns the exit status: RC, or CW_EXIT_DATA on a write error.
  */
 int	cw_finish(struct csvout *w, struct outf *o, const char *path, int rc);
-/* "PATH: write error: REASON" from errno, PATH NULL: standard output. */
-void	cw_write_error(const char *path);
+/* "PATH: write error: REASON" (strerror(ERRNUM)), PATH NULL or "-":
+ * standard output. */
+void	cw_write_error(const char *path, int errnum);
 
 #endif

@@ -263,13 +263,14 @@ optab_help(FILE *fp, const struct optool *tool)
 			    o->arg ? " " : "", o->arg ? o->arg : "");
 		fputs(buf, fp);
 		col = strlen(buf);
-		if (col < TEXTCOL - 1) {
+		/* A long one has its text on the next line. */
+		if (col < TEXTCOL - 1)
 			fprintf(fp, "%*s", (int)(TEXTCOL - col), "");
-			col = TEXTCOL;
-		} else {
+		else if (col == TEXTCOL - 1)
 			fputc(' ', fp);
-			col++;
-		}
+		else
+			fprintf(fp, "\n%*s", TEXTCOL, "");
+		col = TEXTCOL;
 		put_text(fp, o->help, &col, TEXTCOL);
 		if (o->dflt != NULL) {
 			/* "(default X)" on one line when X is one word. */
