@@ -5,8 +5,6 @@
  * lib/capacity.c (segments, the estimate, the trend) and lib/theilsen.c
  * (the robust fit); this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>

@@ -2,8 +2,6 @@
  * cw-rainflow: rainflow cycle counting per device (ASTM E1049-85) over
  * the sample stream.  The counting is lib/rainflow.c; this is the glue.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>

@@ -3,8 +3,6 @@
  * charger makes during them, per hold, per micro-cycle or per device.
  * The engine is lib/topoff.c; this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>

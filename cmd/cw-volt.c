@@ -3,8 +3,6 @@
  * events per device or as a summary per device.  The engine is
  * lib/volt.c; this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
