@@ -158,7 +158,7 @@ main(int argc, char *argv[])
 			break;
 		case OPT_SOH:
 			conf.soh_min = opt_num_arg("--soh", optarg, 0.001,
-			    100);
+			    150);
 			break;
 		case OPT_TOPOFF:
 			conf.topoff_day = opt_num_arg("--topoff", optarg, 0,

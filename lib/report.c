@@ -315,6 +315,9 @@ rd_header(void *ctx, const struct csvin_rec *h)
 		hint = " (cw-topoff holds or events: run it with --summary)";
 	else if (csvin_find(h, "soc_lo") >= 0)
 		hint = " (cw-wear --dwell: run it without --dwell)";
+	else if (csvin_find(h, "site") >= 0 ||
+	    csvin_find(h, "capacity_ah") >= 0 || csvin_find(h, "model") >= 0)
+		hint = " (a fleet file: give it with --fleet)";
 	cw_warn_at(h->src, h->line, "unknown header: not the output of "
 	    "cw-wear, cw-thermal --summary, cw-topoff --summary, cw-dcir "
 	    "--trend, cw-capacity --trend or cw-volt --summary%s", hint);
@@ -424,11 +427,7 @@ report_since(struct report *r, const char *path)
 	r->have_since = 1;
 	in = csvin_new('\0', &ops, r);
 	rc = csvin_file(in, path);
-	if (rc == 0 && csvin_stats(in)->headers == 0) {
-		cw_warn("%s: empty file (no header of a cw-report --csv)",
-		    path);
-		rc = CW_EXIT_DATA;
-	}
+	/* An empty file is an earlier report that held nothing. */
 	csvin_free(in);
 	return rc;
 }
@@ -569,6 +568,13 @@ add(struct report *r, const struct rdev *d, int reason, double mag)
 	return f;
 }
 
+/* "s" unless N is 1. */
+static const char *
+plural(double n)
+{
+	return n == 1 ? "" : "s";
+}
+
 /* X when it is a number above 0, else 0: counts of events. */
 static double
 count_of(double x)
@@ -593,33 +599,35 @@ find_pack(struct report *r, const struct rdev *d)
 			    count_of(x[T_AH_BELOW]));
 			snprintf(f->detail, sizeof(f->detail), "%.3g Ah "
 			    "charged below %g C (below-min, no charging "
-			    "allowed) in %.0f events, %s to %s",
+			    "allowed) in %.0f event%s, %s to %s",
 			    count_of(x[T_AH_BELOW]), lim[0], x[T_EV_BELOW],
-			    a, b);
+			    plural(x[T_EV_BELOW]), a, b);
 		}
 		if (count_of(x[T_EV_ABOVE]) > 0) {
 			f = add(r, d, REPORT_CHARGE_ABOVE_MAX,
 			    count_of(x[T_AH_ABOVE]));
 			snprintf(f->detail, sizeof(f->detail), "%.3g Ah "
 			    "charged above %g C (above-max, no charging "
-			    "allowed) in %.0f events, %s to %s",
+			    "allowed) in %.0f event%s, %s to %s",
 			    count_of(x[T_AH_ABOVE]), lim[3], x[T_EV_ABOVE],
-			    a, b);
+			    plural(x[T_EV_ABOVE]), a, b);
 		}
 		if (count_of(x[T_EV_OC]) > 0) {
 			f = add(r, d, REPORT_COOL_OVER_CURRENT, x[T_EV_OC]);
 			snprintf(f->detail, sizeof(f->detail), "%.0f charge "
-			    "events at %g to %g C (cool) above the reduced "
+			    "event%s at %g to %g C (cool) above the reduced "
 			    "current of the protocol; %.3g Ah charged cool, "
-			    "%s to %s", x[T_EV_OC], lim[0], lim[1],
+			    "%s to %s", x[T_EV_OC], plural(x[T_EV_OC]), lim[0],
+			    lim[1],
 			    count_of(x[T_AH_COOL]), a, b);
 		}
 		if (count_of(x[T_EV_OV]) > 0) {
 			f = add(r, d, REPORT_WARM_OVER_VOLTAGE, x[T_EV_OV]);
 			snprintf(f->detail, sizeof(f->detail), "%.0f charge "
-			    "events at %g to %g C (warm) above the reduced "
+			    "event%s at %g to %g C (warm) above the reduced "
 			    "charge voltage of the protocol; %.3g Ah charged "
-			    "warm, %s to %s", x[T_EV_OV], lim[2], lim[3],
+			    "warm, %s to %s", x[T_EV_OV], plural(x[T_EV_OV]),
+			    lim[2], lim[3],
 			    count_of(x[T_AH_WARM]), a, b);
 		}
 	} else if ((d->have & (1u << K_WEAR)) && d->cold_dominant) {
@@ -636,18 +644,18 @@ find_pack(struct report *r, const struct rdev *d)
 			f = add(r, d, REPORT_CELL_OVER_VOLTAGE,
 			    count_of(x[V_H_OVER]));
 			snprintf(f->detail, sizeof(f->detail), "cell voltage "
-			    "up to %.3f V in %.0f events over the limit, "
+			    "up to %.3f V in %.0f event%s over the limit, "
 			    "%.3g h, %.3g Ah charged over it", x[V_MAX],
-			    x[V_EV_OVER], count_of(x[V_H_OVER]),
+			    x[V_EV_OVER], plural(x[V_EV_OVER]), count_of(x[V_H_OVER]),
 			    count_of(x[V_AH_OVER]));
 		}
 		if (count_of(x[V_EV_UNDER]) > 0) {
 			f = add(r, d, REPORT_CELL_UNDER_VOLTAGE,
 			    count_of(x[V_H_UNDER]));
 			snprintf(f->detail, sizeof(f->detail), "cell voltage "
-			    "down to %.3f V in %.0f events under the limit "
+			    "down to %.3f V in %.0f event%s under the limit "
 			    "(over-discharge), %.3g h", x[V_MIN],
-			    x[V_EV_UNDER], count_of(x[V_H_UNDER]));
+			    x[V_EV_UNDER], plural(x[V_EV_UNDER]), count_of(x[V_H_UNDER]));
 		}
 	}
 	if ((d->have & (1u << K_WEAR)) && cw_isnum(x[W_EOL]) &&
