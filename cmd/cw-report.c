@@ -46,7 +46,7 @@ usage(FILE *fp)
 "header).  Exit status 3 when any pack needs attention, 0 when none does.\n"
 "\n"
 "      --by site|model     roll the reasons up per site or model of the\n"
-"                          fleet file (default: per pack)\n"
+"                          fleet file (without it: per pack)\n"
 "      --csv               write CSV: rank,device,site,reason,detail,new,tier\n"
 "      --fleet FILE        the fleet file: site, model, capacity_ah\n"
 "      --growth PCT        resistance growth since the trend's start that\n"
