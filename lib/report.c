@@ -868,8 +868,11 @@ write_text(struct report *r, FILE *fp)
 	    "cells' voltage\nwindow, then charging outside the protocol, then "
 	    "measured capacity and\nresistance, then the modelled life.\n",
 	    fp);
-	if (r->have_since)
-		fputs("[new]: not in the earlier report.\n", fp);
+	for (i = 0; r->have_since && i < r->nf; i++)
+		if (r->f[i].isnew && shown(r, &r->f[i])) {
+			fputs("[new]: not in the earlier report.\n", fp);
+			break;
+		}
 	for (i = 0; i < r->nf; i++) {
 		const struct report_finding *f = &r->f[i];
 
