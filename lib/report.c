@@ -139,7 +139,7 @@ struct rdev {
 	unsigned long line[K_N];
 	double x[F_N];			/* numbers, NaN when empty */
 	cw_time t[F_N];			/* times, when x[] of it is 0 */
-	int cold_dominant;		/* cw-wear's dominant is cold-charge */
+	int cold_dominant;		/* cw-wear's dominant: cold-charge */
 	size_t rank;			/* place in the list, 0 none */
 };
 
@@ -157,7 +157,7 @@ struct report {
 	struct report_finding *f;
 	size_t nf, fcap;
 	size_t npacks;			/* packs listed */
-	cw_time first, last;		/* span of the logs, 0 when unknown */
+	cw_time first, last;		/* span of the logs, 0: unknown */
 	char *buf;			/* a growing line (device lists) */
 	size_t buflen, bufcap;
 };
@@ -188,6 +188,13 @@ static void	write_footer(FILE *);
 static void	buf_reset(struct report *);
 static void	buf_add(struct report *, const char *, size_t);
 static void	tz_name(long, char *);
+static const char *plural(double);
+static double	count_of(double);
+static int	shown(const struct report *, const struct report_finding *);
+static const char **groups(struct report *, size_t *);
+static size_t	group_reason(struct report *, const char *, int, size_t *);
+static size_t	group_packs(const struct report *, const char *);
+static const char *by_name(const struct report *);
 
 void
 report_conf_default(struct report_conf *c)
@@ -646,7 +653,8 @@ find_pack(struct report *r, const struct rdev *d)
 			snprintf(f->detail, sizeof(f->detail), "cell voltage "
 			    "up to %.3f V in %.0f event%s over the limit, "
 			    "%.3g h, %.3g Ah charged over it", x[V_MAX],
-			    x[V_EV_OVER], plural(x[V_EV_OVER]), count_of(x[V_H_OVER]),
+			    x[V_EV_OVER], plural(x[V_EV_OVER]),
+			    count_of(x[V_H_OVER]),
 			    count_of(x[V_AH_OVER]));
 		}
 		if (count_of(x[V_EV_UNDER]) > 0) {
@@ -655,7 +663,8 @@ find_pack(struct report *r, const struct rdev *d)
 			snprintf(f->detail, sizeof(f->detail), "cell voltage "
 			    "down to %.3f V in %.0f event%s under the limit "
 			    "(over-discharge), %.3g h", x[V_MIN],
-			    x[V_EV_UNDER], plural(x[V_EV_UNDER]), count_of(x[V_H_UNDER]));
+			    x[V_EV_UNDER], plural(x[V_EV_UNDER]),
+			    count_of(x[V_H_UNDER]));
 		}
 	}
 	if ((d->have & (1u << K_WEAR)) && cw_isnum(x[W_EOL]) &&
@@ -750,7 +759,8 @@ int
 report_cmp(const struct report_finding *a, const struct report_finding *b,
     const char *name_a, const char *name_b)
 {
-	int ta = report_reason_tier(a->reason), tb = report_reason_tier(b->reason);
+	int ta = report_reason_tier(a->reason);
+	int tb = report_reason_tier(b->reason);
 
 	if (ta != tb)
 		return ta < tb ? -1 : 1;
@@ -893,8 +903,8 @@ write_text(struct report *r, FILE *fp)
 		if ((i + 1 == r->nf || r->f[i + 1].rank != f->rank) &&
 		    (d->have & (1u << K_TOPOFF)) &&
 		    d->x[O_PER_DAY] >= r->c.topoff_day)
-			fprintf(fp, "     also: %.0f top-off micro-cycles a day "
-			    "while held near full\n", d->x[O_PER_DAY]);
+			fprintf(fp, "     also: %.0f top-off micro-cycles a "
+			    "day while held near full\n", d->x[O_PER_DAY]);
 	}
 	if (nshown < r->npacks)
 		fprintf(fp, "\n%zu more packs need attention (not shown: "
@@ -989,8 +999,8 @@ write_text_by(struct report *r, FILE *fp)
 			n = group_reason(r, g[k], reason, &nnew);
 			if (n == 0)
 				continue;
-			fprintf(fp, "     %s: %zu (%s)", reason_def[reason].name,
-			    n, r->buf);
+			fprintf(fp, "     %s: %zu (%s)",
+			    reason_def[reason].name, n, r->buf);
 			if (r->have_since && nnew > 0)
 				fprintf(fp, " [%zu new]", nnew);
 			fputc('\n', fp);

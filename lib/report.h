@@ -44,7 +44,7 @@ enum report_reason {
 
 struct report_conf {
 	double lim[4];		/* T1..T4 of cw-thermal's --limits, C */
-	double soh_min;		/* --soh: measured SoH below it, percent */
+	double soh_min;		/* --soh: measured SoH below it, % */
 	double growth_max;	/* --growth: resistance growth, percent */
 	double horizon_d;	/* --horizon: days ahead for a projection */
 	double life_d;		/* --life: modelled days to end of life */
@@ -59,7 +59,7 @@ struct report_conf {
 struct report_finding {
 	const void *dev;	/* the pack (opaque) */
 	int reason;		/* enum report_reason */
-	double mag;		/* its severity within the reason, larger first */
+	double mag;		/* severity within the reason, larger first */
 	int isnew;		/* not in the --since report */
 	size_t rank;		/* the pack's (or group's) place, from 1 */
 	char detail[256];	/* why, with the numbers */
