@@ -59,7 +59,7 @@ struct report_conf {
 struct report_finding {
 	const void *dev;	/* the pack (opaque) */
 	int reason;		/* enum report_reason */
-	double mag;		/* severity within the reason, larger first */
+	double mag;		/* severity in the reason, larger first */
 	int isnew;		/* not in the --since report */
 	size_t rank;		/* the pack's (or group's) place, from 1 */
 	char detail[256];	/* why, with the numbers */

@@ -9,11 +9,11 @@
 # source: hand
 cd testdata/report || exit 1
 in="wear.csv thermal.csv volt.csv capacity.csv dcir.csv topoff.csv"
-cw-report --fleet fleet.csv --by site $in
+cw-report --fleet ../report-fleet.csv --by site $in
 echo "exit $?"
-cw-report --fleet fleet.csv --by site --csv $in
-cw-report --fleet fleet.csv --by model --csv $in
+cw-report --fleet ../report-fleet.csv --by site --csv $in
+cw-report --fleet ../report-fleet.csv --by model --csv $in
 cw-report --by site --csv thermal.csv
-cw-report --fleet fleet.csv --by site -n 1 $in | grep -e '^ *[0-9]*\.' -e more
+cw-report --fleet ../report-fleet.csv --by site -n 1 $in | grep -e '^ *[0-9]*\.' -e more
 cw-report --by pack $in
 echo "exit $?"

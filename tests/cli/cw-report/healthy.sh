@@ -27,9 +27,9 @@ d=$top/testdata/report
 for f in wear thermal volt capacity dcir topoff; do
 	awk -F, 'NR == 1 || /^EB-1[258],/' "$d/$f.csv" >"h-$f.csv"
 done
-cw-report --fleet "$d/fleet.csv" h-*.csv
+cw-report --fleet "$d-fleet.csv" h-*.csv
 echo "hand: exit $?"
-cw-report --fleet "$d/fleet.csv" --csv h-*.csv
+cw-report --fleet "$d-fleet.csv" --csv h-*.csv
 echo "hand --csv: exit $?"
-cw-report --fleet "$d/fleet.csv" --by site --csv h-*.csv
+cw-report --fleet "$d-fleet.csv" --by site --csv h-*.csv
 echo "hand --by site --csv: exit $?"

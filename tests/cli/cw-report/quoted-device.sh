@@ -9,11 +9,11 @@
 d=$PWD/testdata/report
 cd "$TMPDIR_CASE" || exit 1
 grep -h '^"Dock 3' "$d/thermal.csv" "$d/wear.csv" "$d/topoff.csv" | wc -l
-cw-report --fleet "$d/fleet.csv" "$d/thermal.csv" "$d/wear.csv" \
+cw-report --fleet "$d-fleet.csv" "$d/thermal.csv" "$d/wear.csv" \
     "$d/topoff.csv" | sed -n '/Dock/,/^$/p'
-cw-report --fleet "$d/fleet.csv" --csv -o last.csv "$d/thermal.csv"
+cw-report --fleet "$d-fleet.csv" --csv -o last.csv "$d/thermal.csv"
 grep Dock last.csv
-cw-report --fleet "$d/fleet.csv" --since last.csv --csv "$d/thermal.csv" |
+cw-report --fleet "$d-fleet.csv" --since last.csv --csv "$d/thermal.csv" |
     grep Dock
 sed 's/"Dock 3, bay 2"/"bay ""B"", 3"/' "$d/thermal.csv" >q.csv
 cw-report --csv q.csv | grep bay

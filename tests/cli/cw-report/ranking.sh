@@ -24,14 +24,14 @@
 # EB-18 (healthy).  The inputs in another order give the same list.
 # source: hand
 cd testdata/report || exit 1
-cw-report --fleet fleet.csv wear.csv thermal.csv volt.csv capacity.csv \
+cw-report --fleet ../report-fleet.csv wear.csv thermal.csv volt.csv capacity.csv \
     dcir.csv topoff.csv
 echo "exit $?"
-cw-report --fleet fleet.csv --csv topoff.csv dcir.csv capacity.csv \
+cw-report --fleet ../report-fleet.csv --csv topoff.csv dcir.csv capacity.csv \
     volt.csv thermal.csv wear.csv
 echo "exit $?"
 # -n 2: the two most urgent packs only; still exit 3.
-cw-report -n 2 --fleet fleet.csv wear.csv thermal.csv volt.csv \
+cw-report -n 2 --fleet ../report-fleet.csv wear.csv thermal.csv volt.csv \
     capacity.csv dcir.csv topoff.csv >"$TMPDIR_CASE/top2"
 echo "exit $?"
 sed -n '/^  2\./,/^$/p;/^  3\./p;/more packs/p' "$TMPDIR_CASE/top2"

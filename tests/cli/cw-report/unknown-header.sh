@@ -5,7 +5,7 @@
 # columns the tool writes (cw-wear's without days_to_eol) is unknown too.
 # Nothing is written on stdout.
 # source: spec
-cp -R testdata/report "$TMPDIR_CASE/d" || exit 1
+cp -R testdata/report "$TMPDIR_CASE/d" && cp testdata/report-fleet.csv "$TMPDIR_CASE/fleet.csv" || exit 1
 cd "$TMPDIR_CASE" || exit 1
 d=d
 printf 'pack,when,what\nA,1,2\n' >other.csv
@@ -14,7 +14,7 @@ printf 'device,kind,zone,start,end,duration_s,temp_min_c,temp_max_c,charge_ah,so
 cw-report "$d/wear.csv" events.csv; echo "exit $?"
 printf 'device,time,soc_pct,temp_c,delta_i_a,delta_v_v,r_ohm,r_ref_ohm,dt_s,i_pre_a\n' >steps.csv
 cw-report steps.csv; echo "exit $?"
-cw-report "$d/fleet.csv"; echo "exit $?"
+cw-report fleet.csv; echo "exit $?"
 cw-report --csv -o last.csv "$d/wear.csv"
 cw-report last.csv; echo "exit $?"
 sed '1s/,days_to_eol//' "$d/wear.csv" >short.csv
