@@ -176,6 +176,8 @@ static struct report_finding *add(struct report *, const struct rdev *,
 static void	find_pack(struct report *, const struct rdev *);
 static void	find_projection(struct report *, const struct rdev *);
 static void	date_of(const struct report *, cw_time, char *);
+static void	field_date(const struct report *, const struct rdev *, int,
+		    double, char *);
 static const char *site_of(const struct report *, const struct rdev *);
 static const char *group_of(const struct report *, const struct rdev *);
 static int	cmp_found(const void *, const void *);
@@ -516,6 +518,18 @@ date_of(const struct report *r, cw_time t, char *buf)
 	buf[10] = '\0';
 }
 
+/* The date of time field K of D plus DAYS, or "?" when it is empty. */
+static void
+field_date(const struct report *r, const struct rdev *d, int k, double days,
+    char *buf)
+{
+	if (!cw_isnum(d->x[k])) {
+		strcpy(buf, "?");
+		return;
+	}
+	date_of(r, d->t[k] + (cw_time)(days * DAY_US), buf);
+}
+
 /* "UTC" or "UTC+01:00" of an offset, into BUF[16]. */
 static void
 tz_name(long s, char *buf)
@@ -599,8 +613,8 @@ find_pack(struct report *r, const struct rdev *d)
 	char a[11], b[11];
 
 	if (d->have & (1u << K_THERMAL)) {
-		date_of(r, d->t[T_FIRST], a);
-		date_of(r, d->t[T_LAST], b);
+		field_date(r, d, T_FIRST, 0, a);
+		field_date(r, d, T_LAST, 0, b);
 		if (count_of(x[T_EV_BELOW]) > 0) {
 			f = add(r, d, REPORT_CHARGE_BELOW_MIN,
 			    count_of(x[T_AH_BELOW]));
@@ -639,8 +653,8 @@ find_pack(struct report *r, const struct rdev *d)
 		}
 	} else if ((d->have & (1u << K_WEAR)) && d->cold_dominant) {
 		/* No cw-thermal summary: cw-wear's count of cold charge. */
-		date_of(r, d->t[W_FIRST], a);
-		date_of(r, d->t[W_LAST], b);
+		field_date(r, d, W_FIRST, 0, a);
+		field_date(r, d, W_LAST, 0, b);
 		f = add(r, d, REPORT_CHARGE_BELOW_MIN, count_of(x[W_COLD]));
 		snprintf(f->detail, sizeof(f->detail), "%.3g Ah of %.3g Ah "
 		    "charged below %g C (cw-wear: cold-charge), %s to %s",
@@ -669,7 +683,7 @@ find_pack(struct report *r, const struct rdev *d)
 	}
 	if ((d->have & (1u << K_WEAR)) && cw_isnum(x[W_EOL]) &&
 	    x[W_EOL] < r->c.life_d) {
-		date_of(r, d->t[W_LAST] + (cw_time)(x[W_EOL] * DAY_US), a);
+		field_date(r, d, W_LAST, x[W_EOL], a);
 		f = add(r, d, REPORT_SHORT_LIFE, -x[W_EOL]);
 		snprintf(f->detail, sizeof(f->detail), "modelled end of life "
 		    "(80 %% SoH) in %.0f days, by %s, at this pace (modelled "
@@ -706,8 +720,7 @@ find_projection(struct report *r, const struct rdev *d)
 			rate = -100 * x[C_SLOPE] / rated;
 			days = (soh - r->c.soh_min) / rate;
 			if (days <= r->c.horizon_d) {
-				date_of(r, d->t[C_LAST] +
-				    (cw_time)(days * DAY_US), a);
+				field_date(r, d, C_LAST, days, a);
 				f = add(r, d, REPORT_CAPACITY_FADING, -days);
 				snprintf(f->detail, sizeof(f->detail),
 				    "measured SoH %.1f %%, losing %.2f points "
@@ -725,7 +738,7 @@ find_projection(struct report *r, const struct rdev *d)
 
 		if (cw_isnum(x[D_GROWTH]))
 			g = x[D_GROWTH];
-		date_of(r, d->t[D_FIRST], a);
+		field_date(r, d, D_FIRST, 0, a);
 		if (g >= r->c.growth_max) {
 			f = add(r, d, REPORT_RESISTANCE_HIGH, g);
 			snprintf(f->detail, sizeof(f->detail), "resistance "
@@ -739,8 +752,7 @@ find_projection(struct report *r, const struct rdev *d)
 			target = x[D_RSTART] * (1 + r->c.growth_max / 100);
 			days = (target - x[D_REND]) / x[D_SLOPE];
 			if (days <= r->c.horizon_d) {
-				date_of(r, d->t[D_LAST] +
-				    (cw_time)(days * DAY_US), b);
+				field_date(r, d, D_LAST, days, b);
 				f = add(r, d, REPORT_RESISTANCE_RISING, -days);
 				snprintf(f->detail, sizeof(f->detail),
 				    "resistance %+.1f %% since %s, %+.2f %% "
