@@ -607,49 +607,48 @@ count_of(double x)
 static void
 find_pack(struct report *r, const struct rdev *d)
 {
+	static const struct {
+		int reason;
+		int ev, ah;		/* fields of the events, the Ah */
+		int lo, hi;		/* the zone's limits, T1..T4 as 0..3 */
+		const char *what;
+	} th[4] = {
+		{ REPORT_CHARGE_BELOW_MIN, T_EV_BELOW, T_AH_BELOW, 0, -1,
+		    "below-min, no charging allowed" },
+		{ REPORT_CHARGE_ABOVE_MAX, T_EV_ABOVE, T_AH_ABOVE, 3, -1,
+		    "above-max, no charging allowed" },
+		{ REPORT_COOL_OVER_CURRENT, T_EV_OC, T_AH_COOL, 0, 1,
+		    "cool, above the protocol's reduced current" },
+		{ REPORT_WARM_OVER_VOLTAGE, T_EV_OV, T_AH_WARM, 2, 3,
+		    "warm, above the protocol's reduced charge voltage" }
+	};
 	const double *x = d->x;
 	const double *lim = r->c.lim;
 	struct report_finding *f;
-	char a[11], b[11];
+	char a[11], b[11], zone[48];
+	int k;
 
 	if (d->have & (1u << K_THERMAL)) {
 		field_date(r, d, T_FIRST, 0, a);
 		field_date(r, d, T_LAST, 0, b);
-		if (count_of(x[T_EV_BELOW]) > 0) {
-			f = add(r, d, REPORT_CHARGE_BELOW_MIN,
-			    count_of(x[T_AH_BELOW]));
-			snprintf(f->detail, sizeof(f->detail), "%.3g Ah "
-			    "charged below %g C (below-min, no charging "
-			    "allowed) in %.0f event%s, %s to %s",
-			    count_of(x[T_AH_BELOW]), lim[0], x[T_EV_BELOW],
-			    plural(x[T_EV_BELOW]), a, b);
-		}
-		if (count_of(x[T_EV_ABOVE]) > 0) {
-			f = add(r, d, REPORT_CHARGE_ABOVE_MAX,
-			    count_of(x[T_AH_ABOVE]));
-			snprintf(f->detail, sizeof(f->detail), "%.3g Ah "
-			    "charged above %g C (above-max, no charging "
-			    "allowed) in %.0f event%s, %s to %s",
-			    count_of(x[T_AH_ABOVE]), lim[3], x[T_EV_ABOVE],
-			    plural(x[T_EV_ABOVE]), a, b);
-		}
-		if (count_of(x[T_EV_OC]) > 0) {
-			f = add(r, d, REPORT_COOL_OVER_CURRENT, x[T_EV_OC]);
+		for (k = 0; k < 4; k++) {
+			const double n = count_of(x[th[k].ev]);
+			const double ah = count_of(x[th[k].ah]);
+
+			if (n == 0)
+				continue;
+			if (th[k].hi < 0)
+				snprintf(zone, sizeof(zone), "%s %g C",
+				    th[k].lo == 0 ? "below" : "above",
+				    lim[th[k].lo]);
+			else
+				snprintf(zone, sizeof(zone), "at %g to %g C",
+				    lim[th[k].lo], lim[th[k].hi]);
+			/* No charging allowed: by Ah; the protocol: by events. */
+			f = add(r, d, th[k].reason, k < 2 ? ah : n);
 			snprintf(f->detail, sizeof(f->detail), "%.0f charge "
-			    "event%s at %g to %g C (cool) above the reduced "
-			    "current of the protocol; %.3g Ah charged cool, "
-			    "%s to %s", x[T_EV_OC], plural(x[T_EV_OC]), lim[0],
-			    lim[1],
-			    count_of(x[T_AH_COOL]), a, b);
-		}
-		if (count_of(x[T_EV_OV]) > 0) {
-			f = add(r, d, REPORT_WARM_OVER_VOLTAGE, x[T_EV_OV]);
-			snprintf(f->detail, sizeof(f->detail), "%.0f charge "
-			    "event%s at %g to %g C (warm) above the reduced "
-			    "charge voltage of the protocol; %.3g Ah charged "
-			    "warm, %s to %s", x[T_EV_OV], plural(x[T_EV_OV]),
-			    lim[2], lim[3],
-			    count_of(x[T_AH_WARM]), a, b);
+			    "event%s %s (%s); %.3g Ah charged in the zone in "
+			    "all, %s to %s", n, plural(n), zone, th[k].what, ah, a, b);
 		}
 	} else if ((d->have & (1u << K_WEAR)) && d->cold_dominant) {
 		/* No cw-thermal summary: cw-wear's count of cold charge. */
