@@ -44,8 +44,8 @@
 static char path[64];
 
 static void	put(const char *text);
-static void	wear_row(FILE *fp, const char *dev, const char *eol,
-		    const char *dominant);
+static void	wear_text(char *buf, size_t size, const char *const *rows,
+		    int n);
 static struct report *run(const struct report_conf *c, const char *since,
 		    int nfile, const char *const *texts);
 static const char *dev_of(const struct report_finding *f);
@@ -66,11 +66,20 @@ put(const char *text)
 	assert_int_equal(fclose(fp), 0);
 }
 
+/* A cw-wear output into BUF: N rows of (device, days_to_eol, dominant). */
 static void
-wear_row(FILE *fp, const char *dev, const char *eol, const char *dominant)
+wear_text(char *buf, size_t size, const char *const *rows, int n)
 {
-	fprintf(fp, "%s," T0 "," T1 ",30,100,7,80,10,0,0,0,0,0,0.3,0.6,0.1,"
-	    "0,1,99,%s,%s,new,0.001,0\n", dev, eol, dominant);
+	FILE *fp = fmemopen(buf, size, "w");
+	int i;
+
+	assert_non_null(fp);
+	fputs(WEAR_HDR, fp);
+	for (i = 0; i < n; i++)
+		fprintf(fp, "%s," T0 "," T1 ",30,100,7,80,10,0,0,0,0,0,0.3,0.6,"
+		    "0.1,0,1,99,%s,%s,new,0.001,0\n", rows[3 * i],
+		    rows[3 * i + 1], rows[3 * i + 2]);
+	assert_int_equal(fclose(fp), 0);
 }
 
 /* Read each of TEXTS as a file (and SINCE as --since), then rank. */
@@ -152,18 +161,14 @@ test_rank_groups(void **state)
 	const struct report_finding *f;
 	char wear[2048], thermal[2048];
 	const char *texts[2] = { wear, thermal };
-	FILE *fp;
 	size_t n;
 
 	(void)state;
 	report_conf_default(&c);
-	fp = fmemopen(wear, sizeof(wear), "w");
-	fputs(WEAR_HDR, fp);
-	wear_row(fp, "P", "200", "cycling");
-	wear_row(fp, "Q", "100", "cycling");
-	wear_row(fp, "R", "", "cold-charge");
-	wear_row(fp, "S", "365", "cycling");	/* not below 365: healthy */
-	fclose(fp);
+	/* S: 365 days, not below --life's 365: healthy. */
+	wear_text(wear, sizeof(wear), (const char *const[]){ "P", "200",
+	    "cycling", "Q", "100", "cycling", "R", "", "cold-charge", "S",
+	    "365", "cycling" }, 4);
 	snprintf(thermal, sizeof(thermal), THERMAL_HDR
 	    "P," T0 "," T1 ",100,0,20,80,0,0,0,20,10,0,5,0,0,0,0,0,0,8,2,0,0,"
 	    "0\n"
@@ -250,16 +255,12 @@ test_since(void **state)
 	const struct report_finding *f;
 	char wear[1024];
 	const char *texts[1] = { wear };
-	FILE *fp;
 	size_t n;
 
 	(void)state;
 	report_conf_default(&c);
-	fp = fmemopen(wear, sizeof(wear), "w");
-	fputs(WEAR_HDR, fp);
-	wear_row(fp, "P", "200", "cycling");
-	wear_row(fp, "Q", "100", "cycling");
-	fclose(fp);
+	wear_text(wear, sizeof(wear), (const char *const[]){ "P", "200",
+	    "cycling", "Q", "100", "cycling" }, 2);
 	r = run(&c, "rank,device,site,reason,detail,new\n"
 	    "1,Q,,short-life,x,1\n1,P,,capacity-low,y,1\n", 1, texts);
 	f = report_findings(r, &n);
