@@ -12,7 +12,9 @@
 #   4. gnuplot draws the plots of scripts/plot-*.gp into demo/out/*.png
 #      (dwell.png: where the idle-dock group spends its time, from
 #      cw-wear --dwell);
-#   5. scripts/morning-report.sh prints the packs that need attention.
+#   5. cw-report prints the packs that need attention, most urgent first
+#      (demo/out/report.txt; exit 3 of cw-report, "something to act on",
+#      is not a failure of the demo).
 #
 # demo/in and demo/out are emptied first and ignored by git.  Settings can
 # be changed from the environment: DEMO_DEVICES, DEMO_DAYS, DEMO_START
@@ -176,10 +178,15 @@ tail -n 2 "$out/cw-clean.log" | sed "s/^/demo: /" >&2
 # get one too.
 S=$out/cw-clean.csv.gz
 DCIR="--temp -10,45 --soc 10,90"
-say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear -> $out/"
+say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear cw-capacity" \
+    "cw-volt -> $out/"
 job cw-rainflow -o "$out/cw-rainflow.csv" "$S"
 job cw-thermal -o "$out/cw-thermal.csv" "$S"
+job cw-thermal -s --capacity 14 --cells 10 \
+    -o "$out/cw-thermal-summary.csv" "$S"
 job cw-topoff -s -o "$out/cw-topoff.csv" "$S"
+job cw-capacity -t --rated 14 -o "$out/cw-capacity-trend.csv" "$S"
+job cw-volt -s --cells 10 -o "$out/cw-volt-summary.csv" "$S"
 job cw-dcir $DCIR -o "$out/cw-dcir.csv" "$S"
 job cw-dcir -t --temp -10,45 --soc auto -o "$out/cw-dcir-trend.csv" "$S"
 job cw-wear --cycle-life 500 --capacity 14 -o "$out/cw-wear.csv" "$S"
@@ -220,5 +227,13 @@ job gnuplot -e "in='$out/dwell-idle-dock.csv'; out='$out/dwell.png'; \
     scripts/plot-dwell.gp
 waitall || die "gnuplot failed"
 
-scripts/morning-report.sh "$out" "$in/fleet.csv" | tee "$out/morning-report.txt"
+# The morning report from the per-pack outputs, dates at the fleet's
+# local offset (cw-synth's default, +01:00).
+rc=0
+cw-report --fleet "$in/fleet.csv" --tz +01:00 -o "$out/report.txt" \
+    "$out/cw-wear.csv" "$out/cw-thermal-summary.csv" "$out/cw-topoff.csv" \
+    "$out/cw-dcir-trend.csv" "$out/cw-capacity-trend.csv" \
+    "$out/cw-volt-summary.csv" || rc=$?
+[ $rc -eq 0 ] || [ $rc -eq 3 ] || die "cw-report failed"
+cat "$out/report.txt"
 say "done in $(( $(date +%s) - t0 )) s; outputs in $out/"
