@@ -5,14 +5,15 @@
  * any.  The engine is lib/report.c; this file holds the options.
  */
 #include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "cw.h"
+#include "finish.h"
 #include "fleet.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "report.h"
 #include "ts.h"
@@ -21,84 +22,61 @@
 #define EXIT_ATTENTION 3
 
 enum {
-	OPT_BY = 256, OPT_CSV, OPT_FLEET, OPT_GROWTH, OPT_HORIZON, OPT_LIFE,
-	OPT_LIMITS, OPT_SINCE, OPT_SOH, OPT_TOPOFF, OPT_TZ, OPT_VERSION
+	OPT_BY = OPTAB_LONG, OPT_CSV, OPT_FLEET, OPT_GROWTH, OPT_HORIZON,
+	OPT_LIFE, OPT_LIMITS, OPT_SINCE, OPT_SOH, OPT_TOPOFF, OPT_TZ
 };
 
-static void	usage(FILE *fp);
+static const struct optab opts[] = {
+	{ "by", 0, "site|model", "roll the reasons up per site or model of "
+	    "the fleet file (without it: per pack)", NULL, OPT_BY },
+	{ "csv", 0, NULL, "write CSV: rank,device,site,reason,detail,new,tier",
+	    NULL, OPT_CSV },
+	{ "fleet", 0, "FILE", "the fleet file: site, model, capacity_ah",
+	    NULL, OPT_FLEET },
+	{ "growth", 0, "PCT", "resistance growth since the trend's start that "
+	    "needs attention", "100, i.e. doubled", OPT_GROWTH },
+	{ "horizon", 0, "DAYS", "a sure trend that reaches --soh or --growth "
+	    "within DAYS needs attention", "90", OPT_HORIZON },
+	{ "life", 0, "DAYS", "modelled days to end of life below DAYS need "
+	    "attention", "365", OPT_LIFE },
+	{ "limits", 0, "T1,T2,T3,T4", "the zones cw-thermal was run with, for "
+	    "the text", "0,10,45,60 C", OPT_LIMITS },
+	{ "top", 'n', "N", "list the N most urgent packs (or groups) only",
+	    "0: all", 0 },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "since", 0, "FILE", "an earlier --csv report: mark what is new",
+	    NULL, OPT_SINCE },
+	{ "soh", 0, "PCT", "measured state of health below PCT needs "
+	    "attention", "80", OPT_SOH },
+	{ "topoff", 0, "N", "show top-off micro-cycles a day of N or more "
+	    "beside a listed pack", "10", OPT_TOPOFF },
+	{ "tz", 0, "+HH:MM", "dates at this offset from UTC", "UTC", OPT_TZ },
+	{ "verbose", 'v', NULL, "say what each input file was taken for",
+	    NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
 
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-report [-hv] [--by site|model] [--csv] [--fleet FILE] "
-	    "[--growth PCT]\n"
-	    "                 [--horizon DAYS] [--life DAYS] "
-	    "[--limits T1,T2,T3,T4] [-n N]\n"
-	    "                 [-o FILE] [--since FILE] [--soh PCT] "
-	    "[--topoff N] [--tz +HH:MM]\n"
-	    "                 [--version] [FILE ...]\n");
-	fputs(
-"\n"
-"The packs that need attention, most urgent first, and why, from the\n"
-"outputs of cw-wear, cw-thermal --summary, cw-topoff --summary, cw-dcir\n"
-"--trend, cw-capacity --trend and cw-volt --summary (each recognised by its\n"
-"header).  Exit status 3 when any pack needs attention, 0 when none does.\n"
-"\n"
-"      --by site|model     roll the reasons up per site or model of the\n"
-"                          fleet file (without it: per pack)\n"
-"      --csv               write CSV: rank,device,site,reason,detail,new,tier\n"
-"      --fleet FILE        the fleet file: site, model, capacity_ah\n"
-"      --growth PCT        resistance growth since the trend's start that\n"
-"                          needs attention (default 100, i.e. doubled)\n"
-"  -h, --help              print this help and exit 0\n"
-"      --horizon DAYS      a sure trend that reaches --soh or --growth\n"
-"                          within DAYS needs attention (default 90)\n"
-"      --life DAYS         modelled days to end of life below DAYS need\n"
-"                          attention (default 365)\n"
-"      --limits T1,T2,T3,T4  the zones cw-thermal was run with, for the\n"
-"                          text (default 0,10,45,60 C)\n"
-"  -n, --top N             list the N most urgent packs (or groups) only\n"
-"                          (default 0: all)\n"
-"  -o, --output FILE       write to FILE atomically, not standard output\n"
-"      --since FILE        an earlier --csv report: mark what is new\n"
-"      --soh PCT           measured state of health below PCT needs\n"
-"                          attention (default 80)\n"
-"      --topoff N          show top-off micro-cycles a day of N or more\n"
-"                          beside a listed pack (default 10)\n"
-"      --tz +HH:MM         dates at this offset from UTC (default UTC)\n"
-"  -v, --verbose           say what each input file was taken for\n"
-"      --version           print the version and exit 0\n"
-"\n"
-"The thresholds are common practice, no source; the cell maker's data\n"
-"sheet rules.  The report advises; it is not a safety system.\n", fp);
-}
+static const struct optool tool = {
+	"cw-report", "[FILE ...]",
+	"The packs that need attention, most urgent first, and why, from\n"
+	"the outputs of cw-wear, cw-thermal --summary, cw-topoff --summary,\n"
+	"cw-dcir --trend, cw-capacity --trend and cw-volt --summary (each\n"
+	"recognised by its header).  Exit status 3 when any pack needs\n"
+	"attention, 0 when none does.\n",
+	"The thresholds are common practice, no source; the cell maker's data\n"
+	"sheet rules.  The report advises; it is not a safety system.\n",
+	opts
+};
+
 
 int
 main(int argc, char *argv[])
 {
-	static const struct option longopts[] = {
-		{ "by", required_argument, NULL, OPT_BY },
-		{ "csv", no_argument, NULL, OPT_CSV },
-		{ "fleet", required_argument, NULL, OPT_FLEET },
-		{ "growth", required_argument, NULL, OPT_GROWTH },
-		{ "help", no_argument, NULL, 'h' },
-		{ "horizon", required_argument, NULL, OPT_HORIZON },
-		{ "life", required_argument, NULL, OPT_LIFE },
-		{ "limits", required_argument, NULL, OPT_LIMITS },
-		{ "output", required_argument, NULL, 'o' },
-		{ "since", required_argument, NULL, OPT_SINCE },
-		{ "soh", required_argument, NULL, OPT_SOH },
-		{ "top", required_argument, NULL, 'n' },
-		{ "topoff", required_argument, NULL, OPT_TOPOFF },
-		{ "tz", required_argument, NULL, OPT_TZ },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ NULL, 0, NULL, 0 }
-	};
 	static char stdin_name[] = "-";
 	static char *stdin_only[] = { stdin_name };
 	struct report_conf conf;
+	struct optparse op;
 	struct report *rep;
 	struct fleet *fleet = NULL;
 	struct outf *of;
@@ -108,13 +86,9 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-report");
 	report_conf_default(&conf);
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":hn:o:v", longopts, NULL)) !=
-	    -1) {
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
 		case 'n':
 			conf.top = opt_long_arg("--top", optarg, 0, 1000000000);
 			break;
@@ -169,12 +143,9 @@ main(int argc, char *argv[])
 				cw_usage_error("--tz: \"%s\" is not an offset "
 				    "such as +01:00, -0500 or UTC", optarg);
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
+	optab_free(&op);
 	argc -= optind;
 	argv += optind;
 	if (argc == 0) {
@@ -193,8 +164,7 @@ main(int argc, char *argv[])
 		npacks = report_rank(rep);
 		of = outf_open(outpath);
 		if (report_write(rep, outf_fp(of)) != 0) {
-			cw_warn("%s: write error: %s", outpath != NULL ?
-			    outpath : "standard output", strerror(errno));
+			cw_write_error(outpath, errno);
 			outf_abort(of);
 			rc = CW_EXIT_DATA;
 		} else if (outf_commit(of) != 0)
