@@ -3,6 +3,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 #include <sys/stat.h>
 
 #include "clean.h"
@@ -10,6 +11,7 @@
 #include "devtab.h"
 #include "num.h"
 #include "resample.h"
+#include "sampin.h"
 #include "ts.h"
 
 const char *const clean_reason_name[CR_NREASON] = {
@@ -27,6 +29,15 @@ struct cdev {
 	int soc_known;
 	cw_time soc_t;
 	struct rs_state rs;
+	/*
+	 * --keep: the values of the pending rows, beside q (a slot of
+	 * kstride bytes each), and of the last two rows released, by the
+	 * parity of their key (the count of rows released): a grid point
+	 * takes the row it closes or the one before (resample.h).
+	 */
+	char *qk;
+	char *kv;
+	unsigned long nrel;
 };
 
 struct run {
@@ -54,6 +65,10 @@ struct run {
 	unsigned long scan_rows, agree, disagree;
 	int scan_by_v;		/* no SoC column: by voltage */
 	struct devtab *scan_devs;
+	/* --keep: this file's columns, the slot size, this row's values. */
+	int keepcol[CLEAN_KEEP_MAX];
+	size_t kstride;
+	char *krow;
 };
 
 /* A device's last row in the read-ahead. */
@@ -70,7 +85,10 @@ static int on_row(void *, const struct csvin_rec *);
 static int on_bad(void *, const struct csvin_rec *, const char *);
 static int on_blank(void *, const struct csvin_rec *);
 static int reject(struct run *, const struct csvin_rec *, int);
-static void release(struct run *, struct cdev *, const struct rs_point *);
+static void release(struct run *, struct cdev *, const struct rs_point *,
+    const char *);
+static int keep_header(struct run *, const struct csvin_rec *);
+static void keep_row(struct run *, const struct csvin_rec *);
 static void emit(void *, const struct rs_point *);
 static void drain(struct run *, struct cdev *, cw_time);
 
@@ -131,6 +149,110 @@ file_device(struct run *r, const char *path)
 	r->file_devlen = n;
 }
 
+int
+clean_keep_parse(struct clean_conf *c, const char *list, const char **err)
+{
+	static char buf[1024];
+	char *p, *next;
+	int j, k;
+
+	c->nkeep = 0;
+	if (strlen(list) >= sizeof(buf)) {
+		*err = "list too long";
+		return -1;
+	}
+	strcpy(buf, list);
+	for (p = buf; p != NULL; p = next) {
+		next = strchr(p, ',');
+		if (next != NULL)
+			*next++ = '\0';
+		if (*p == '\0') {
+			*err = "empty column name";
+			return -1;
+		}
+		for (k = 0; k < SAMP_EXTRA; k++)
+			if (strcmp(p, sampin_colname[k]) == 0) {
+				*err = "a column of the sample stream already";
+				return -1;
+			}
+		for (j = 0; j < c->nkeep; j++)
+			if (strcmp(p, c->keep[j]) == 0) {
+				*err = "a column named twice";
+				return -1;
+			}
+		if (c->nkeep == CLEAN_KEEP_MAX) {
+			*err = "at most 8 columns";
+			return -1;
+		}
+		c->keep[c->nkeep++] = p;
+	}
+	return 0;
+}
+
+/*
+ * The --keep columns in header H: by exact name, else ignoring case (as
+ * -c finds its headers).  A missing one is an error: a mistyped name
+ * would otherwise give a column of nothing.
+ */
+static int
+keep_header(struct run *r, const struct csvin_rec *h)
+{
+	int j;
+	size_t i;
+
+	for (j = 0; j < r->c->nkeep; j++) {
+		int col = csvin_find(h, r->c->keep[j]);
+
+		for (i = 0; col < 0 && i < h->nf; i++)
+			if (strcasecmp(h->f[i], r->c->keep[j]) == 0)
+				col = (int)i;
+		if (col < 0) {
+			char seen[512] = "";
+
+			for (i = 0; i < h->nf && strlen(seen) < 400; i++) {
+				if (i > 0)
+					strcat(seen, ", ");
+				strncat(seen, h->f[i], 60);
+			}
+			cw_warn_at(h->src, h->line, "no column '%s' for --keep; "
+			    "headers seen: %s", r->c->keep[j], seen);
+			return CW_EXIT_DATA;
+		}
+		r->keepcol[j] = col;
+	}
+	return 0;
+}
+
+/*
+ * This row's --keep values into r->krow, as read; a value too long for
+ * its slot is cut at a character boundary, the first one told.
+ */
+static void
+keep_row(struct run *r, const struct csvin_rec *rec)
+{
+	int j;
+
+	for (j = 0; j < r->c->nkeep; j++) {
+		unsigned char *slot = (unsigned char *)r->krow +
+		    (size_t)j * CLEAN_KEEP_LEN;
+		size_t n = rec->len[r->keepcol[j]];
+
+		if (n > CLEAN_KEEP_LEN - 1) {
+			n = CLEAN_KEEP_LEN - 1;
+			/* Not inside a UTF-8 sequence. */
+			while (n > 0 && ((unsigned char)rec->f[r->keepcol[j]][n]
+			    & 0xC0) == 0x80)
+				n--;
+			if (r->st->keep_cut++ == 0)
+				cw_warn_at(rec->src, rec->line, "--keep %s: value "
+				    "longer than %d bytes cut (further ones only "
+				    "counted)", r->c->keep[j], CLEAN_KEEP_LEN - 1);
+		}
+		slot[0] = (unsigned char)n;
+		memcpy(slot + 1, rec->f[r->keepcol[j]], n);
+	}
+}
+
 static int
 on_header(void *ctx, const struct csvin_rec *h)
 {
@@ -148,6 +270,8 @@ on_header(void *ctx, const struct csvin_rec *h)
 		r->scan_by_v = r->map.col[CM_SOC] < 0;
 		return 0;
 	}
+	if (keep_header(r, h) != 0)
+		return CW_EXIT_DATA;
 	/* This file's sign: the read-ahead's finding, found by name. */
 	r->negative = r->c->charge_sign == CLEAN_SIGN_NEGATIVE;
 	for (int j = r->nfile; j < r->nfsign; j++)
@@ -334,6 +458,9 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	p.i = x[CM_CURRENT];
 	p.temp = x[CM_TEMP];
 	p.soc = x[CM_SOC];
+	p.key = 0;
+	if (c->nkeep > 0)
+		keep_row(r, rec);
 
 	d = r->last;
 	if (d == NULL || d->e.namelen != namelen ||
@@ -344,6 +471,8 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		if (isnew) {
 			d->max_seen = d->last_out = INT64_MIN;
 			r->st->devices++;
+			if (c->nkeep > 0)
+				d->kv = cw_calloc(2, r->kstride);
 		}
 		r->last = d;
 	}
@@ -367,7 +496,7 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		return reject(r, rec, CR_DUPLICATE);
 	r->st->accepted++;
 	if (c->reorder == 0 && d->qh == d->qn) {
-		release(r, d, &p);
+		release(r, d, &p, r->krow);
 		d->max_seen = p.t;
 		return 0;
 	}
@@ -375,6 +504,9 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		if (d->qh > 0) {
 			memmove(d->q, d->q + d->qh, (d->qn - d->qh) *
 			    sizeof(*d->q));
+			if (r->kstride > 0)
+				memmove(d->qk, d->qk + d->qh * r->kstride,
+				    (d->qn - d->qh) * r->kstride);
 			d->qn -= d->qh;
 			lo -= d->qh;
 			d->qh = 0;
@@ -382,10 +514,17 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		if (d->qn == d->qcap) {
 			d->qcap = d->qcap ? 2 * d->qcap : 16;
 			d->q = cw_realloc(d->q, d->qcap * sizeof(*d->q));
+			if (r->kstride > 0)
+				d->qk = cw_realloc(d->qk, d->qcap * r->kstride);
 		}
 	}
 	memmove(d->q + lo + 1, d->q + lo, (d->qn - lo) * sizeof(*d->q));
 	d->q[lo] = p;
+	if (r->kstride > 0) {
+		memmove(d->qk + (lo + 1) * r->kstride, d->qk + lo * r->kstride,
+		    (d->qn - lo) * r->kstride);
+		memcpy(d->qk + lo * r->kstride, r->krow, r->kstride);
+	}
 	d->qn++;
 	if (p.t > d->max_seen)
 		d->max_seen = p.t;
@@ -398,9 +537,11 @@ static void
 drain(struct run *r, struct cdev *d, cw_time upto)
 {
 	while (d->qh < d->qn && d->q[d->qh].t <= upto) {
-		struct rs_point p = d->q[d->qh++];
+		struct rs_point p = d->q[d->qh];
 
-		release(r, d, &p);
+		release(r, d, &p, r->kstride > 0 ? d->qk + d->qh * r->kstride :
+		    NULL);
+		d->qh++;
 	}
 	if (d->qh == d->qn)
 		d->qh = d->qn = 0;
@@ -408,10 +549,15 @@ drain(struct run *r, struct cdev *d, cw_time upto)
 
 /* A row leaves the reorder window, in time order. */
 static void
-release(struct run *r, struct cdev *d, const struct rs_point *p0)
+release(struct run *r, struct cdev *d, const struct rs_point *p0,
+    const char *kv)
 {
 	const struct clean_conf *c = r->c;
 	struct rs_point p = *p0;
+
+	p.key = ++d->nrel;
+	if (r->kstride > 0)
+		memcpy(d->kv + (p.key & 1) * r->kstride, kv, r->kstride);
 
 	if (c->soc_ah > 0) {
 		if (d->soc_known) {
@@ -457,6 +603,13 @@ emit(void *ctx, const struct rs_point *p)
 	csvout_num(w, p->i);
 	csvout_num(w, p->temp);
 	csvout_num(w, p->soc);
+	if (r->kstride > 0) {
+		const char *kv = r->cur->kv + (p->key & 1) * r->kstride;
+		int j;
+
+		for (j = 0; j < r->c->nkeep; j++, kv += CLEAN_KEEP_LEN)
+			csvout_strn(w, kv + 1, (unsigned char)kv[0]);
+	}
 	csvout_endrow(w);
 	r->st->written++;
 }
@@ -643,7 +796,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	struct run r;
 	struct csvin *in;
 	size_t i;
-	int rc;
+	int rc, k;
 
 	memset(st, 0, sizeof(*st));
 	memset(&r, 0, sizeof(r));
@@ -655,7 +808,15 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	r.required = (1u << CM_TIME) | (1u << CM_VOLTAGE) | (1u << CM_CURRENT);
 	if (c->device == NULL && !c->device_from_file)
 		r.required |= 1u << CM_DEVICE;
-	csvout_header(out, "device,time,voltage_v,current_a,temp_c,soc_pct");
+	/* The stream's columns (sampin_colname[]), then the kept ones. */
+	for (k = 0; k < SAMP_EXTRA; k++)
+		csvout_str(out, sampin_colname[k]);
+	for (k = 0; k < c->nkeep; k++)
+		csvout_str(out, c->keep[k]);
+	csvout_endrow(out);
+	r.kstride = (size_t)c->nkeep * CLEAN_KEEP_LEN;
+	if (r.kstride > 0)
+		r.krow = cw_calloc(1, r.kstride);
 	if (rej != NULL)
 		csvout_header(rej, "source,line,reason,record");
 	r.negative = c->charge_sign == CLEAN_SIGN_NEGATIVE;
@@ -678,7 +839,12 @@ clean_run(const struct clean_conf *c, char **files, int n,
 			rs_flush(&d->rs, c->step, emit, &r);
 		}
 		free(d->q);
+		free(d->qk);
+		free(d->kv);
 	}
 	devtab_free(r.devs);
+	free(r.krow);
+	if (st->keep_cut > 1)
+		cw_warn("--keep: %lu values cut in all", st->keep_cut);
 	return rc;
 }

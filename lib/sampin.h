@@ -57,7 +57,11 @@ int	sampin_run(const struct sampin_conf *c, char **files, int n,
 	    struct sampin_stats *st);
 /* With -v: print the counts of ST to stderr. */
 void	sampin_report(const struct sampin_stats *st, const char *extra);
-/* The canonical column names, by enum sampin_col (EXTRA: NULL). */
+/*
+ * The sample stream's columns, by enum sampin_col (EXTRA: NULL): the one
+ * table of them.  cw-clean writes them in this order (lib/clean.c), colmap
+ * takes them as the canonical raw names, and every reader finds them here.
+ */
 extern const char *const sampin_colname[SAMP_NCOL];
 
 #endif
