@@ -666,6 +666,17 @@ synth_dev_site(const struct synth_dev *d, char buf[16])
 	synth_site_name(d->site, buf);
 }
 
+const char *
+synth_dev_home(const struct synth_dev *d, char buf[16])
+{
+	if (d->home == 0) {
+		synth_dev_site(d, buf);
+		return synth_dev_charger(d);
+	}
+	synth_site_name(d->home, buf);
+	return d->home == SITE_NOCUTOFF ? ch_nocutoff.name : ch_dock.name;
+}
+
 void
 synth_site_name(int site, char buf[16])
 {

@@ -366,6 +366,11 @@ void	synth_fleet_finish(struct synth_fleet *f);
 /* Names of the charger and site of D, for the truth. */
 const char *synth_dev_charger(const struct synth_dev *d);
 void	synth_dev_site(const struct synth_dev *d, char buf[16]);
+/*
+ * D's own site into BUF and the name of its charger: with --docks the
+ * home dock it hops from, else the same as the two above.
+ */
+const char *synth_dev_home(const struct synth_dev *d, char buf[16]);
 /* The name of site SITE (0: depot); "" for -1. */
 void	synth_site_name(int site, char buf[16]);
 

@@ -756,8 +756,7 @@ write_devices(struct run *r)
 
 		csvout_strn(w, d->name, d->namelen);
 		csvout_str(w, synth_profile_name[d->profile]);
-		csvout_str(w, synth_dev_charger(d));
-		synth_dev_site(d, site);
+		csvout_str(w, synth_dev_home(d, site));
 		csvout_str(w, site);
 		csvout_str(w, d->gauge_int ? "int" : "tenth");
 		csvout_fixed(w, p->cap0_ah, 4);
