@@ -65,6 +65,19 @@ struct run {
 	unsigned long scan_rows, agree, disagree;
 	int scan_by_v;		/* no SoC column: by voltage */
 	struct devtab *scan_devs;
+	/* Unit plausibility of this file (units_add(), units_check()). */
+	struct {
+		double v[CLEAN_UNIT_ROWS];	/* voltage, V as assumed */
+		double i[CLEAN_UNIT_ROWS];	/* |current|, A as assumed */
+		double iv[CLEAN_UNIT_ROWS];	/* its pack voltage */
+		double t[CLEAN_UNIT_ROWS];	/* temperature, C as assumed */
+		int nv, ni, nt, nint;	/* nint: whole-number currents */
+		int done;
+		char src[256];
+		char hdr[CM_NFIELD][64];	/* the columns' headers */
+		int unit[CM_NFIELD];		/* and their units */
+		int has_temp;
+	} u;
 	/* --keep: this file's columns, the slot size, this row's values. */
 	int keepcol[CLEAN_KEEP_MAX];
 	size_t kstride;
@@ -88,6 +101,10 @@ static int reject(struct run *, const struct csvin_rec *, int);
 static void release(struct run *, struct cdev *, const struct rs_point *,
     const char *);
 static int keep_header(struct run *, const struct csvin_rec *);
+static void units_add(struct run *, int, double);
+static void units_check(struct run *);
+static int cmp_dbl(const void *, const void *);
+static double pct(double *, int, double);
 static void keep_row(struct run *, const struct csvin_rec *);
 static void emit(void *, const struct rs_point *);
 static void drain(struct run *, struct cdev *, cw_time);
@@ -254,6 +271,153 @@ keep_row(struct run *r, const struct csvin_rec *rec)
 }
 
 static int
+cmp_dbl(const void *a, const void *b)
+{
+	double x = *(const double *)a, y = *(const double *)b;
+
+	return x < y ? -1 : x > y;
+}
+
+/* Percentile P (0..1) of the N values of V, sorted here. */
+static double
+pct(double *v, int n, double p)
+{
+	qsort(v, (size_t)n, sizeof(*v), cmp_dbl);
+	return v[(int)(p * (n - 1) + 0.5)];
+}
+
+/* A value of field F of this row, in the unit assumed, for the check. */
+static void
+units_add(struct run *r, int f, double x)
+{
+	switch (f) {
+	case CM_VOLTAGE:
+		if (r->u.nv < CLEAN_UNIT_ROWS)
+			r->u.v[r->u.nv++] = x;
+		break;
+	case CM_CURRENT:
+		/* Rests say nothing of the unit. */
+		if (r->u.ni < CLEAN_UNIT_ROWS && x != 0 && r->u.nv > 0) {
+			r->u.iv[r->u.ni] = r->u.v[r->u.nv - 1];
+			r->u.i[r->u.ni++] = fabs(x);
+			r->u.nint += x == floor(x);
+		}
+		break;
+	case CM_TEMP:
+		if (r->u.nt < CLEAN_UNIT_ROWS)
+			r->u.t[r->u.nt++] = x;
+		break;
+	}
+	if (r->u.nv == CLEAN_UNIT_ROWS && r->u.ni == CLEAN_UNIT_ROWS &&
+	    (r->u.nt == CLEAN_UNIT_ROWS || !r->u.has_temp))
+		units_check(r);
+}
+
+/*
+ * Tell when this file's values only make sense in another unit.  The
+ * thresholds (common practice, no source): a lithium-ion cell lies
+ * between 2.5 and 4.25 V, so a median above the voltage bound is a pack
+ * (whatever the unit) or, in volts as assumed, millivolts; a pack's current in amperes is rarely above 25 A per
+ * volt of the pack (an e-bike's 40 V, 20 A is 0.5; milliamperes of the
+ * same pack are 50 and more), nor, written in whole numbers of a median
+ * of 100 and more, above 1.5 (a gauge's own 100..250 mA of standby at
+ * 40 V are 2.5..6 as amperes); a pack's median temperature over the
+ * first rows is below 50 C, and 50..150 read as Celsius is Fahrenheit,
+ * 230..370 kelvin (or 0.1 C), 1500..4000 tenths of a kelvin.
+ */
+static void
+units_check(struct run *r)
+{
+	const struct clean_conf *c = r->c;
+	double med, lo, hi, vmed = 0, vscale = 1;
+	int k;
+
+	if (r->u.done || r->u.src[0] == '\0')
+		return;
+	r->u.done = 1;
+	if (r->u.nv >= CLEAN_UNIT_MIN) {
+		lo = pct(r->u.v, r->u.nv, 0.01);
+		hi = pct(r->u.v, r->u.nv, 0.99);
+		vmed = med = pct(r->u.v, r->u.nv, 0.5);
+		if (med > c->hi[CM_VOLTAGE] && med >= 1000 &&
+		    r->u.unit[CM_VOLTAGE] == CMU_V) {
+			vscale = 1000;
+			if (med <= 5000)
+				cw_warn("%s: voltage '%s' looks like millivolts "
+				    "(median %.6g over %d rows): give -c "
+				    "'voltage=%s:mV'", r->u.src,
+				    r->u.hdr[CM_VOLTAGE], med, r->u.nv,
+				    r->u.hdr[CM_VOLTAGE]);
+		}
+		if (med > c->hi[CM_VOLTAGE] && med / vscale > 5.0) {
+			int n1 = (int)ceil(hi / vscale / 4.25);
+			int n2 = (int)floor(lo / vscale / 2.5);
+			char cells[48], fix[128];
+
+			if (n2 > n1)
+				snprintf(cells, sizeof(cells), "%d to %d", n1,
+				    n2);
+			else
+				snprintf(cells, sizeof(cells), "%d", n1);
+			if (vscale > 1)
+				snprintf(fix, sizeof(fix), "-c 'voltage=%s:mV' "
+				    "and ", r->u.hdr[CM_VOLTAGE]);
+			else
+				fix[0] = '\0';
+			cw_warn("%s: voltage '%s' looks like %sa pack of %s "
+			    "cells in series (median %.6g, 1st to 99th "
+			    "percentile %.6g to %.6g over %d rows; a cell 2.5 "
+			    "to 4.25 V): give %s--cells N", r->u.src,
+			    r->u.hdr[CM_VOLTAGE], vscale > 1 ? "millivolts of " :
+			    "", cells, med, lo, hi, r->u.nv, fix);
+		}
+	}
+	if (r->u.ni >= CLEAN_UNIT_MIN && r->u.unit[CM_CURRENT] == CMU_A &&
+	    vmed > 0) {
+		double per_v, p90;
+
+		for (k = 0; k < r->u.ni; k++)
+			r->u.iv[k] = r->u.i[k] / (fabs(r->u.iv[k]) / vscale +
+			    1e-9);
+		per_v = pct(r->u.iv, r->u.ni, 0.5);
+		p90 = pct(r->u.i, r->u.ni, 0.9);
+		med = pct(r->u.i, r->u.ni, 0.5);
+		if (per_v > 25 || (r->u.nint >= 0.95 * r->u.ni && med >= 100 &&
+		    per_v > 1.5))
+			cw_warn("%s: current '%s' looks like milliamperes "
+			    "(median |I| %.6g, 90th percentile %.6g over %d "
+			    "rows, %.3g A per volt of the pack as amperes): "
+			    "give -c 'current=%s:mA'", r->u.src,
+			    r->u.hdr[CM_CURRENT], med, p90, r->u.ni, per_v,
+			    r->u.hdr[CM_CURRENT]);
+	}
+	if (r->u.nt >= CLEAN_UNIT_MIN && r->u.unit[CM_TEMP] == CMU_C) {
+		const char *what = NULL, *unit = NULL;
+
+		med = pct(r->u.t, r->u.nt, 0.5);
+		if (med >= 1500 && med <= 4000) {
+			what = "tenths of a kelvin";
+			unit = "dK";
+		} else if (med >= 230 && med <= 370) {
+			what = "kelvin (or tenths of a degree C: dC)";
+			unit = "K";
+		} else if (med > 150 && med < 700) {
+			what = "tenths of a degree C";
+			unit = "dC";
+		} else if (med > 50 && med <= 150) {
+			what = "degrees Fahrenheit";
+			unit = "F";
+		}
+		if (what != NULL)
+			cw_warn("%s: temperature '%s' looks like %s (median "
+			    "%.6g over %d rows, implausible for a pack in "
+			    "degrees C): give -c 'temp=%s:%s'", r->u.src,
+			    r->u.hdr[CM_TEMP], what, med, r->u.nt,
+			    r->u.hdr[CM_TEMP], unit);
+	}
+}
+
+static int
 on_header(void *ctx, const struct csvin_rec *h)
 {
 	struct run *r = ctx;
@@ -272,6 +436,21 @@ on_header(void *ctx, const struct csvin_rec *h)
 	}
 	if (keep_header(r, h) != 0)
 		return CW_EXIT_DATA;
+	/* The file before was judged on what it had; now this one. */
+	units_check(r);
+	memset(&r->u, 0, sizeof(r->u));
+	snprintf(r->u.src, sizeof(r->u.src), "%s", h->src);
+	{
+		int f;
+
+		for (f = 0; f < CM_NFIELD; f++) {
+			if (r->map.col[f] >= 0)
+				snprintf(r->u.hdr[f], sizeof(r->u.hdr[f]),
+				    "%s", h->f[r->map.col[f]]);
+			r->u.unit[f] = r->map.unit[f];
+		}
+		r->u.has_temp = r->map.col[CM_TEMP] >= 0;
+	}
 	/* This file's sign: the read-ahead's finding, found by name. */
 	r->negative = r->c->charge_sign == CLEAN_SIGN_NEGATIVE;
 	for (int j = r->nfile; j < r->nfsign; j++)
@@ -436,6 +615,10 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		return reject(r, rec, CR_MISSING);
 	if (field_time(r, rec, &p.t) < 0)
 		return reject(r, rec, CR_BADTIME);
+	/* The first rows' values for the unit check, in range or not. */
+	for (k = 0; !r->u.done && k < sizeof(fields) / sizeof(fields[0]); k++)
+		if (field_num(r, rec, fields[k], &x[fields[k]]) == 0)
+			units_add(r, fields[k], x[fields[k]]);
 	for (k = 0; k < sizeof(fields) / sizeof(fields[0]); k++) {
 		f = fields[k];
 		rc = field_num(r, rec, f, &x[f]);
@@ -826,6 +1009,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	in = csvin_new(c->delim, &ops, &r);
 	r.in = in;
 	rc = csvin_files(in, files, n);
+	units_check(&r);
 	free((void *)r.fsign);
 	st->header_repeats = csvin_stats(in)->header_repeats;
 	csvin_free(in);

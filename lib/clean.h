@@ -42,6 +42,17 @@ enum {
 #define CLEAN_SIGN_RATIO	4
 
 /*
+ * Unit plausibility: the first CLEAN_UNIT_ROWS values of voltage, current
+ * and temperature of each file, in the units assumed, are looked at as a
+ * whole (medians and percentiles, not single rows), and a warning tells
+ * when they only make sense in another unit (mA for A, F, K or 0.1 K for
+ * C, mV for V) or as a pack of cells in series, with the option that
+ * fixes it.  At least CLEAN_UNIT_MIN values are needed.
+ */
+#define CLEAN_UNIT_ROWS		2000
+#define CLEAN_UNIT_MIN		100
+
+/*
  * --keep: at most CLEAN_KEEP_MAX raw columns carried into the stream, each
  * value in a slot of CLEAN_KEEP_LEN bytes (a length byte, then at most
  * CLEAN_KEEP_LEN - 1 bytes of the value; a longer one is cut, with a
