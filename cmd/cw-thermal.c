@@ -75,6 +75,8 @@ static void	write_summary(struct tool *t, const struct dev *d);
 static struct byval *by_value(struct tool *t, struct dev *d,
 		    const struct cw_sample *s);
 static void	write_by_header(struct tool *t);
+static double	ah_total(const struct thermal_ah *a);
+static void	write_outside(struct tool *t, const struct thermal_ah *a);
 static void	write_by_summary(struct tool *t, const struct byval *v);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st, const char *by);
@@ -236,6 +238,31 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	csvout_endrow(&t->out);
 }
 
+/* All the charge of A, the part without a temperature included. */
+static double
+ah_total(const struct thermal_ah *a)
+{
+	double total = a->no_temp;
+	int z;
+
+	for (z = 0; z < THERMAL_NZONE; z++)
+		total += a->zone[z];
+	return total;
+}
+
+/* outside_pct: the share of A of known temperature outside T2..T3. */
+static void
+write_outside(struct tool *t, const struct thermal_ah *a)
+{
+	double known = ah_total(a) - a->no_temp;
+
+	if (known > 0)
+		csvout_num(&t->out, 100.0 * (known - a->zone[THERMAL_NORMAL]) /
+		    known);
+	else
+		csvout_empty(&t->out);
+}
+
 /* The header of the rows of --by: SPEC's columns first. */
 static void
 write_by_header(struct tool *t)
@@ -263,27 +290,19 @@ write_by_summary(struct tool *t, const struct byval *v)
 	static const int zones[] = { THERMAL_BELOW_MIN, THERMAL_COOL,
 	    THERMAL_WARM, THERMAL_ABOVE_MAX };
 	const unsigned long *ce = v->events[THERMAL_CHARGE];
-	double total = v->ah.no_temp, known;
 	size_t k;
 	int z;
 
-	for (z = 0; z < THERMAL_NZONE; z++)
-		total += v->ah.zone[z];
-	known = total - v->ah.no_temp;
 	csvout_strn(&t->out, v->e.name, v->e.namelen);
 	csvout_int(&t->out, (long long)v->devices);
 	for (k = 0; k < 4; k++)
 		csvout_int(&t->out, (long long)ce[zones[k]]);
 	for (k = 0; k < 4; k++)
 		csvout_num(&t->out, v->ah.zone[zones[k]]);
-	csvout_num(&t->out, total);
+	csvout_num(&t->out, ah_total(&v->ah));
 	csvout_num(&t->out, v->ah.zone[THERMAL_NORMAL]);
 	csvout_num(&t->out, v->ah.no_temp);
-	if (known > 0)
-		csvout_num(&t->out, 100.0 * (known -
-		    v->ah.zone[THERMAL_NORMAL]) / known);
-	else
-		csvout_empty(&t->out);
+	write_outside(t, &v->ah);
 	csvout_int(&t->out, (long long)v->events[THERMAL_USE]
 	    [THERMAL_BELOW_MIN]);
 	csvout_int(&t->out, (long long)v->events[THERMAL_USE]
@@ -299,24 +318,16 @@ write_summary(struct tool *t, const struct dev *d)
 	const struct thermal_dev *th = &d->th;
 	const unsigned long *ce = th->events[THERMAL_CHARGE];
 	const unsigned long *ue = th->events[THERMAL_USE];
-	double total = th->ah.no_temp, known;
 	int z;
 
-	for (z = 0; z < THERMAL_NZONE; z++)
-		total += th->ah.zone[z];
-	known = total - th->ah.no_temp;
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_time(&t->out, th->first);
 	csvout_time(&t->out, th->prev_t);
-	csvout_num(&t->out, total);
+	csvout_num(&t->out, ah_total(&th->ah));
 	for (z = 0; z < THERMAL_NZONE; z++)
 		csvout_num(&t->out, th->ah.zone[z]);
 	csvout_num(&t->out, th->ah.no_temp);
-	if (known > 0)
-		csvout_num(&t->out, 100.0 * (known -
-		    th->ah.zone[THERMAL_NORMAL]) / known);
-	else
-		csvout_empty(&t->out);
+	write_outside(t, &th->ah);
 	csvout_int(&t->out, (long long)(ce[THERMAL_BELOW_MIN] +
 	    ce[THERMAL_COOL] + ce[THERMAL_WARM] + ce[THERMAL_ABOVE_MAX]));
 	csvout_int(&t->out, (long long)ce[THERMAL_BELOW_MIN]);
