@@ -38,3 +38,6 @@ echo '== every truth charging event at a site where its pack was logged'
 gzip -dc docks/*.a.csv.gz | awk -F, 'FNR > 1 { print $2, $7 }' | sort -u >seen
 awk -F, 'NR > 1 { print $1, $13 }' docks/truth-charging.csv | sort -u >events
 echo "$(wc -l <events) pack and site pairs of events, not logged: $(comm -23 events seen | wc -l)"
+echo '== a sign that is not positive or negative'
+cw-synth --charge-sign auto -o bad
+echo "rc=$?"
