@@ -4,8 +4,8 @@
 #
 #   1. cw-synth simulates the fleet (24 packs, 28 winter days, one row per
 #      pack every 10 s) and writes its raw gauge logs (format a: epoch ms,
-#      mV, mA charge-negative, 0.1 K) and the truth it injected, into
-#      demo/in/;
+#      mV, mA charge-negative, 0.1 K, and the dock each pack sits at: packs
+#      hop between docks) and the truth it injected, into demo/in/;
 #   2. cw-clean turns the logs into one sample stream, demo/out/cw-clean.csv.gz,
 #      and keeps every line it rejected in demo/out/cw-clean-rejects.csv;
 #   3. every analysis tool reads that stream and writes demo/out/<tool>.csv;
@@ -15,6 +15,8 @@
 #   5. cw-report prints the packs that need attention, most urgent first
 #      (demo/out/report.txt; exit 3 of cw-report, "something to act on",
 #      is not a failure of the demo).
+#      Then cw-thermal --by dock --summary says which dock charges in
+#      the cold (demo/out/cold-docks.txt).
 #
 # demo/in and demo/out are emptied first and ignored by git.  Settings can
 # be changed from the environment: DEMO_DEVICES, DEMO_DAYS, DEMO_START
@@ -147,10 +149,11 @@ dwell_group() {
 }
 
 say "cw-synth: $devs packs, $days days from $start, seed $seed -> $in/"
-cw-synth -n "$devs" -d "$days" -S "$start" -s "$seed" -o "$in"
+cw-synth -n "$devs" -d "$days" -S "$start" -s "$seed" --docks -o "$in"
 
 # The operator's asset register, which a real fleet keeps anyway: each
-# pack's home site and the group of riders it serves.  Only the plots and
+# pack's home site (packs hop, so the dock column of the logs is where
+# one charged) and the group of riders it serves.  Only the plots and
 # the report read it; the tools never see the truth.
 awk -F, 'NR == 1 { print "device,site,group"; next }
     { print $1 "," $4 "," $2 }' "$in/truth-devices.csv" >"$in/fleet.csv"
@@ -159,11 +162,13 @@ awk -F, 'NR == 1 { print "device,site,group"; next }
 # as negative.  cw-clean's default --sentinel list rejects the gauges'
 # no-value codes (-32768, 65535) by their raw value; the current bound is
 # a plausibility bound: no real current of these packs comes near 30 A
-# (the depot charger gives 14 A).
+# (the depot charger gives 14 A).  --keep dock carries the dock column of
+# the logs into the stream, for cw-thermal --by dock.
 say "cw-clean: raw logs -> $out/cw-clean.csv.gz (rejects kept)"
 mkfifo "$tmp/stream"
 job compress "$tmp/stream" "$out/cw-clean.csv.gz"
 job cw-clean -v --charge-negative --cells 10 --bounds current=-30:30 \
+    --keep dock \
     --rejects "$out/cw-clean-rejects.csv" -o "$tmp/stream" \
     "$in"/*.a.csv.gz 2>"$out/cw-clean.log"
 waitall || { cat "$out/cw-clean.log" >&2; die "cw-clean failed"; }
@@ -184,6 +189,7 @@ job cw-rainflow -o "$out/cw-rainflow.csv" "$S"
 job cw-thermal -o "$out/cw-thermal.csv" "$S"
 job cw-thermal -s --capacity 14 --cells 10 \
     -o "$out/cw-thermal-summary.csv" "$S"
+job cw-thermal --by dock -s -o "$out/cw-thermal-docks.csv" "$S"
 job cw-topoff -s -o "$out/cw-topoff.csv" "$S"
 job cw-capacity -t --rated 14 -o "$out/cw-capacity-trend.csv" "$S"
 job cw-volt -s --cells 10 -o "$out/cw-volt-summary.csv" "$S"
@@ -236,4 +242,15 @@ cw-report --fleet "$in/fleet.csv" --tz +01:00 -o "$out/report.txt" \
     "$out/cw-volt-summary.csv" || rc=$?
 [ $rc -eq 0 ] || [ $rc -eq 3 ] || die "cw-report failed"
 cat "$out/report.txt"
+# Packs hop between docks, so the report's per-pack site cannot name the
+# charger: the summary per dock can (events_below_min and ah_below_min
+# found by name).
+awk -F, 'NR == 1 { for (k = 1; k <= NF; k++) c[$k] = k; next }
+    $c["events_below_min"] > 0 {
+	printf "%s%s: %d charge events below T1, %.2f Ah, %d packs there\n",
+	    n++ ? "" : "Docks that charged in the cold (cw-thermal --by dock):\n",
+	    ($1 == "" ? "(away)" : $1), $c["events_below_min"],
+	    $c["ah_below_min"], $c["devices"] }
+    END { if (!n) print "No dock charged below T1." }' \
+    "$out/cw-thermal-docks.csv" | tee "$out/cold-docks.txt"
 say "done in $(( $(date +%s) - t0 )) s; outputs in $out/"
