@@ -70,7 +70,7 @@ struct run {
 	unsigned long line;	/* number of the next line of the day files */
 	long day, slot, rpd;
 	char daystr[16];
-	struct tfile faults, charging, topoff;
+	struct tfile faults, charging, topoff, volt;
 	struct dayrec *days;
 	struct synth_rng hrng;	/* repeated headers */
 	struct synth_stats *st;
@@ -618,6 +618,11 @@ clean:
 
 /* Truth found by the simulation. */
 
+/* The verdicts of cw-thermal's charge protocol, by synth_cevent.protocol. */
+static const char *const protocol_name[4] = {
+	"within", "over-current", "over-voltage", "no-charge-allowed"
+};
+
 static void
 on_cevent(void *ctx, const struct synth_dev *d, const struct synth_cevent *e)
 {
@@ -639,6 +644,30 @@ on_cevent(void *ctx, const struct synth_dev *d, const struct synth_cevent *e)
 	csvout_str(w, synth_dev_charger(d));
 	synth_dev_site(d, site);
 	csvout_str(w, site);
+	csvout_fixed(w, e->i_max, 4);
+	csvout_fixed(w, e->v_max, 4);
+	csvout_str(w, protocol_name[e->protocol]);
+	csvout_endrow(w);
+}
+
+static void
+on_vevent(void *ctx, const struct synth_dev *d, const struct synth_vevent *e)
+{
+	static const char *const kind[3] = { "charge", "use", "rest" };
+	struct run *r = ctx;
+	struct csvout *w = &r->volt.w;
+
+	csvout_strn(w, d->name, d->namelen);
+	csvout_str(w, kind[e->kind]);
+	csvout_str(w, e->limit == 0 ? "over" : "under");
+	csvout_time(w, e->start);
+	csvout_time(w, e->end);
+	csvout_int(w, (long long)((e->end - e->start) / CW_US_PER_S));
+	csvout_fixed(w, e->vmin, 4);
+	csvout_fixed(w, e->vmax, 4);
+	csvout_fixed(w, e->ah, 4);
+	csvout_str(w, synth_incident_name[d->incident]);
+	csvout_str(w, synth_dev_charger(d));
 	csvout_endrow(w);
 }
 
@@ -802,6 +831,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	r.st = st;
 	h.cevent = on_cevent;
 	h.topoff = on_topoff;
+	h.vevent = on_vevent;
 	h.ctx = &r;
 	r.f = synth_fleet_new(c, &h);
 	r.rpd = synth_fleet_rows_per_day(r.f);
@@ -825,7 +855,10 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	    "day,line,device,time,fault,detail");
 	tf_open(&r, &r.charging, "truth-charging.csv", "device,kind,zone,"
 	    "start,end,duration_s,temp_min_c,temp_max_c,charge_ah,"
-	    "soc_start_pct,soc_end_pct,charger,site");
+	    "soc_start_pct,soc_end_pct,charger,site,i_max_a,v_cell_max,"
+	    "protocol");
+	tf_open(&r, &r.volt, "truth-volt.csv", "device,kind,limit,start,end,"
+	    "duration_s,v_cell_min,v_cell_max,charge_ah,incident,charger");
 	tf_open(&r, &r.topoff, "truth-topoff.csv",
 	    "device,start,restart,end,depth_pct,charge_ah,completed");
 	for (r.day = 0; r.day < c->ndays; r.day++) {
@@ -865,7 +898,8 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 		st->lines += r.line - 1;
 		if (csvout_flush(&r.faults.w) != 0 ||
 		    csvout_flush(&r.charging.w) != 0 ||
-		    csvout_flush(&r.topoff.w) != 0)
+		    csvout_flush(&r.topoff.w) != 0 ||
+		    csvout_flush(&r.volt.w) != 0)
 			cw_die(CW_EXIT_DATA, "%s: cannot write the truth files",
 			    c->outdir);
 	}
@@ -873,6 +907,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	tf_close(&r.faults);
 	tf_close(&r.charging);
 	tf_close(&r.topoff);
+	tf_close(&r.volt);
 	write_devices(&r);
 	write_days(&r);
 	write_run(&r);
