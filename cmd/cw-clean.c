@@ -14,7 +14,8 @@
 #include "ts.h"
 
 enum {
-	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_DECIMAL_COMMA,
+	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_CHARGE_SIGN,
+	OPT_DECIMAL_COMMA,
 	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_MAX_GAP, OPT_MAX_REJECT,
 	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SOC_FROM_CHARGE, OPT_STEP,
 	OPT_TZ,
@@ -25,6 +26,7 @@ static const struct option longopts[] = {
 	{ "bounds", required_argument, NULL, OPT_BOUNDS },
 	{ "cells", required_argument, NULL, OPT_CELLS },
 	{ "charge-negative", no_argument, NULL, OPT_CHARGE_NEGATIVE },
+	{ "charge-sign", required_argument, NULL, OPT_CHARGE_SIGN },
 	{ "columns", required_argument, NULL, 'c' },
 	{ "decimal-comma", no_argument, NULL, OPT_DECIMAL_COMMA },
 	{ "delimiter", required_argument, NULL, 'd' },
@@ -56,7 +58,8 @@ usage(FILE *fp, int status)
 {
 	fprintf(fp,
 "usage: cw-clean [-hv] [-c spec] [-d delim] [-o file] [--bounds field=lo:hi]\n"
-"                [--cells n] [--charge-negative] [--decimal-comma]\n"
+"                [--cells n] [--charge-negative] [--charge-sign sign]\n"
+"                [--decimal-comma]\n"
 "                [--device name | @file] [--full-voltage volts]\n"
 "                [--max-gap duration] [--max-reject fraction]\n"
 "                [--rejects file] [--reorder duration] [--sentinel list]\n"
@@ -77,6 +80,8 @@ usage(FILE *fp, int status)
 "      --device name       device name for logs without a device column;\n"
 "                          @file takes each file's base name\n"
 "      --charge-negative   the log counts charging current as negative\n"
+"      --charge-sign sign  auto, positive or negative: the sign of charging\n"
+"                          current in the log (default auto: per file)\n"
 "      --tz +hh:mm         offset of local times without a zone (default UTC)\n"
 "      --cells n           series cells per pack (voltage bounds 1.5..5.0 V per cell)\n"
 "      --bounds f=lo:hi    plausible range of voltage, current, temp or soc\n"
@@ -232,7 +237,18 @@ main(int argc, char *argv[])
 			cells = (double)opt_long_arg("--cells", optarg, 1, 1000);
 			break;
 		case OPT_CHARGE_NEGATIVE:
-			c.charge_negative = 1;
+			c.charge_sign = CLEAN_SIGN_NEGATIVE;
+			break;
+		case OPT_CHARGE_SIGN:
+			if (strcmp(optarg, "auto") == 0)
+				c.charge_sign = CLEAN_SIGN_AUTO;
+			else if (strcmp(optarg, "positive") == 0)
+				c.charge_sign = CLEAN_SIGN_POSITIVE;
+			else if (strcmp(optarg, "negative") == 0)
+				c.charge_sign = CLEAN_SIGN_NEGATIVE;
+			else
+				cw_usage_error("--charge-sign: '%s' is not "
+				    "auto, positive or negative", optarg);
 			break;
 		case OPT_DECIMAL_COMMA:
 			c.dec = ',';

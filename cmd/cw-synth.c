@@ -69,7 +69,7 @@ usage(FILE *fp, int status)
 "                      day), header (per file); 0 disables one\n"
 "      --mix w,w,w,w   weights of the profiles deep-depot, topup-dock,\n"
 "                      idle-dock, topup-nocutoff (default 3,3,3,1)\n"
-"      --aging x       multiply every resistance growth rate (default 1)\n"
+"      --aging x       multiply every growth and fade rate (default 1)\n"
 "      --incidents n   give n packs each of the four incidents: a fast\n"
 "                      charger without JEITA rules in the cold, one in a\n"
 "                      hot cabinet, a pack stored flat, a charger set to\n"
@@ -246,8 +246,8 @@ main(int argc, char *argv[])
 		cw_usage_error("--incidents %ld needs at least %ld devices",
 		    c.incidents, 4 * c.incidents);
 	outdir_prepare(c.outdir);
-	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 45)
-		cw_warn("late rows need a period of 45 s or less; none are "
+	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 60)
+		cw_warn("late rows need a period of 60 s or less; none are "
 		    "injected");
 	synth_write(&c, &st);
 	if (cw_verbose)

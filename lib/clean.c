@@ -1,7 +1,9 @@
 /* clean.c: see clean.h. */
+#include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
 
 #include "clean.h"
 #include "csvin.h"
@@ -42,7 +44,26 @@ struct run {
 	size_t file_devlen;
 	char file_devbuf[256];
 	struct cdev *cur;	/* for the emit callback */
+	int negative;		/* this file counts charging negative */
+	int nfile;		/* files whose header was read */
+	const signed char *fsign;	/* per named file: 1 negative, 0 not */
+	char **files;
+	int nfsign;
+	/* The read-ahead of --charge-sign auto (one file). */
+	int scan;
+	unsigned long scan_rows, agree, disagree;
+	int scan_by_v;		/* no SoC column: by voltage */
+	struct devtab *scan_devs;
 };
+
+/* A device's last row in the read-ahead. */
+struct scandev {
+	struct devent de;
+	double soc, v;
+	cw_time t;
+	int have;
+};
+#define SCAN_STOP	1000	/* a callback's "enough", not an error */
 
 static int on_header(void *, const struct csvin_rec *);
 static int on_row(void *, const struct csvin_rec *);
@@ -121,6 +142,20 @@ on_header(void *ctx, const struct csvin_rec *h)
 	r->dec = r->c->dec;
 	if (r->dec == '\0' && csvin_delim(r->in) == ',')
 		r->dec = '.';
+	if (r->c->device_from_file)
+		file_device(r, h->src);
+	if (r->scan) {
+		r->scan_by_v = r->map.col[CM_SOC] < 0;
+		return 0;
+	}
+	/* This file's sign: the read-ahead's finding, found by name. */
+	r->negative = r->c->charge_sign == CLEAN_SIGN_NEGATIVE;
+	for (int j = r->nfile; j < r->nfsign; j++)
+		if (strcmp(r->files[j], h->src) == 0) {
+			r->negative = r->fsign[j];
+			r->nfile = j + 1;
+			break;
+		}
 	if (cw_verbose) {
 		char buf[512];
 		size_t n = 0;
@@ -146,8 +181,6 @@ on_header(void *ctx, const struct csvin_rec *h)
 			    "'.' or ','");
 		cw_warn_at(h->src, h->line, "columns: %s", buf);
 	}
-	if (r->c->device_from_file)
-		file_device(r, h->src);
 	return 0;
 }
 
@@ -292,7 +325,7 @@ on_row(void *ctx, const struct csvin_rec *rec)
 			x[f] = CW_MISSING;
 			continue;
 		}
-		if (f == CM_CURRENT && c->charge_negative)
+		if (f == CM_CURRENT && r->negative)
 			x[f] = -x[f];
 		if (x[f] < c->lo[f] || x[f] > c->hi[f])
 			return reject(r, rec, CR_RANGE);
@@ -447,6 +480,160 @@ on_blank(void *ctx, const struct csvin_rec *rec)
 	return reject(r, rec, CR_EMPTY);
 }
 
+/*
+ * A row of the read-ahead: does its current agree in sign with the change
+ * of SoC (or voltage) since the device's previous row?  The current of a
+ * row holds over the interval that ends at it (charge.h), so it is set
+ * against the change over that interval.  Rests, rows apart by more than
+ * --max-gap, and changes too small to mean anything (no SoC step; under
+ * 2 mV a cell... taken as 5 mV here) give no evidence.
+ */
+static int
+scan_row(void *ctx, const struct csvin_rec *rec)
+{
+	struct run *r = ctx;
+	struct scandev *d;
+	double i, soc = CW_MISSING, v, dx;
+	cw_time t;
+	const char *name;
+	size_t namelen;
+	int k;
+
+	if (++r->scan_rows > CLEAN_SIGN_ROWS ||
+	    r->agree + r->disagree >= CLEAN_SIGN_ENOUGH)
+		return SCAN_STOP;
+	if (rec->nf != r->hdr_nf || field_time(r, rec, &t) < 0 ||
+	    field_num(r, rec, CM_CURRENT, &i) != 0 ||
+	    field_num(r, rec, CM_VOLTAGE, &v) != 0)
+		return 0;
+	if (!r->scan_by_v && field_num(r, rec, CM_SOC, &soc) != 0)
+		return 0;
+	if (r->c->device != NULL || r->c->device_from_file) {
+		name = r->c->device != NULL ? r->c->device : r->file_dev;
+		namelen = strlen(name);
+		if (r->c->device_from_file)
+			namelen = r->file_devlen;
+	} else {
+		k = r->map.col[CM_DEVICE];
+		name = rec->f[k];
+		namelen = rec->len[k];
+	}
+	d = devtab_get(r->scan_devs, name, namelen, NULL);
+	if (d->have && t > d->t && t - d->t <= r->c->max_gap &&
+	    fabs(i) >= 0.05) {
+		dx = r->scan_by_v ? v - d->v : soc - d->soc;
+		if (fabs(dx) >= (r->scan_by_v ? 0.005 : 1e-9)) {
+			if ((dx > 0) == (i > 0))
+				r->agree++;
+			else
+				r->disagree++;
+		}
+	}
+	d->have = 1;
+	d->t = t;
+	d->soc = soc;
+	d->v = v;
+	return 0;
+}
+
+static int
+scan_other(void *ctx, const struct csvin_rec *rec, const char *why)
+{
+	(void)ctx;
+	(void)rec;
+	(void)why;
+	return 0;
+}
+
+static int
+scan_blank(void *ctx, const struct csvin_rec *rec)
+{
+	(void)ctx;
+	(void)rec;
+	return 0;
+}
+
+/*
+ * --charge-sign: read each named file ahead and decide whether it counts
+ * charging negative; tell what was found.  Returns the decisions, one
+ * per file (1 negative), or NULL when nothing is read ahead.
+ */
+static signed char *
+scan_signs(const struct clean_conf *c, char **files, int n, unsigned req)
+{
+	static const struct csvin_ops ops = { on_header, scan_row,
+	    scan_other, scan_blank };
+	signed char *sg;
+	int k, rc, neg, decided;
+
+	if (n == 0)
+		return NULL;
+	sg = cw_calloc((size_t)n, 1);
+	for (k = 0; k < n; k++) {
+		struct run r;
+		struct stat sb;
+		const char *why;
+		unsigned long a, d;
+
+		neg = c->charge_sign == CLEAN_SIGN_NEGATIVE;
+		sg[k] = (signed char)neg;
+		/*
+		 * Only a regular file can be read twice: a pipe or FIFO
+		 * (standard input, <(zcat ...)) read ahead would lose its
+		 * rows to the main pass.
+		 */
+		if (strcmp(files[k], "-") == 0 || stat(files[k], &sb) != 0 ||
+		    !S_ISREG(sb.st_mode)) {
+			if (cw_verbose && c->charge_sign == CLEAN_SIGN_AUTO)
+				cw_warn("%s: not a regular file, not read "
+				    "ahead; charge sign taken as positive",
+				    files[k]);
+			continue;
+		}
+		memset(&r, 0, sizeof(r));
+		r.c = c;
+		r.scan = 1;
+		r.required = req;
+		r.scan_devs = devtab_new(sizeof(struct scandev));
+		r.in = csvin_new(c->delim, &ops, &r);
+		/* Errors are the main pass's to report; here they end it. */
+		cw_quiet = 1;
+		rc = csvin_file(r.in, files[k]);
+		cw_quiet = 0;
+		(void)rc;
+		csvin_free(r.in);
+		devtab_free(r.scan_devs);
+		a = r.agree;
+		d = r.disagree;
+		why = r.scan_by_v ? "voltage" : "SoC";
+		decided = 0;
+		if (d >= CLEAN_SIGN_MIN && d >= CLEAN_SIGN_RATIO * a)
+			decided = -1;	/* charging counted negative */
+		else if (a >= CLEAN_SIGN_MIN && a >= CLEAN_SIGN_RATIO * d)
+			decided = 1;
+		if (c->charge_sign == CLEAN_SIGN_AUTO) {
+			if (decided < 0) {
+				sg[k] = 1;
+				cw_warn("%s: charging current counted negative "
+				    "(%lu rows' current against the change of "
+				    "%s, %lu with it): turned", files[k], d, why,
+				    a);
+			} else if (cw_verbose)
+				cw_warn("%s: charge sign %s (%lu rows' current "
+				    "with the change of %s, %lu against)",
+				    files[k], decided ? "positive" :
+				    "undecided, taken as positive", a, why, d);
+		} else if ((decided < 0 && !neg) || (decided > 0 && neg))
+			cw_warn("%s: --charge-sign %s, but the data say %s "
+			    "(%lu rows' current as logged with the change of "
+			    "%s, %lu against): check the sign (--charge-sign "
+			    "auto decides it per file)", files[k],
+			    neg ? "negative" : "positive",
+			    neg ? "positive" : "negative", a, why, d);
+	}
+	return sg;
+}
+
 int
 clean_run(const struct clean_conf *c, char **files, int n,
     struct csvout *out, struct csvout *rej, struct clean_stats *st)
@@ -471,9 +658,14 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	csvout_header(out, "device,time,voltage_v,current_a,temp_c,soc_pct");
 	if (rej != NULL)
 		csvout_header(rej, "source,line,reason,record");
+	r.negative = c->charge_sign == CLEAN_SIGN_NEGATIVE;
+	r.fsign = scan_signs(c, files, n, r.required);
+	r.nfsign = r.fsign ? n : 0;
+	r.files = files;
 	in = csvin_new(c->delim, &ops, &r);
 	r.in = in;
 	rc = csvin_files(in, files, n);
+	free((void *)r.fsign);
 	st->header_repeats = csvin_stats(in)->header_repeats;
 	csvin_free(in);
 	/* What is still in the windows leaves now, device by device. */

@@ -21,11 +21,31 @@ enum clean_reason {
 
 extern const char *const clean_reason_name[CR_NREASON];
 
+/* --charge-sign: how the log counts charging current. */
+enum {
+	CLEAN_SIGN_AUTO,	/* decided per file from the data */
+	CLEAN_SIGN_POSITIVE,	/* as the sample stream: positive */
+	CLEAN_SIGN_NEGATIVE	/* turned */
+};
+
+/*
+ * --charge-sign auto reads up to CLEAN_SIGN_ROWS data rows of each named
+ * file ahead (a second open of the file; standard input is not read
+ * ahead) and counts the rows whose current agrees or disagrees in sign
+ * with the change of SoC since the device's previous row (of voltage,
+ * where the file has no SoC).  A sign is decided when one count is at
+ * least CLEAN_SIGN_MIN and CLEAN_SIGN_RATIO times the other.
+ */
+#define CLEAN_SIGN_ROWS		200000
+#define CLEAN_SIGN_ENOUGH	2000	/* evidence rows: stop reading ahead */
+#define CLEAN_SIGN_MIN		20
+#define CLEAN_SIGN_RATIO	4
+
 struct clean_conf {
 	struct colmap_spec spec;
 	const char *device;	/* --device NAME */
 	int device_from_file;	/* --device @file */
-	int charge_negative;
+	int charge_sign;	/* CLEAN_SIGN_, default auto */
 	char delim;		/* '\0': from each file's header */
 	char dec;		/* '\0': '.', or either mark when the
 				 * delimiter is not ',' */

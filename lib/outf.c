@@ -63,6 +63,7 @@ outf_open(const char *path)
 	struct outf *o;
 	const char *slash, *base;
 	struct stat st;
+	sigset_t omask;
 	int fd, i;
 
 	/* A slot whose file was committed can serve again. */
@@ -119,6 +120,16 @@ outf_open(const char *path)
 	if (snprintf(o->tmp, sizeof(o->tmp), "%.*s.%s.tmpXXXXXX",
 	    (int)(base - path), path, base) >= (int)sizeof(o->tmp))
 		cw_die(CW_EXIT_DATA, "%s: path too long", path);
+	/*
+	 * No signal between making the temporary and counting its slot: the
+	 * handler removes only the temporaries of counted slots.
+	 */
+	{
+		sigset_t all;
+
+		sigfillset(&all);
+		sigprocmask(SIG_BLOCK, &all, &omask);
+	}
 	fd = mkstemp(o->tmp);
 	if (fd < 0)
 		cw_die(CW_EXIT_DATA, "%s: cannot create a temporary file: %s",
@@ -133,6 +144,7 @@ outf_open(const char *path)
 	o->path = cw_strdup(path);
 	if (o == &slots[nslots])
 		nslots++;
+	sigprocmask(SIG_SETMASK, &omask, NULL);
 	o->fp = fdopen(fd, "w");
 	if (o->fp == NULL)
 		cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));

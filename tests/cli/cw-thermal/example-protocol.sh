@@ -6,4 +6,5 @@
 # is in the hysteresis band and not judged), 4.01 V a cell, within
 # 4.10 + 0.02 V.  The
 # use event of EB-0042 has no protocol.
+# source: hand
 cw-thermal --fleet testdata/thermal-register.csv testdata/thermal-fleet.csv

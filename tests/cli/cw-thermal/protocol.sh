@@ -22,6 +22,7 @@
 # window by less than the 0.5 C hysteresis, so still in the event) at
 # 42.0 V and 14 A: normal-zone rows, where 4.20 V and 1 C are allowed,
 # so they count for neither maximum: 2 A, 4.10 V, within.
+# source: hand
 f=$TMPDIR_CASE/p.csv
 echo device,time,voltage_v,current_a,temp_c >"$f"
 row() {	# device I T V

@@ -1,4 +1,5 @@
 # Usage errors exit 2 with a message; -h and --version exit 0.
+# source: spec
 cw-thermal -h; echo "rc=$?"
 cw-thermal --version >/dev/null; echo "rc=$?"
 cw-thermal --limits 10,0,45,60 </dev/null; echo "rc=$?"

@@ -1,4 +1,5 @@
 # Bad input (SPEC.md exit codes: 1 data error, 2 usage error).
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 # No voltage_v, no current_a: exit 1, named in the message.
 printf 'device,time,current_a\nA,0,0\n' >nov.csv

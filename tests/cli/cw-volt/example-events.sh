@@ -12,4 +12,5 @@
 # rest) at 2.46..2.51 V (< 2.52, still under) to the end, 05:12:
 # -0.02 A * 420 s = -0.0023333 Ah.  TERM-12 stays at 3.95..4.10 V per
 # cell: no event (it would be all under with --cells 10).
+# source: hand (the manual's examples over hand-made testdata; the derivation in the comments)
 cw-volt --fleet testdata/volt-register.csv testdata/volt-fleet.csv

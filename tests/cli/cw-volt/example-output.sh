@@ -6,6 +6,7 @@
 # which (120 s) is then dropped as short.  -o is atomic: on a data error
 # (a missing file after a good one) the old contents stay and no
 # temporary is left.
+# source: hand (the manual's examples over hand-made testdata; the derivation in the comments)
 cd "$TMPDIR_CASE" || exit 1
 top=$OLDPWD
 cw-volt --min-duration 5m --fleet "$top/testdata/volt-register.csv" \

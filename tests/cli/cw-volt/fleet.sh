@@ -3,6 +3,7 @@
 # not in the logs is no error.  Every pack reads 42.6 V at rest for 60 s
 # (rows at 0, 30, 60 s): 10 cells give 4.26 V (over, 0..60 s), 12 cells
 # 3.55 V (no event), 1 cell 42.6 V (over).
+# source: hand
 f=$TMPDIR_CASE/p.csv
 echo device,time,voltage_v,current_a >"$f"
 for d in TEN TWELVE NOTLISTED EMPTY; do

@@ -7,6 +7,7 @@
 # Then a row without voltage at 1560 s: it ends the event (1500 s), is
 # counted as unjudged, and the event after it starts at that row's time
 # (the interval before the next row): 1560..1680 s.
+# source: hand
 f=$TMPDIR_CASE/g.csv
 cat >"$f" <<'ROWS'
 device,time,voltage_v,current_a,soc_pct

@@ -1,6 +1,7 @@
 # Constructed streams, checked by hand (a row's current stands for the
 # interval ending at it, so an event starts at the row before its first
 # row beyond a limit and ends at its last row; 1 Ah = 1 A for 3600 s).
+# source: hand
 f=$TMPDIR_CASE/a.csv
 # P1, one cell, 10 s rows: 4.20, 4.24, 4.24, 4.26 at 30 s (over), 4.31,
 # 4.27, 4.235 at 60 s (inside by less than the 0.02 V hysteresis: still

@@ -6,6 +6,7 @@
 # interval before it), but for the first row of the device, which stands
 # for its own instant (0 s): with --min-duration 10s six are kept (the
 # rows at 20, 40, ..., 120 s), with the default 30 s none.
+# source: hand
 f=$TMPDIR_CASE/n.csv
 echo device,time,voltage_v,current_a >"$f"
 s=0; while [ $s -le 12 ]; do

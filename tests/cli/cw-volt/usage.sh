@@ -1,4 +1,5 @@
 # Usage errors exit 2 with a message; -h and --version exit 0.
+# source: spec
 cw-volt -h >/dev/null; echo "rc=$?"
 cw-volt --version >/dev/null; echo "rc=$?"
 cw-volt --max 2.5 </dev/null; echo "rc=$?"

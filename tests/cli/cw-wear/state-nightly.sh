@@ -2,6 +2,8 @@
 # give, byte for byte, the report of one run over both (cycles and the
 # interval across midnight counted once); the same day fed again is
 # skipped with a warning and changes nothing.
+# source: snapshot: the report is example-report.sh's (pinned there); what
+#   this case checks is that night by night gives it byte for byte
 f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
 awk -F, 'NR == 1 || $2 < "2026-03-03"' "$f" >"$d/day1.csv"
