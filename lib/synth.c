@@ -731,6 +731,8 @@ synth_fleet_rows_per_day(const struct synth_fleet *f)
 const char *
 synth_dev_charger(const struct synth_dev *d)
 {
+	if (d->incident == SYNTH_I_STORED_FLAT)
+		return "none";		/* in storage, never charged */
 	return d->profile == SYNTH_DEEP ? d->depot->name : d->dock->name;
 }
 
