@@ -24,8 +24,8 @@
 #    boundary event when its extreme reading is within 2 mV of the limit;
 #    none may be other than that;
 #  - cw-volt --summary: per pack as many over and under events as the
-#    truth, plus its boundary events; the extreme cell voltage of a pack with events within 2.5 mV
-#    of the truth's (the extreme of 10^5 noisy readings of a plateau is
+#    truth, plus its boundary events; the extreme cell voltage of a pack
+#    with events within 2.5 mV of the truth's (the extreme of 10^5 noisy readings of a plateau is
 #    up to some 4.5 sigma, 1.8 mV, off); a pack without events never read
 #    beyond a limit by more than 2 mV; ah_charged_over within 1 % plus
 #    0.04 Ah per event (one 10 s sample of the 14 A depot charger) of the
@@ -44,11 +44,12 @@
 #    reached by at most 0.5 K (4.5 sigma plus the 0.05 K offset, as in
 #    synth_truth_thermal.sh), or i_max_a above the reduced current plus
 #    its 5 % margin by at most 0.05 A (6 sigma), or v_cell_max above the
-#    reduced voltage plus its 0.02 V by at most 2.5 mV; none may be other than that, and
-#    boundary events are at most 15 % of the tool's events outside the
+#    reduced voltage plus its 0.02 V by at most 2.5 mV; none may be other
+#    than that, and boundary events are at most 15 % of the tool's events outside the
 #    protocol (a bound chosen here, common practice, no source: the
 #    summer week's dock chargers charging at 4.20 V at a true 44.9 C,
-#    read as 45.1 C, give about 9 %);
+#    read as 45.1 C, give about 9 %; the verdict is then judged on the
+#    reading, which is all the tool has);
 #  - cw-thermal --summary: its counts per verdict are those of its events.
 # The reduced current and voltage are cw-thermal(1)'s defaults (0.5 C of
 # the 14 Ah, 4.10 V per cell), from memory of the JEITA guideline; the
