@@ -25,11 +25,12 @@
 #    none may be other than that;
 #  - cw-volt --summary: per pack as many over and under events as the
 #    truth, plus its boundary events; the extreme cell voltage of a pack
-#    with events within 2.5 mV of the truth's (the extreme of 10^5 noisy readings of a plateau is
-#    up to some 4.5 sigma, 1.8 mV, off); a pack without events never read
-#    beyond a limit by more than 2 mV; ah_charged_over within 1 % plus
-#    0.04 Ah per event (one 10 s sample of the 14 A depot charger) of the
-#    truth's charge of its over-charge events;
+#    with events within 2.5 mV of the truth's (the extreme of 10^5 noisy
+#    readings of a plateau is up to some 4.5 sigma, 1.8 mV, off); a pack
+#    without events never read beyond a limit by more than 2 mV;
+#    ah_charged_over within 1 % plus 0.04 Ah per event (one 10 s sample
+#    of the 14 A depot charger) of the truth's charge of its over-charge
+#    events;
 #  - cw-thermal, recall: every truth charge event outside the protocol
 #    (over-current in the cool zone, over-voltage in the warm zone,
 #    no-charge-allowed below T1 or above T4) overlaps a tool charge event
@@ -45,8 +46,8 @@
 #    synth_truth_thermal.sh), or i_max_a above the reduced current plus
 #    its 5 % margin by at most 0.05 A (6 sigma), or v_cell_max above the
 #    reduced voltage plus its 0.02 V by at most 2.5 mV; none may be other
-#    than that, and boundary events are at most 15 % of the tool's events outside the
-#    protocol (a bound chosen here, common practice, no source: the
+#    than that, and boundary events are at most 15 % of the tool's events
+#    outside the protocol (a bound chosen here, common practice, no source: the
 #    summer week's dock chargers charging at 4.20 V at a true 44.9 C,
 #    read as 45.1 C, give about 9 %; the verdict is then judged on the
 #    reading, which is all the tool has);
