@@ -21,6 +21,12 @@
 #   3. the rest, shortest time to end of life (cw-wear's days_to_eol)
 #      first.
 #
+# Packs charged cool (T1..T2) or warm (T3..T4) are named after the list,
+# counting only events outside the charge protocol (cw-thermal's protocol
+# column: above the reduced current cool, above the reduced voltage warm,
+# or unknown) when the events carry it; the JEITA scheme allows charging
+# there within it.
+#
 # The ranking and the 5 % per 30 days are this script's choices (common
 # practice, no source).  It advises; it is not a safety system.
 set -eu
@@ -107,6 +113,9 @@ FNR == 1 {
 		ckind = need("kind", FILENAME); czone = need("zone", FILENAME)
 		cdur = need("duration_s", FILENAME)
 		cah = need("charge_ah", FILENAME)
+		# The protocol verdict (a newer cw-thermal): only charging
+		# outside it counts in the cool and warm zones.
+		cproto = ("protocol" in col) ? col["protocol"] : 0
 		wear = 0
 	}
 	next
@@ -127,7 +136,8 @@ $ckind == "charge" {
 	if (z == "below-min" || z == "above-max") {
 		nx[$1 SUBSEP z]++; sx[$1 SUBSEP z] += $cdur
 		ax[$1 SUBSEP z] += $cah; sx[$1] += $cdur
-	} else {
+	} else if (!cproto || $cproto != "within") {
+		unj[z] += cproto && $cproto == "unknown"
 		nsoft[$1 SUBSEP z]++
 		soft[z] = soft[z] (index(soft[z] " ", " " $1 " ") ? "" : " " $1)
 	}
@@ -198,16 +208,19 @@ END {
 			printf "    %.0f top-off micro-cycles a day (rides " \
 			    "not counted)\n", mcd[d]
 	}
+	for (z in unj)
+		pword[z] = !cproto ? "" : unj[z] ? "not within the charge " \
+		    "protocol " : "outside the charge protocol "
 	nc = split(soft["cool"], f, " ")
 	nw = split(soft["warm"], f, " ")
 	if (nc + nw > 0)
 		printf "\n"
 	if (nc > 0)
 		printf "Also: %d packs charged cool (T1 to T2) " \
-		    "at times; see cw-thermal.csv.\n", nc
+		    "%sat times; see cw-thermal.csv.\n", nc, pword["cool"]
 	if (nw > 0)
 		printf "Also: %d packs charged warm (T3 to T4) " \
-		    "at times; see cw-thermal.csv.\n", nw
+		    "%sat times; see cw-thermal.csv.\n", nw, pword["warm"]
 	printf "\nThe tools advise; they are not a safety system.  A pack " \
 	    "charged below\nfreezing may have plated lithium: take it out " \
 	    "of service as its maker\nand the local rules direct, and check " \

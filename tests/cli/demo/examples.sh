@@ -22,7 +22,8 @@ awk -F, 'NR == 1 { print "device,site,group"; next }
     { print $1 "," $4 "," $2 }' in/truth-devices.csv >fleet.csv
 cw-wear -o wear.csv log.csv || exit 1
 cw-wear --cycle-life 500 -o out/cw-wear.csv log.csv || exit 1
-cw-thermal -o out/cw-thermal.csv log.csv || exit 1
+cw-thermal --capacity 14 --cells 10 -o out/cw-thermal.csv log.csv ||
+    exit 1
 
 echo "== plot-fade.gp"
 (head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k18,18gr |
