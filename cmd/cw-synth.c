@@ -14,8 +14,8 @@
 #include "ts.h"
 
 enum {
-	OPT_AGING = 256, OPT_CHARGE_SIGN, OPT_DOCKS, OPT_MIX, OPT_TZ,
-	OPT_VERSION
+	OPT_AGING = 256, OPT_CHARGE_SIGN, OPT_DOCKS, OPT_INCIDENTS, OPT_MIX,
+	OPT_TZ, OPT_VERSION
 };
 
 static const struct option longopts[] = {
@@ -28,6 +28,7 @@ static const struct option longopts[] = {
 	{ "format", required_argument, NULL, 'f' },
 	{ "help", no_argument, NULL, 'h' },
 	{ "level", required_argument, NULL, 'z' },
+	{ "incidents", required_argument, NULL, OPT_INCIDENTS },
 	{ "mix", required_argument, NULL, OPT_MIX },
 	{ "outdir", required_argument, NULL, 'o' },
 	{ "period", required_argument, NULL, 'p' },
@@ -53,6 +54,7 @@ usage(FILE *fp, int status)
 "usage: cw-synth [-hv] [-d days] [-F faults] [-f format] [-n devices]\n"
 "                [-o dir] [-p period] [-S date] [-s seed] [-z level]\n"
 "                [--aging factor] [--charge-sign sign] [--docks]\n"
+"                [--incidents n]\n"
 "                [--mix deep,topup,idle,nocutoff] [--tz +hh:mm]\n"
 "\n"
 "Simulate an invented bike-share fleet of 10-cell 14 Ah e-bike packs and\n"
@@ -81,6 +83,10 @@ usage(FILE *fp, int status)
 "      --mix w,w,w,w   weights of the profiles deep-depot, topup-dock,\n"
 "                      idle-dock, topup-nocutoff (default 3,3,3,1)\n"
 "      --aging x       multiply every growth and fade rate (default 1)\n"
+"      --incidents n   give n packs each of the four incidents: a fast\n"
+"                      charger without JEITA rules in the cold, one in a\n"
+"                      hot cabinet, a pack stored flat, a charger set to\n"
+"                      4.30 V per cell (default 0)\n"
 "  -o, --outdir dir    write the files there (default .; made if missing)\n"
 "  -z, --level n       gzip level 0..9 (default 1)\n"
 "  -v, --verbose       print what was written to stderr\n"
@@ -228,6 +234,10 @@ main(int argc, char *argv[])
 		case OPT_DOCKS:
 			c.docks = 1;
 			break;
+		case OPT_INCIDENTS:
+			c.incidents = opt_long_arg("--incidents", optarg, 0,
+			    250000);
+			break;
 		case OPT_MIX:
 			opt_list_arg("--mix", optarg, c.mix, SYNTH_NPROFILE, 0,
 			    0);
@@ -257,6 +267,9 @@ main(int argc, char *argv[])
 	}
 	if (optind < argc)
 		cw_usage_error("unexpected argument '%s'", argv[optind]);
+	if (4 * c.incidents > c.ndev)
+		cw_usage_error("--incidents %ld needs at least %ld devices",
+		    c.incidents, 4 * c.incidents);
 	outdir_prepare(c.outdir);
 	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 60)
 		cw_warn("late rows need a period of 60 s or less; none are "

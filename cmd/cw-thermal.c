@@ -103,7 +103,7 @@ usage(FILE *fp)
 "      --by COL              a stream column (a dock, charger or site that\n"
 "                            cw-clean --keep carried): its value at each\n"
 "                            event's start ends the event row, and\n"
-"                            --summary is one row per value (default none)\n"
+"                            --summary is one row per value\n"
 "      --capacity AH         rated capacity, for the cool-zone current\n"
 "                            (unset: unknown)\n"
 "      --cells N             cells in series, for the warm-zone voltage\n"

@@ -29,6 +29,11 @@
 #define EV_MIN_A 0.05
 #define EV_MIN_DUR (60 * CW_US_PER_S)
 #define EV_MERGE (120 * CW_US_PER_S)
+/* The protocol's: cw-thermal(1)'s defaults, margins included. */
+#define EV_COOL_A (0.5 * SYNTH_CAP_AH * 1.05)
+#define EV_WARM_V (4.10 + 0.02)
+/* cw-volt's minimum duration. */
+#define VEV_MIN_DUR (30 * CW_US_PER_S)
 
 const char *const synth_profile_name[SYNTH_NPROFILE] = {
 	"deep-depot", "topup-dock", "idle-dock", "topup-nocutoff"
@@ -47,6 +52,23 @@ static const struct synth_charger ch_dock = {
 };
 static const struct synth_charger ch_nocutoff = {
 	"dock-nocutoff", 5.0, SYNTH_VMAX, 0.7, 41.4, 0, -273.15, 0.0
+};
+/* The chargers of the incidents (synth.h, enum synth_incident). */
+static const struct synth_charger ch_coldfast = {
+	"dock-fast-nojeita", 10.0, SYNTH_VMAX, 0.7, 41.4, 0, -273.15, 0.0
+};
+static const struct synth_charger ch_cabinet = {
+	"dock-cabinet-nojeita", 2.8, SYNTH_VMAX, 0.7, 41.4, 0, -273.15, 0.0
+};
+static const struct synth_charger ch_depot430 = {
+	"depot-4v30", 14.0, SYNTH_CELLS * 4.30, 0.7, 0.0, 1, 10.0, 0.0
+};
+#define CABINET_C 50.0		/* the failed cabinet's air, C */
+#define FLAT_SOC (-0.06)	/* the stored pack's SoC at the start */
+#define FLAT_DRAIN 0.02		/* its standby drain, A */
+
+const char *const synth_incident_name[SYNTH_NINCIDENT] = {
+	"", "cold-fast-charger", "hot-cabinet", "stored-flat", "overcharge"
 };
 
 /* How much sun reaches a docked pack, by site (0: the indoor depot). */
@@ -83,6 +105,10 @@ static void dev_env(const struct synth_fleet *, const struct synth_dev *,
 static void enter(struct synth_fleet *, struct synth_dev *, int, cw_time);
 static void mc_end(struct synth_fleet *, struct synth_dev *, cw_time, int);
 static void ev_close(struct synth_fleet *, struct synth_dev *);
+static void vev_close(struct synth_fleet *, struct synth_dev *);
+static void vev_track(struct synth_fleet *, struct synth_dev *, cw_time,
+	    cw_time, double, double);
+static void incident_set(struct synth_dev *, int);
 static int zone_of(double);
 static void dock_hop(struct synth_fleet *, struct synth_dev *);
 static int cmp_phase(const void *, const void *);
@@ -176,8 +202,17 @@ synth_ocv_cell(double soc)
 {
 	double s = soc < -0.05 ? -0.05 : soc > 1.05 ? 1.05 : soc;
 	double s2 = s * s, s4 = s2 * s2;
+	double u = 3.25 + 0.85 * s - 0.25 * exp(-15.0 * s) + 0.10 * s4 * s4;
 
-	return 3.25 + 0.85 * s - 0.25 * exp(-15.0 * s) + 0.10 * s4 * s4;
+	/*
+	 * Over-discharged (only a pack whose drain bypasses the cut-off
+	 * gets there): the voltage falls on along the slope at -5 %, to
+	 * 2.06 V at -12 %, and stays there.
+	 */
+	if (soc < -0.05)
+		u += synth_docv_cell(-0.05) * ((soc < -0.12 ? -0.12 : soc) +
+		    0.05);
+	return u;
 }
 
 double
@@ -373,6 +408,10 @@ plan_day(struct synth_dev *d)
 
 	d->nseg = 0;
 	d->cur = 0;
+	if (d->incident == SYNTH_I_STORED_FLAT) {
+		add_seg(d, 0, SYNTH_PARKED, 0);	/* in storage */
+		return;
+	}
 	switch (d->profile) {
 	case SYNTH_DEEP:
 		add_seg(d, 0, SYNTH_AT_DEPOT, 0);
@@ -473,6 +512,10 @@ dev_env(const struct synth_fleet *f, const struct synth_dev *d,
 		e->gain_w = SUN_DOCK_W * f->sun * site_sun[d->site];
 		if (d->heat_on)
 			e->gain_w += d->dock->heater_w;
+		if (d->incident == SYNTH_I_HOT_CABINET) {
+			e->amb_c = CABINET_C;
+			e->gain_w = 0;
+		}
 		break;
 	case SYNTH_PARKED:
 		e->amb_c = f->amb;
@@ -616,12 +659,44 @@ synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
 			d->site = 1 + (int)(ndock++ % 6);
 		d->dock = d->profile == SYNTH_NOCUTOFF ? &ch_nocutoff :
 		    &ch_dock;
+		d->depot = &ch_depot;
 		d->r_start25 = synth_pack_rstep25(&d->pack,
 		    (double)c->period_s);
 		f->order[i] = d;
 	}
+	/* The incidents, in the last devices, one kind after the other. */
+	for (k = 0; k < 4 * c->incidents && k < f->ndev; k++)
+		incident_set(&f->devs[f->ndev - 1 - k],
+		    SYNTH_I_COLD_FAST + (int)(k % 4));
 	qsort(f->order, (size_t)f->ndev, sizeof(*f->order), cmp_phase);
 	return f;
+}
+
+/* Give D incident KIND: its charger, profile and drain. */
+static void
+incident_set(struct synth_dev *d, int kind)
+{
+	d->incident = kind;
+	switch (kind) {
+	case SYNTH_I_COLD_FAST:
+	case SYNTH_I_HOT_CABINET:
+		if (d->profile != SYNTH_TOPUP) {
+			d->profile = SYNTH_TOPUP;
+			d->site = 1 + (int)(d->idx % 6);
+		}
+		d->dock = kind == SYNTH_I_COLD_FAST ? &ch_coldfast :
+		    &ch_cabinet;
+		break;
+	case SYNTH_I_STORED_FLAT:
+		d->pack.soc = FLAT_SOC;
+		d->i_park = FLAT_DRAIN;
+		break;
+	case SYNTH_I_OVERCHARGE:
+		d->profile = SYNTH_DEEP;
+		d->site = 0;
+		d->depot = &ch_depot430;
+		break;
+	}
 }
 
 void
@@ -657,7 +732,9 @@ synth_fleet_rows_per_day(const struct synth_fleet *f)
 const char *
 synth_dev_charger(const struct synth_dev *d)
 {
-	return d->profile == SYNTH_DEEP ? ch_depot.name : d->dock->name;
+	if (d->incident == SYNTH_I_STORED_FLAT)
+		return "none";		/* in storage, never charged */
+	return d->profile == SYNTH_DEEP ? d->depot->name : d->dock->name;
 }
 
 void
@@ -819,9 +896,17 @@ zone_of(double t)
 static void
 ev_close(struct synth_fleet *f, struct synth_dev *d)
 {
+	struct synth_cevent *e = &d->ev;
+
 	d->ev_on = 0;
-	if (d->ev.end - d->ev.start < EV_MIN_DUR)
+	if (e->end - e->start < EV_MIN_DUR)
 		return;
+	if (e->zone == 0 || e->zone == 4)
+		e->protocol = 3;
+	else if (e->zone == 1)
+		e->protocol = e->i_max > EV_COOL_A ? 1 : 0;
+	else
+		e->protocol = e->v_max > EV_WARM_V ? 2 : 0;
 	d->tr.cevents++;
 	if (f->h.cevent != NULL)
 		f->h.cevent(f->h.ctx, d, &d->ev);
@@ -883,14 +968,15 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 			i = -d->i_park;
 			break;
 		default:
-			ch = d->loc == SYNTH_AT_DEPOT ? &ch_depot : d->dock;
+			ch = d->loc == SYNTH_AT_DEPOT ? d->depot : d->dock;
 			i = synth_charger_current(ch, p, &d->ch_state,
 			    d->loc == SYNTH_AT_DEPOT ? d->i_park : d->i_dock,
 			    h, &ev);
 			break;
 		}
-		/* The cut-off: no discharge below the minimum voltage. */
-		if (i < 0) {
+		/* The cut-off: no discharge below the minimum voltage (but
+		 * for a stored pack whose drain bypasses it). */
+		if (i < 0 && d->incident != SYNTH_I_STORED_FLAT) {
 			lim = synth_pack_current_for(p, SYNTH_VMIN, h);
 			if (i < lim) {
 				i = lim < 0 ? lim : 0.0;
@@ -996,7 +1082,13 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 			d->ev.tmin = d->ev.tmax = t_c;
 			d->ev.ah = 0;
 			d->ev.soc0 = soc0;
+			d->ev.i_max = iavg;
+			d->ev.v_max = p->v / SYNTH_CELLS;
 		}
+		if (iavg > d->ev.i_max)
+			d->ev.i_max = iavg;
+		if (p->v / SYNTH_CELLS > d->ev.v_max)
+			d->ev.v_max = p->v / SYNTH_CELLS;
 		if (rank[z] > rank[d->ev.zone])
 			d->ev.zone = z;
 		if (t_c < d->ev.tmin)
@@ -1007,6 +1099,50 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 		d->ev.ah += iavg * hr;
 		d->ev.soc1 = soc_pct;
 	}
+	vev_track(f, d, t0, t, iavg, hr);
+}
+
+/* The end of a voltage event: emitted when it lasted 30 s. */
+static void
+vev_close(struct synth_fleet *f, struct synth_dev *d)
+{
+	d->vev_on = 0;
+	if (d->vev.end - d->vev.start < VEV_MIN_DUR)
+		return;
+	if (f->h.vevent != NULL)
+		f->h.vevent(f->h.ctx, d, &d->vev);
+}
+
+/*
+ * The cell voltage truth of the sample at T (interval from T0) with mean
+ * current IAVG over HR hours: cw-volt's rules without hysteresis.
+ */
+static void
+vev_track(struct synth_fleet *f, struct synth_dev *d, cw_time t0, cw_time t,
+    double iavg, double hr)
+{
+	double vc = d->pack.v / SYNTH_CELLS;
+	int lim = vc > SYNTH_VOLT_MAX ? 0 : vc < SYNTH_VOLT_MIN ? 1 : -1;
+	int kind = iavg > EV_MIN_A ? 0 : iavg < -EV_MIN_A ? 1 : 2;
+
+	if (d->vev_on && (lim != d->vev.limit || kind != d->vev.kind))
+		vev_close(f, d);
+	if (lim < 0)
+		return;
+	if (!d->vev_on) {
+		d->vev_on = 1;
+		d->vev.limit = lim;
+		d->vev.kind = kind;
+		d->vev.start = t0;
+		d->vev.vmin = d->vev.vmax = vc;
+		d->vev.ah = 0;
+	}
+	if (vc < d->vev.vmin)
+		d->vev.vmin = vc;
+	if (vc > d->vev.vmax)
+		d->vev.vmax = vc;
+	d->vev.end = t;
+	d->vev.ah += iavg * hr;
 }
 
 /*
@@ -1051,6 +1187,8 @@ synth_fleet_finish(struct synth_fleet *f)
 
 		if (d->ev_on)
 			ev_close(f, d);
+		if (d->vev_on)
+			vev_close(f, d);
 		if (d->mc_on)
 			mc_end(f, d, d->tr.last, 0);
 		if (d->tr.rows > 0)

@@ -211,7 +211,24 @@ struct synth_conf {
 	int docks;		/* a dock column; packs hop between docks */
 	int level;		/* gzip level */
 	const char *outdir;
+	long incidents;		/* packs given each enum synth_incident */
 };
+
+/*
+ * Misuse of a pack or a charger, injected into the last 4 * incidents
+ * devices (cw-synth --incidents), one kind after the other:
+ * COLD_FAST: a fast dock charger (10 A) without the JEITA rules, so it
+ * does not reduce the current in the cold; HOT_CABINET: a dock charger
+ * without them in a cabinet whose fan failed (50 C), so it charges to
+ * 4.20 V per cell in the warm zone; STORED_FLAT: a pack stored run flat
+ * (SoC -6 %, 2.59 V a cell) whose standby drain (20 mA) bypasses the
+ * cut-off; OVERCHARGE: a depot charger set to 4.30 V per cell.
+ */
+enum synth_incident {
+	SYNTH_I_NONE, SYNTH_I_COLD_FAST, SYNTH_I_HOT_CABINET,
+	SYNTH_I_STORED_FLAT, SYNTH_I_OVERCHARGE, SYNTH_NINCIDENT
+};
+extern const char *const synth_incident_name[SYNTH_NINCIDENT];
 
 /* Defaults: 10 devices, 7 days from 2026-01-12 at +01:00, 10 s, seed 1. */
 void	synth_conf_default(struct synth_conf *c);
@@ -233,8 +250,28 @@ struct synth_cevent {
 	double tmin, tmax;	/* C */
 	double ah;
 	double soc0, soc1;	/* percent */
+	double i_max;		/* A, highest current of its rows */
+	double v_max;		/* V per cell, highest of its rows */
+	int protocol;		/* 0 within, 1 over-current, 2 over-voltage,
+				   3 no-charge-allowed (cw-thermal's words) */
 };
 extern const char *const synth_zone_name[5];
+
+/*
+ * One event of a cell voltage (true pack voltage over the cells) above
+ * SYNTH_VOLT_MAX or below SYNTH_VOLT_MIN, by cw-volt's rules without
+ * hysteresis: a run of rows beyond the limit of one kind (charge above
+ * 0.05 A, use below -0.05 A, rest between), at least 30 s.
+ */
+#define SYNTH_VOLT_MAX 4.25
+#define SYNTH_VOLT_MIN 2.50
+struct synth_vevent {
+	int limit;		/* 0 over, 1 under */
+	int kind;		/* 0 charge, 1 use, 2 rest */
+	cw_time start, end;
+	double vmin, vmax;	/* V per cell */
+	double ah;		/* net charge */
+};
 
 /* One top-off micro-cycle, in true values. */
 struct synth_topoff {
@@ -299,6 +336,8 @@ struct synth_dev {
 	struct synth_rng frng;	/* faults */
 	struct synth_pack pack;
 	const struct synth_charger *dock;	/* its dock's charger */
+	const struct synth_charger *depot;	/* its depot's charger */
+	int incident;		/* enum synth_incident */
 	double i_park, i_dock;	/* electronics load parked and docked, A */
 	double r_start25;	/* rstep25 at the start */
 	/* Today's plan. */
@@ -320,6 +359,8 @@ struct synth_dev {
 	cw_time prev_t;
 	int ev_on;
 	struct synth_cevent ev;
+	int vev_on;
+	struct synth_vevent vev;
 	int mc_on;		/* a micro-cycle is in progress */
 	int held;		/* the charger terminated, no ride since */
 	struct synth_topoff mc;
@@ -344,6 +385,8 @@ struct synth_hooks {
 		    const struct synth_cevent *e);
 	void	(*topoff)(void *ctx, const struct synth_dev *d,
 		    const struct synth_topoff *m);
+	void	(*vevent)(void *ctx, const struct synth_dev *d,
+		    const struct synth_vevent *e);
 	void	(*ride)(void *ctx, const struct synth_dev *d,
 		    const struct synth_ride *m);
 	void	*ctx;

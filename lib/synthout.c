@@ -70,7 +70,7 @@ struct run {
 	unsigned long line;	/* number of the next line of the day files */
 	long day, slot, rpd;
 	char daystr[16];
-	struct tfile faults, charging, topoff, rides;
+	struct tfile faults, charging, topoff, volt, rides;
 	struct dayrec *days;
 	struct synth_rng hrng;	/* repeated headers */
 	struct synth_stats *st;
@@ -667,6 +667,11 @@ clean:
 
 /* Truth found by the simulation. */
 
+/* The verdicts of cw-thermal's charge protocol, by synth_cevent.protocol. */
+static const char *const protocol_name[4] = {
+	"within", "over-current", "over-voltage", "no-charge-allowed"
+};
+
 static void
 on_cevent(void *ctx, const struct synth_dev *d, const struct synth_cevent *e)
 {
@@ -688,6 +693,30 @@ on_cevent(void *ctx, const struct synth_dev *d, const struct synth_cevent *e)
 	csvout_str(w, synth_dev_charger(d));
 	synth_dev_site(d, site);
 	csvout_str(w, site);
+	csvout_fixed(w, e->i_max, 4);
+	csvout_fixed(w, e->v_max, 4);
+	csvout_str(w, protocol_name[e->protocol]);
+	csvout_endrow(w);
+}
+
+static void
+on_vevent(void *ctx, const struct synth_dev *d, const struct synth_vevent *e)
+{
+	static const char *const kind[3] = { "charge", "use", "rest" };
+	struct run *r = ctx;
+	struct csvout *w = &r->volt.w;
+
+	csvout_strn(w, d->name, d->namelen);
+	csvout_str(w, kind[e->kind]);
+	csvout_str(w, e->limit == 0 ? "over" : "under");
+	csvout_time(w, e->start);
+	csvout_time(w, e->end);
+	csvout_int(w, (long long)((e->end - e->start) / CW_US_PER_S));
+	csvout_fixed(w, e->vmin, 4);
+	csvout_fixed(w, e->vmax, 4);
+	csvout_fixed(w, e->ah, 4);
+	csvout_str(w, synth_incident_name[d->incident]);
+	csvout_str(w, synth_dev_charger(d));
 	csvout_endrow(w);
 }
 
@@ -873,6 +902,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	r.st = st;
 	h.cevent = on_cevent;
 	h.topoff = on_topoff;
+	h.vevent = on_vevent;
 	h.ride = on_ride;
 	h.ctx = &r;
 	r.f = synth_fleet_new(c, &h);
@@ -902,7 +932,10 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	    "day,line,device,time,fault,detail");
 	tf_open(&r, &r.charging, "truth-charging.csv", "device,kind,zone,"
 	    "start,end,duration_s,temp_min_c,temp_max_c,charge_ah,"
-	    "soc_start_pct,soc_end_pct,charger,site");
+	    "soc_start_pct,soc_end_pct,charger,site,i_max_a,v_cell_max,"
+	    "protocol");
+	tf_open(&r, &r.volt, "truth-volt.csv", "device,kind,limit,start,end,"
+	    "duration_s,v_cell_min,v_cell_max,charge_ah,incident,charger");
 	tf_open(&r, &r.topoff, "truth-topoff.csv",
 	    "device,start,restart,end,depth_pct,charge_ah,completed");
 	tf_open(&r, &r.rides, "truth-rides.csv", "device,start,end,"
@@ -945,6 +978,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 		if (csvout_flush(&r.faults.w) != 0 ||
 		    csvout_flush(&r.charging.w) != 0 ||
 		    csvout_flush(&r.topoff.w) != 0 ||
+		    csvout_flush(&r.volt.w) != 0 ||
 		    csvout_flush(&r.rides.w) != 0)
 			cw_die(CW_EXIT_DATA, "%s: cannot write the truth files",
 			    c->outdir);
@@ -953,6 +987,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	tf_close(&r.faults);
 	tf_close(&r.charging);
 	tf_close(&r.topoff);
+	tf_close(&r.volt);
 	tf_close(&r.rides);
 	write_devices(&r);
 	write_days(&r);

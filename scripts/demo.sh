@@ -181,12 +181,15 @@ tail -n 2 "$out/cw-clean.log" | sed "s/^/demo: /" >&2
 # need theirs fitted first (see cw-dcir(1)).  The trend takes each pack's
 # own SoC window (--soc auto), so that dock packs, which live near full,
 # get one too.
+# cw-thermal judges charging in the cool and warm zones by the JEITA
+# scheme's reduced current and voltage, which need the packs' rated 14 Ah
+# and 10 cells (the register holds neither).
 S=$out/cw-clean.csv.gz
 DCIR="--temp -10,45 --soc 10,90"
 say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear cw-capacity" \
     "cw-volt -> $out/"
 job cw-rainflow -o "$out/cw-rainflow.csv" "$S"
-job cw-thermal -o "$out/cw-thermal.csv" "$S"
+job cw-thermal --capacity 14 --cells 10 -o "$out/cw-thermal.csv" "$S"
 job cw-thermal -s --capacity 14 --cells 10 \
     -o "$out/cw-thermal-summary.csv" "$S"
 job cw-thermal --by dock -s -o "$out/cw-thermal-docks.csv" "$S"

@@ -143,6 +143,30 @@ test_rng_moments(void **state)
 	near(g2 / n, 1.0, 5 * sqrt(2.0 / n));
 }
 
+/*
+ * Below -5 % SoC (a pack stored flat, cw-synth --incidents) the curve
+ * goes on along its slope at -5 % down to -12 %, then stays.  By hand:
+ * U(-0.05) = 3.25 - 0.0425 - 0.25 e^0.75 = 2.678250 V (the s^8 term is
+ * 4e-12), U'(-0.05) = 0.85 + 3.75 e^0.75 = 8.788750 V per unit SoC, so
+ * U(-0.06) = 2.590363 V and U(-0.12) = 2.063038 V.
+ */
+static void
+test_ocv_overdischarge(void **state)
+{
+	double e = exp(0.75);
+	double u5 = 3.25 - 0.0425 - 0.25 * e, k = 0.85 + 3.75 * e;
+
+	(void)state;
+	near(u5, 2.678250, 1e-6);
+	near(synth_ocv_cell(-0.05), u5, 1e-9);
+	near(synth_ocv_cell(-0.05 - 1e-9), u5, 1e-7);
+	near(synth_ocv_cell(-0.06), u5 - 0.01 * k, 1e-9);
+	near(synth_ocv_cell(-0.06), 2.590363, 1e-6);
+	near(synth_ocv_cell(-0.12), 2.063038, 1e-6);
+	near(synth_ocv_cell(-0.30), synth_ocv_cell(-0.12), 1e-12);
+	assert_true(synth_ocv_cell(-0.08) < synth_ocv_cell(-0.07));
+}
+
 static void
 test_ocv_curve(void **state)
 {
@@ -702,6 +726,7 @@ main(void)
 		cmocka_unit_test(test_rng_streams),
 		cmocka_unit_test(test_rng_moments),
 		cmocka_unit_test(test_ocv_curve),
+		cmocka_unit_test(test_ocv_overdischarge),
 		cmocka_unit_test(test_arrhenius),
 		cmocka_unit_test(test_rc_step),
 		cmocka_unit_test(test_charge_balance),

@@ -4,7 +4,9 @@
 # files of each run, a week being 7 day files per format; the stream
 # that the documented cw-clean line makes from format A has the header of
 # the sample stream and one row per data line that was not rejected; the
-# fault counts (the seed is the default, so they are the same each run).
+# fault counts (the seed is the default, so they are the same each run);
+# the incident week's summaries name the four incident packs (EB-0009 to
+# EB-0012, the last four): cw-volt finds EB-0009 over and EB-0010 under.
 # source: snapshot: the fault counts of the default seed are whatever its
 #   random stream draws (tests/ref/synth_faults.sh finds the faults in the
 #   files and checks them against the truth files); the file lists and the
@@ -20,7 +22,7 @@ mandoc -Tutf8 man/cw-synth.1 | col -b |
 cat "$TMPDIR_CASE/ex.sh"
 echo "--"
 cd "$TMPDIR_CASE" && sh -e ex.sh && echo "examples: rc=0"
-for d in fleet raw summer bench; do
+for d in fleet raw summer bench inc; do
 	printf '%s: %s\n' "$d" "$(ls "$d" | tr '\n' ' ')"
 done
 ls fleet/*.a.csv.gz | wc -l | sed 's/^/fleet a files: /'
