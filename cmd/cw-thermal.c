@@ -3,8 +3,6 @@
  * as events per device or as a summary per device.  The engine is
  * lib/thermal.c; this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -13,8 +11,10 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "finish.h"
 #include "fleet.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "sampin.h"
 #include "thermal.h"
@@ -51,7 +51,7 @@ struct byval {
 struct tool {
 	struct thermal_conf conf;
 	struct csvout out;
-	const struct fleet *fleet;
+	struct fleet *fleet;
 	double cap_ah;		/* --capacity; NaN: unknown */
 	int cells;		/* --cells; 0: unknown */
 	int summary;
@@ -61,13 +61,69 @@ struct tool {
 };
 
 enum {
-	OPT_CAPACITY = 256, OPT_CELLS, OPT_COOL_MARGIN, OPT_COOL_RATE,
+	OPT_CAPACITY = OPTAB_LONG, OPT_CELLS, OPT_COOL_MARGIN, OPT_COOL_RATE,
 	OPT_BY, OPT_FLEET, OPT_HYST, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
-	OPT_MIN_CURRENT, OPT_MIN_DURATION, OPT_USE_LIMITS, OPT_VERSION,
-	OPT_WARM_MARGIN, OPT_WARM_VOLTAGE
+	OPT_MIN_CURRENT, OPT_MIN_DURATION, OPT_USE_LIMITS, OPT_WARM_MARGIN,
+	OPT_WARM_VOLTAGE
 };
 
-static void	usage(FILE *fp);
+static const struct optab opts[] = {
+	{ "by", 0, "COL", "a stream column (a dock, charger or site that "
+	    "cw-clean --keep carried): its value at each event's start ends "
+	    "the event row, and --summary is one row per value", NULL,
+	    OPT_BY },
+	{ "capacity", 0, "AH", "rated capacity, for the cool-zone current "
+	    "(unset: unknown)", NULL, OPT_CAPACITY },
+	{ "cells", 0, "N", "cells in series, for the warm-zone voltage "
+	    "(unset: unknown)", NULL, OPT_CELLS },
+	{ "cool-margin", 0, "PCT", "current allowed above the cool rate", "5",
+	    OPT_COOL_MARGIN },
+	{ "cool-rate", 0, "C", "C-rate allowed in the cool zone", "0.5",
+	    OPT_COOL_RATE },
+	{ "fleet", 0, "FILE", "the fleet file; its capacity_ah and cells "
+	    "override --capacity and --cells per pack", NULL, OPT_FLEET },
+	{ "hysteresis", 0, "DT", "come back inside by DT to end an event",
+	    "0.5", OPT_HYST },
+	{ "limits", 0, "T1,T2,T3,T4", "the four zone thresholds",
+	    "0,10,45,60", OPT_LIMITS },
+	{ "max-gap", 0, "DUR", "a longer interval ends an event", "15m",
+	    OPT_MAX_GAP },
+	{ "merge", 0, "DUR", "join events at most DUR apart", "2m",
+	    OPT_MERGE },
+	{ "min-current", 0, "A", "charging above A, discharge below -A",
+	    "0.05", OPT_MIN_CURRENT },
+	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "60s",
+	    OPT_MIN_DURATION },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "summary", 's', NULL, "one row per device (per value with --by) "
+	    "instead of one per event", NULL, 0 },
+	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
+	    OPT_USE_LIMITS },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "warm-margin", 0, "V", "voltage per cell allowed above the warm "
+	    "voltage", "0.02", OPT_WARM_MARGIN },
+	{ "warm-voltage", 0, "V", "charge voltage per cell allowed in the "
+	    "warm zone", "4.10", OPT_WARM_VOLTAGE },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-thermal", "[FILE ...]",
+	"Charging outside the safe temperature window, as events per device,\n"
+	"judged by the charge protocol of the JEITA scheme.\n",
+	"The protocol's defaults are from memory of the JEITA guideline; the\n"
+	"cell maker's data sheet rules.\n"
+	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
+	"one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
+	"Durations take 90, 90s, 15m, 2h, 1d.\n"
+	"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
+	opts
+};
+
+static int	parse(struct tool *t, int argc, char *argv[],
+		    const char **outpath);
+static void	write_header(struct tool *t);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
@@ -80,66 +136,6 @@ static void	write_outside(struct tool *t, const struct thermal_ah *a);
 static void	write_by_summary(struct tool *t, const struct byval *v);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st, const char *by);
-
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-thermal [-hsv] [--by COL] [--capacity AH] [--cells N]\n"
-	    "                  [--cool-margin PCT] [--cool-rate C] "
-	    "[--fleet FILE]\n"
-	    "                  [--hysteresis DT] "
-	    "[--limits T1,T2,T3,T4] [--max-gap DUR]\n"
-	    "                  [--merge DUR] "
-	    "[--min-current A] [--min-duration DUR]\n"
-	    "                  [-o FILE] "
-	    "[--use-limits LO,HI] [--version] [--warm-margin V]\n"
-	    "                  [--warm-voltage V] [FILE ...]\n");
-	fputs(
-"\n"
-"Charging outside the safe temperature window, as events per device,\n"
-"judged by the charge protocol of the JEITA scheme.\n"
-"\n"
-"      --by COL              a stream column (a dock, charger or site that\n"
-"                            cw-clean --keep carried): its value at each\n"
-"                            event's start ends the event row, and\n"
-"                            --summary is one row per value\n"
-"      --capacity AH         rated capacity, for the cool-zone current\n"
-"                            (unset: unknown)\n"
-"      --cells N             cells in series, for the warm-zone voltage\n"
-"                            (unset: unknown)\n"
-"      --cool-margin PCT     current allowed above the cool rate\n"
-"                            (default 5)\n"
-"      --cool-rate C         C-rate allowed in the cool zone (default 0.5)\n"
-"      --fleet FILE          the fleet file; its capacity_ah and cells\n"
-"                            override --capacity and --cells per pack\n"
-"  -h, --help                print this help and exit 0\n"
-"      --hysteresis DT       come back inside by DT to end an event\n"
-"                            (default 0.5)\n"
-"      --limits T1,T2,T3,T4  the four zone thresholds (default 0,10,45,60)\n"
-"      --max-gap DUR         a longer interval ends an event (default 15m)\n"
-"      --merge DUR           join events at most DUR apart (default 2m)\n"
-"      --min-current A       charging above A, discharge below -A\n"
-"                            (default 0.05)\n"
-"      --min-duration DUR    drop events shorter than DUR (default 60s)\n"
-"  -o, --output FILE         write to FILE atomically, not standard output\n"
-"  -s, --summary             one row per device (per value with --by)\n"
-"                            instead of one per event\n"
-"      --use-limits LO,HI    the window for discharge (default -20,60)\n"
-"  -v, --verbose             report counts on standard error\n"
-"      --version             print the version and exit 0\n"
-"      --warm-margin V       voltage per cell allowed above the warm\n"
-"                            voltage (default 0.02)\n"
-"      --warm-voltage V      charge voltage per cell allowed in the warm\n"
-"                            zone (default 4.10)\n"
-"\n"
-"The protocol's defaults are from memory of the JEITA guideline; the cell\n"
-"maker's data sheet rules.\n"
-"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one);\n"
-"DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
-"Durations take 90, 90s, 15m, 2h, 1d.\n"
-"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n", fp);
-}
 
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
@@ -371,60 +367,28 @@ report(const struct devtab *devs, const struct sampin_stats *st,
 	    ev[THERMAL_CHARGE], ev[THERMAL_USE], dropped, merges);
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into T, the output's path into *OUTPATH; the index of the
+ * first operand.
+ */
+static int
+parse(struct tool *t, int argc, char *argv[], const char **outpath)
 {
-	static const struct option longopts[] = {
-		{ "by", required_argument, NULL, OPT_BY },
-		{ "capacity", required_argument, NULL, OPT_CAPACITY },
-		{ "cells", required_argument, NULL, OPT_CELLS },
-		{ "cool-margin", required_argument, NULL, OPT_COOL_MARGIN },
-		{ "cool-rate", required_argument, NULL, OPT_COOL_RATE },
-		{ "fleet", required_argument, NULL, OPT_FLEET },
-		{ "help", no_argument, NULL, 'h' },
-		{ "hysteresis", required_argument, NULL, OPT_HYST },
-		{ "limits", required_argument, NULL, OPT_LIMITS },
-		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
-		{ "merge", required_argument, NULL, OPT_MERGE },
-		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
-		{ "min-duration", required_argument, NULL, OPT_MIN_DURATION },
-		{ "output", required_argument, NULL, 'o' },
-		{ "summary", no_argument, NULL, 's' },
-		{ "use-limits", required_argument, NULL, OPT_USE_LIMITS },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ "warm-margin", required_argument, NULL, OPT_WARM_MARGIN },
-		{ "warm-voltage", required_argument, NULL, OPT_WARM_VOLTAGE },
-		{ NULL, 0, NULL, 0 }
-	};
-	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
-	struct fleet *fleet = NULL;
-	const char *outpath = NULL, *fleetpath = NULL;
+	struct optparse op;
+	const char *fleetpath = NULL;
 	double use[2];
-	void **sorted;
-	size_t i, n;
-	int ch, rc;
+	int ch;
 
-	cw_setprog("cw-thermal");
-	memset(&t, 0, sizeof(t));
-	thermal_conf_default(&t.conf);
-	t.cap_ah = CW_MISSING;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":ho:sv", longopts, NULL)) !=
-	    -1) {
+	thermal_conf_default(&t->conf);
+	t->cap_ah = CW_MISSING;
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
 		case 'o':
-			outpath = optarg;
+			*outpath = optarg;
 			break;
 		case 's':
-			t.summary = 1;
+			t->summary = 1;
 			break;
 		case 'v':
 			cw_verbose = 1;
@@ -432,89 +396,118 @@ main(int argc, char *argv[])
 		case OPT_BY:
 			if (optarg[0] == '\0')
 				cw_usage_error("--by: empty column name");
-			t.by = optarg;
+			t->by = optarg;
 			break;
 		case OPT_CAPACITY:
-			t.cap_ah = opt_num_arg("--capacity", optarg, 0.001,
+			t->cap_ah = opt_num_arg("--capacity", optarg, 0.001,
 			    1e6);
 			break;
 		case OPT_CELLS:
-			t.cells = (int)opt_long_arg("--cells", optarg, 1, 1000);
+			t->cells = (int)opt_long_arg("--cells", optarg, 1,
+			    1000);
 			break;
 		case OPT_COOL_MARGIN:
-			t.conf.cool_margin = opt_num_arg("--cool-margin",
+			t->conf.cool_margin = opt_num_arg("--cool-margin",
 			    optarg, 0, 100);
 			break;
 		case OPT_COOL_RATE:
-			t.conf.cool_rate = opt_num_arg("--cool-rate", optarg,
+			t->conf.cool_rate = opt_num_arg("--cool-rate", optarg,
 			    0, 100);
 			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
 			break;
 		case OPT_HYST:
-			t.conf.lim.hyst = opt_tempdiff_arg("--hysteresis",
+			t->conf.lim.hyst = opt_tempdiff_arg("--hysteresis",
 			    optarg);
 			break;
 		case OPT_LIMITS:
-			opt_list_arg("--limits", optarg, t.conf.lim.t, 4, 1, 1);
+			opt_list_arg("--limits", optarg, t->conf.lim.t, 4, 1,
+			    1);
 			break;
 		case OPT_MAX_GAP:
-			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
 			break;
 		case OPT_MERGE:
-			t.conf.merge = opt_dur_arg("--merge", optarg, 1);
+			t->conf.merge = opt_dur_arg("--merge", optarg, 1);
 			break;
 		case OPT_MIN_CURRENT:
-			t.conf.min_current = opt_num_arg("--min-current",
+			t->conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
 			break;
 		case OPT_MIN_DURATION:
-			t.conf.min_duration = opt_dur_arg("--min-duration",
+			t->conf.min_duration = opt_dur_arg("--min-duration",
 			    optarg, 1);
 			break;
 		case OPT_USE_LIMITS:
 			opt_list_arg("--use-limits", optarg, use, 2, 1, 1);
-			t.conf.lim.use_lo = use[0];
-			t.conf.lim.use_hi = use[1];
+			t->conf.lim.use_lo = use[0];
+			t->conf.lim.use_hi = use[1];
 			break;
 		case OPT_WARM_MARGIN:
-			t.conf.warm_margin = opt_num_arg("--warm-margin",
+			t->conf.warm_margin = opt_num_arg("--warm-margin",
 			    optarg, 0, 1);
 			break;
 		case OPT_WARM_VOLTAGE:
-			t.conf.warm_v = opt_num_arg("--warm-voltage", optarg,
+			t->conf.warm_v = opt_num_arg("--warm-voltage", optarg,
 			    0.001, 100);
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
+	optab_free(&op);
 
 	if (fleetpath != NULL)
-		fleet = fleet_load(fleetpath);
-	t.fleet = fleet;
+		t->fleet = fleet_load(fleetpath);
+	return optind;
+}
+
+/* The header: the summary's or the events', with --by's column. */
+static void
+write_header(struct tool *t)
+{
+	char names[] = EVENT_HEADER, *p, *save = NULL;
+
+	if (t->by != NULL && t->summary) {
+		write_by_header(t);
+		return;
+	}
+	if (t->by == NULL) {
+		csvout_header(&t->out, t->summary ? SUMMARY_HEADER :
+		    EVENT_HEADER);
+		return;
+	}
+	/* The event columns, then COL, quoted as CSV needs. */
+	for (p = strtok_r(names, ",", &save); p != NULL;
+	    p = strtok_r(NULL, ",", &save))
+		csvout_str(&t->out, p);
+	csvout_str(&t->out, t->by);
+	csvout_endrow(&t->out);
+}
+
+int
+main(int argc, char *argv[])
+{
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of;
+	const char *outpath = NULL;
+	void **sorted;
+	size_t i, n;
+	int rc, k;
+
+	cw_setprog("cw-thermal");
+	memset(&t, 0, sizeof(t));
+	thermal_conf_default(&t.conf);
+	t.cap_ah = CW_MISSING;
+	k = parse(&t, argc, argv, &outpath);
+	argc -= k;
+	argv += k;
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
-	if (t.by != NULL && t.summary)
-		write_by_header(&t);
-	else if (t.by != NULL) {
-		/* The event columns, then COL, quoted as CSV needs. */
-		char names[] = EVENT_HEADER, *p, *save = NULL;
-
-		for (p = strtok_r(names, ",", &save); p != NULL;
-		    p = strtok_r(NULL, ",", &save))
-			csvout_str(&t.out, p);
-		csvout_str(&t.out, t.by);
-		csvout_endrow(&t.out);
-	} else
-		csvout_header(&t.out, t.summary ? SUMMARY_HEADER :
-		    EVENT_HEADER);
+	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
 
@@ -531,32 +524,19 @@ main(int argc, char *argv[])
 	sc.ctx = &t;
 	sc.devs = devs;
 	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc != 0) {
-		/* Complete rows written so far stay; the output is not
-		 * committed, so -o FILE keeps its old contents. */
-		csvout_flush(&t.out);
-		if (cw_verbose)
-			report(devs, &st, t.by);
-		csvout_free(&t.out);
-		devtab_free(devs);
-		if (t.by != NULL) {
-			devtab_free(t.vals);
-			devtab_free(t.pairs);
-		}
-		fleet_free(fleet);
-		return rc;
-	}
-
-	/* What is still open ends with the stream, in device name order. */
-	sorted = devtab_sorted(devs);
-	n = devtab_count(devs);
-	for (i = 0; i < n; i++)
-		thermal_finish(&((struct dev *)sorted[i])->th, &t.conf);
-	if (t.summary && t.by == NULL)
+	if (rc == 0) {
+		/* What is still open ends with the stream, in name order. */
+		sorted = devtab_sorted(devs);
+		n = devtab_count(devs);
 		for (i = 0; i < n; i++)
-			write_summary(&t, sorted[i]);
-	free(sorted);
-	if (t.summary && t.by != NULL) {
+			thermal_finish(&((struct dev *)sorted[i])->th,
+			    &t.conf);
+		if (t.summary && t.by == NULL)
+			for (i = 0; i < n; i++)
+				write_summary(&t, sorted[i]);
+		free(sorted);
+	}
+	if (rc == 0 && t.summary && t.by != NULL) {
 		sorted = devtab_sorted(t.vals);
 		n = devtab_count(t.vals);
 		for (i = 0; i < n; i++)
@@ -565,19 +545,15 @@ main(int argc, char *argv[])
 	}
 	if (cw_verbose)
 		report(devs, &st, t.by);
-	if (csvout_flush(&t.out) != 0) {
-		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
-		    "standard output", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	if (outf_commit(of) != 0)
-		return CW_EXIT_DATA;
+	/* After a data error, complete rows written so far stay; -o FILE
+	 * is not committed and keeps its old contents. */
+	rc = cw_finish(&t.out, of, outpath, rc);
 	csvout_free(&t.out);
 	devtab_free(devs);
 	if (t.by != NULL) {
 		devtab_free(t.vals);
 		devtab_free(t.pairs);
 	}
-	fleet_free(fleet);
-	return CW_EXIT_OK;
+	fleet_free(t.fleet);
+	return rc;
 }

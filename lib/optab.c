@@ -11,7 +11,8 @@
 #include "optab.h"
 
 #define WIDTH	78	/* the help's right margin */
-#define TEXTCOL	26	/* where an option's description starts */
+#define TEXTCOL	26	/* where an option's description starts, at least */
+#define TEXTMAX	30	/* and at most: longer options break the line */
 #define ID_HELP		'h'
 #define ID_VERSION	(OPTAB_LONG - 1)
 
@@ -232,13 +233,26 @@ synopsis(FILE *fp, const struct optool *tool)
 	free(v);
 }
 
+/* The option as the help lists it ("  -o, --output FILE") into BUF. */
+static size_t
+head(char *buf, size_t size, const struct optab *o)
+{
+	if (o->letter != 0)
+		snprintf(buf, size, "  -%c, --%s%s%s", o->letter, o->name,
+		    o->arg ? " " : "", o->arg ? o->arg : "");
+	else
+		snprintf(buf, size, "      --%s%s%s", o->name,
+		    o->arg ? " " : "", o->arg ? o->arg : "");
+	return strlen(buf);
+}
+
 void
 optab_help(FILE *fp, const struct optool *tool)
 {
 	const struct optab *sets[2] = { tool->opts, common };
 	const struct optab **v;
 	char buf[256];
-	size_t n, i, k = 0, col;
+	size_t n, i, k = 0, col, ind = TEXTCOL;
 	int s;
 
 	synopsis(fp, tool);
@@ -251,34 +265,33 @@ optab_help(FILE *fp, const struct optool *tool)
 		for (i = 0; sets[s][i].name != NULL; i++)
 			v[k++] = &sets[s][i];
 	qsort(v, k, sizeof(*v), cmp_syn);
+	/* The text column: past the longest option that fits TEXTMAX. */
+	for (i = 0; i < k; i++) {
+		col = head(buf, sizeof(buf), v[i]) + 2;
+		if (col > ind && col <= TEXTMAX)
+			ind = col;
+	}
 	for (i = 0; i < k; i++) {
 		const struct optab *o = v[i];
 
-		if (o->letter != 0)
-			snprintf(buf, sizeof(buf), "  -%c, --%s%s%s",
-			    o->letter, o->name, o->arg ? " " : "",
-			    o->arg ? o->arg : "");
-		else
-			snprintf(buf, sizeof(buf), "      --%s%s%s", o->name,
-			    o->arg ? " " : "", o->arg ? o->arg : "");
+		col = head(buf, sizeof(buf), o);
 		fputs(buf, fp);
-		col = strlen(buf);
 		/* A long one has its text on the next line. */
-		if (col < TEXTCOL - 1)
-			fprintf(fp, "%*s", (int)(TEXTCOL - col), "");
-		else if (col == TEXTCOL - 1)
+		if (col < ind - 1)
+			fprintf(fp, "%*s", (int)(ind - col), "");
+		else if (col == ind - 1)
 			fputc(' ', fp);
 		else
-			fprintf(fp, "\n%*s", TEXTCOL, "");
-		col = TEXTCOL;
-		put_text(fp, o->help, &col, TEXTCOL);
+			fprintf(fp, "\n%*s", (int)ind, "");
+		col = ind;
+		put_text(fp, o->help, &col, ind);
 		if (o->dflt != NULL) {
 			/* "(default X)" on one line when X is one word. */
 			snprintf(buf, sizeof(buf), "(default %s)", o->dflt);
 			if (strchr(o->dflt, ' ') == NULL)
-				put_word(fp, buf, strlen(buf), &col, TEXTCOL);
+				put_word(fp, buf, strlen(buf), &col, ind);
 			else
-				put_text(fp, buf, &col, TEXTCOL);
+				put_text(fp, buf, &col, ind);
 		}
 		fputc('\n', fp);
 	}
