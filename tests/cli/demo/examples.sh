@@ -85,3 +85,10 @@ png dwell.png
 echo "== morning-report.sh"
 "scripts/morning-report.sh" -n 2 out fleet.csv
 echo "exit $?"
+
+echo "== plot-measured.gp"
+cw-wear --cycle-life 500 --capacity 10 \
+    --measured "$top/testdata/wear-fleet-trend.csv" \
+    "$top/testdata/wear-fleet.csv" >wear.csv || exit 1
+gnuplot -e "in='wear.csv'; out='measured.png'" scripts/plot-measured.gp
+png measured.png
