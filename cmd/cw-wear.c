@@ -944,32 +944,22 @@ main(int argc, char *argv[])
 	}
 	if (state_out)
 		write_states(of, out, &r, sorted, n);
-	else if (fitting) {
-		for (k = 0; k < n; k++)
-			wear_finish(&sorted[k]->w, &r.conf);
+	else {
 		csvout_init(&w, outf_fp(of));
-		fit_run(&r, sorted, n, &w);
-		if (csvout_flush(&w) != 0) {
-			int e = errno;
-
-			csvout_free(&w);
-			cw_die(CW_EXIT_DATA, "%s: write error: %s", out != NULL ?
-			    out : "standard output", strerror(e));
-		}
-		csvout_free(&w);
-	} else {
-		csvout_init(&w, outf_fp(of));
-		csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
-		    (r.meas != NULL ? HEADER HEADER_CAP HEADER_MEAS :
-		    HEADER HEADER_CAP) : r.meas != NULL ? HEADER HEADER_MEAS :
-		    HEADER);
+		/* --fit-scales: the fit's table, not the rows. */
+		if (!fitting)
+			csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
+			    (r.meas != NULL ? HEADER HEADER_CAP HEADER_MEAS :
+			    HEADER HEADER_CAP) : r.meas != NULL ?
+			    HEADER HEADER_MEAS : HEADER);
 		for (k = 0; k < n; k++) {
 			wear_finish(&sorted[k]->w, &r.conf);
 			wear_report(&r.conf, &sorted[k]->w.acc,
 			    &sorted[k]->w.prior, fleet_capacity(r.fleet,
 			    sorted[k]->e.name, sorted[k]->e.namelen,
 			    r.capacity), &x);
-			write_row(&w, &r, sorted[k], &x);
+			if (!fitting)
+				write_row(&w, &r, sorted[k], &x);
 			if (r.meas != NULL) {
 				double m;
 
@@ -979,6 +969,8 @@ main(int argc, char *argv[])
 				    sorted[k]->w.acc.last, 1, &m)]++;
 			}
 		}
+		if (fitting)
+			fit_run(&r, sorted, n, &w);
 		if (csvout_flush(&w) != 0) {
 			int e = errno;
 
