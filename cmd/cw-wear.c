@@ -129,6 +129,7 @@ static void report(const struct run *, struct dev **, size_t);
 static void set_prior(struct run *, struct dev *);
 static int on_dwell(void *, void *, const struct cw_sample *);
 static void dwell_run(struct run *, char **, int, const char *);
+static void fit_row(struct csvout *, const char *, double, double, double);
 static void fit_run(struct run *, struct dev **, size_t, struct csvout *);
 
 static void
@@ -607,6 +608,18 @@ dwell_run(struct run *r, char **argv, int argc, const char *out)
 		exit(CW_EXIT_DATA);
 }
 
+/* One row of the fit's table. */
+static void
+fit_row(struct csvout *w, const char *q, double before, double after,
+    double se)
+{
+	csvout_str(w, q);
+	csvout_num(w, before);
+	csvout_num(w, after);
+	csvout_num(w, se);
+	csvout_endrow(w);
+}
+
 /*
  * --fit-scales: the model's cycle and calendar scales fitted to the
  * measured fade of the N devices (lib/measured.c), and their effect, as
@@ -620,9 +633,9 @@ fit_run(struct run *r, struct dev **devs, size_t n, struct csvout *w)
 	struct meas_fit f;
 	struct wear_result x;
 	struct model_eval e;
-	double cap, ref[2], v;
+	double cap, ref[2];
 	size_t k, m = 0;
-	int j, b;
+	int j;
 
 	o = cw_calloc(n > 0 ? n : 1, sizeof(*o));
 	for (k = 0; k < n; k++) {
@@ -660,47 +673,19 @@ fit_run(struct run *r, struct dev **devs, size_t n, struct csvout *w)
 	    r->conf.model->ref_temp_c, &e);
 	ref[1] = r->conf.model->damage_at(WEAR_EOL_FADE) / (e.full * 86400.0);
 	csvout_header(w, HEADER_FIT);
-	csvout_str(w, "packs");
-	csvout_num(w, (double)f.n);
-	csvout_num(w, (double)f.n);
-	csvout_num(w, CW_MISSING);
-	csvout_endrow(w);
-	for (j = 0; j < 2; j++) {
-		csvout_str(w, j == 0 ? "cycle_scale" : "calendar_scale");
-		csvout_num(w, f.scale[0][j]);
-		csvout_num(w, f.scale[1][j]);
-		csvout_num(w, f.se[j]);
-		csvout_endrow(w);
-	}
+	fit_row(w, "packs", (double)f.n, (double)f.n, CW_MISSING);
+	fit_row(w, "cycle_scale", f.scale[0][0], f.scale[1][0], f.se[0]);
+	fit_row(w, "calendar_scale", f.scale[0][1], f.scale[1][1], f.se[1]);
 	/* A life is ref / scale; its error by the first-order rule. */
-	for (j = 0; j < 2; j++) {
-		csvout_str(w, life[j]);
-		for (b = 0; b < 2; b++)
-			csvout_num(w, ref[j] / f.scale[b][j]);
-		v = f.se[j] * ref[j] / (f.scale[1][j] * f.scale[1][j]);
-		csvout_num(w, v);
-		csvout_endrow(w);
-	}
-	csvout_str(w, "scale_correlation");
-	csvout_num(w, CW_MISSING);
-	csvout_num(w, f.corr);
-	csvout_num(w, CW_MISSING);
-	csvout_endrow(w);
-	csvout_str(w, "rms_error_pct");
-	csvout_num(w, f.rms[0]);
-	csvout_num(w, f.rms[1]);
-	csvout_num(w, CW_MISSING);
-	csvout_endrow(w);
-	csvout_str(w, "mean_error_pct");
-	csvout_num(w, f.bias[0]);
-	csvout_num(w, f.bias[1]);
-	csvout_num(w, CW_MISSING);
-	csvout_endrow(w);
-	csvout_str(w, "median_days_to_eol");
-	csvout_num(w, f.eol_median[0]);
-	csvout_num(w, f.eol_median[1]);
-	csvout_num(w, CW_MISSING);
-	csvout_endrow(w);
+	for (j = 0; j < 2; j++)
+		fit_row(w, life[j], ref[j] / f.scale[0][j],
+		    ref[j] / f.scale[1][j], f.se[j] * ref[j] /
+		    (f.scale[1][j] * f.scale[1][j]));
+	fit_row(w, "scale_correlation", CW_MISSING, f.corr, CW_MISSING);
+	fit_row(w, "rms_error_pct", f.rms[0], f.rms[1], CW_MISSING);
+	fit_row(w, "mean_error_pct", f.bias[0], f.bias[1], CW_MISSING);
+	fit_row(w, "median_days_to_eol", f.eol_median[0], f.eol_median[1],
+	    CW_MISSING);
 	free(o);
 }
 
