@@ -8,6 +8,9 @@
 #
 #   gnuplot -e "in='wear.csv'; out='measured.png'" scripts/plot-measured.gp
 #
+# gnuplot reads a quoted name with a comma whole, but not RFC 4180's
+# doubled quote inside one: such a label is cut at it (the point stands).
+#
 # Optional: title='...', width=, height= (pixels).
 if (!exists("in")) in = 'cw-wear.csv'
 if (!exists("out")) out = 'measured.png'
