@@ -15,6 +15,7 @@ LIBSRC  = $(wildcard lib/*.c)
 LIBOBJ  = $(patsubst lib/%.c,build/lib/%.o,$(LIBSRC))
 LIBHDR  = $(wildcard lib/*.h)
 MAN     = $(wildcard man/*.1)
+MAN7    = $(wildcard man/*.7)
 UNITSRC = $(wildcard tests/unit/test_*.c)
 UNIT    = $(patsubst tests/unit/%.c,build/tests/%,$(UNITSRC))
 TOOLSRC = $(wildcard tests/tools/*.c)
@@ -100,22 +101,25 @@ bench: all
 	scripts/bench.sh
 
 # make demo: an invented fleet through every tool, plots and a report.
-demo: all
+demo: deps all
 	@DEMO_NOBUILD=1 scripts/demo.sh
 
 lint:
-	mandoc -Tlint -Wwarning $(MAN)
+	mandoc -Tlint -Wwarning $(MAN) $(MAN7)
 
 install: $(BIN)
 	mkdir -p $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(MANPREFIX)/man1
 	cp -f $(BIN) $(DESTDIR)$(PREFIX)/bin/
 	cp -f $(MAN) $(DESTDIR)$(MANPREFIX)/man1/
+	mkdir -p $(DESTDIR)$(MANPREFIX)/man7
+	cp -f $(MAN7) $(DESTDIR)$(MANPREFIX)/man7/
 	mkdir -p $(DESTDIR)$(PREFIX)/share/cellwear
 	cp -f scripts/slurm-day.sh scripts/slurm-merge.sh $(DESTDIR)$(PREFIX)/share/cellwear/
 
 uninstall:
 	for f in $(BIN); do rm -f $(DESTDIR)$(PREFIX)/$$f; done
 	for f in $(MAN); do rm -f $(DESTDIR)$(MANPREFIX)/man1/$${f#man/}; done
+	for f in $(MAN7); do rm -f $(DESTDIR)$(MANPREFIX)/man7/$${f#man/}; done
 
 clean:
 	rm -rf bin build

@@ -5,8 +5,6 @@
  * lib/capacity.c (segments, the estimate, the trend) and lib/theilsen.c
  * (the robust fit); this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -16,9 +14,11 @@
 #include "cw.h"
 #include "dcir.h"
 #include "devtab.h"
+#include "finish.h"
 #include "fleet.h"
 #include "ocv.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "sampin.h"
 
@@ -60,13 +60,62 @@ struct tool {
 };
 
 enum {
-	OPT_CELLS = 256, OPT_CONFIDENCE, OPT_EOL, OPT_FLEET, OPT_JUMP,
+	OPT_CELLS = OPTAB_LONG, OPT_CONFIDENCE, OPT_EOL, OPT_FLEET, OPT_JUMP,
 	OPT_MAX_GAP, OPT_MAX_POINTS, OPT_MAX_REST, OPT_MIN_CURRENT,
 	OPT_MIN_ESTIMATES, OPT_MIN_SWING, OPT_OCV, OPT_OCV_REST, OPT_OCV_SPAN,
-	OPT_RATED, OPT_REJECTS, OPT_TEMP, OPT_VERSION
+	OPT_RATED, OPT_REJECTS, OPT_TEMP
 };
 
-static void	usage(FILE *fp);
+static const struct optab opts[] = {
+	{ "cells", 0, "N", "cells in series, for --ocv", "1", OPT_CELLS },
+	{ "confidence", 0, "P", "confidence level of the slope's interval",
+	    "0.95", OPT_CONFIDENCE },
+	{ "eol", 0, "PCT", "end of life at PCT percent of the rated "
+	    "capacity", "80", OPT_EOL },
+	{ "fleet", 0, "FILE", "the fleet file; its capacity_ah is the rating",
+	    NULL, OPT_FLEET },
+	{ "jump", 0, "PTS", "SoC points a step may differ from what its "
+	    "charge explains before it is a jump", "2", OPT_JUMP },
+	{ "max-gap", 0, "DUR", "rows further apart end a segment", "15m",
+	    OPT_MAX_GAP },
+	{ "max-points", 0, "N", "estimates kept per device for the trend",
+	    "2048", OPT_MAX_POINTS },
+	{ "max-rest", 0, "DUR", "longest pause inside a segment", "5m",
+	    OPT_MAX_REST },
+	{ "min-current", 0, "A", "smallest current of a segment's rows",
+	    "0.1", OPT_MIN_CURRENT },
+	{ "min-estimates", 0, "N", "fewest estimates for a trend", "5",
+	    OPT_MIN_ESTIMATES },
+	{ "min-swing", 0, "PCT", "smallest SoC change of an estimate", "20",
+	    OPT_MIN_SWING },
+	{ "ocv", 0, "FILE", "SoC from the rest voltage by this OCV table, not "
+	    "from soc_pct", NULL, OPT_OCV },
+	{ "ocv-rest", 0, "DUR", "rest before a voltage is an OCV point",
+	    "30m", OPT_OCV_REST },
+	{ "ocv-span", 0, "DUR", "longest time between two OCV points", "1d",
+	    OPT_OCV_SPAN },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "rated", 0, "AH", "rated capacity of every pack", "none",
+	    OPT_RATED },
+	{ "rejects", 0, "FILE", "write the rejected segments and why to FILE",
+	    NULL, OPT_REJECTS },
+	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0 },
+	{ "temp", 0, "LO,HI | any", "temperature window; any: none",
+	    "10,45", OPT_TEMP },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-capacity", "[FILE ...]",
+	"Measured capacity by coulomb counting over charge and discharge\n"
+	"segments, and its fade per device.\n",
+	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
+	"one).  Durations take 90, 90s, 15m, 2h, 1d.\n",
+	opts
+};
+
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static int	on_est(struct tool *t, struct dev *d, const struct cap_est *e);
 static void	write_est(struct csvout *w, const struct dev *d,
@@ -75,61 +124,6 @@ static void	write_trend(struct tool *t, struct dev *d);
 static void	report(const struct tool *t, const struct devtab *devs,
 		    const struct sampin_stats *st);
 static void	free_devs(struct devtab *devs);
-
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-capacity [-htv] [--cells N] [--confidence P] "
-	    "[--eol PCT]\n"
-	    "                   [--fleet FILE] [--jump PTS] [--max-gap DUR] "
-	    "[--max-points N]\n"
-	    "                   [--max-rest DUR] [--min-current A] "
-	    "[--min-estimates N]\n"
-	    "                   [--min-swing PCT] [-o FILE] [--ocv FILE] "
-	    "[--ocv-rest DUR]\n"
-	    "                   [--ocv-span DUR] [--rated AH] "
-	    "[--rejects FILE]\n"
-	    "                   [--temp LO,HI | any] [--version] "
-	    "[FILE ...]\n");
-	fputs(
-"\n"
-"Measured capacity by coulomb counting over charge and discharge segments,\n"
-"and its fade per device.\n"
-"\n"
-"      --cells N           cells in series, for --ocv (default 1)\n"
-"      --confidence P      confidence level of the slope's interval\n"
-"                          (default 0.95)\n"
-"      --eol PCT           end of life at PCT percent of the rated\n"
-"                          capacity (default 80)\n"
-"      --fleet FILE        the fleet file; its capacity_ah is the rating\n"
-"  -h, --help              print this help and exit\n"
-"      --jump PTS          SoC points a step may differ from what its\n"
-"                          charge explains before it is a jump (default 2)\n"
-"      --max-gap DUR       rows further apart end a segment (default 15m)\n"
-"      --max-points N      estimates kept per device for the trend\n"
-"                          (default 2048)\n"
-"      --max-rest DUR      longest pause inside a segment (default 5m)\n"
-"      --min-current A     smallest current of a segment's rows\n"
-"                          (default 0.1)\n"
-"      --min-estimates N   fewest estimates for a trend (default 5)\n"
-"      --min-swing PCT     smallest SoC change of an estimate (default 20)\n"
-"  -o, --output FILE       write to FILE atomically, not standard output\n"
-"      --ocv FILE          SoC from the rest voltage by this OCV table,\n"
-"                          not from soc_pct\n"
-"      --ocv-rest DUR      rest before a voltage is an OCV point\n"
-"                          (default 30m)\n"
-"      --ocv-span DUR      longest time between two OCV points (default 1d)\n"
-"      --rated AH          rated capacity of every pack (default none)\n"
-"      --rejects FILE      write the rejected segments and why to FILE\n"
-"  -t, --trend             one row per device with the trend\n"
-"      --temp LO,HI        temperature window (default 10,45); any: none\n"
-"  -v, --verbose           report counts on standard error\n"
-"      --version           print the version and exit\n"
-"\n"
-"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one).\n"
-"Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
-}
 
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
@@ -169,12 +163,8 @@ on_est(struct tool *t, struct dev *d, const struct cap_est *e)
 		    e->capacity_ah, CW_MISSING, t->max_points);
 	else
 		write_est(&t->out, d, e, 0);
-	if (t->out.err || t->rej.err) {
-		/* Say so here: sampin_run() only passes the exit code on. */
-		cw_warn("write error: %s", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	return 0;
+	/* A write error stops the run; cw_finish() tells it. */
+	return t->out.err || t->rej.err ? CW_EXIT_DATA : 0;
 }
 
 static void
@@ -281,83 +271,50 @@ free_devs(struct devtab *devs)
 	devtab_free(devs);
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into T, the paths of the output and of the rejects into
+ * *OUTPATH and *REJPATH; the index of the first operand.
+ */
+static int
+parse(struct tool *t, int argc, char *argv[], const char **outpath,
+    const char **rejpath)
 {
-	static const struct option longopts[] = {
-		{ "cells", required_argument, NULL, OPT_CELLS },
-		{ "confidence", required_argument, NULL, OPT_CONFIDENCE },
-		{ "eol", required_argument, NULL, OPT_EOL },
-		{ "fleet", required_argument, NULL, OPT_FLEET },
-		{ "help", no_argument, NULL, 'h' },
-		{ "jump", required_argument, NULL, OPT_JUMP },
-		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
-		{ "max-points", required_argument, NULL, OPT_MAX_POINTS },
-		{ "max-rest", required_argument, NULL, OPT_MAX_REST },
-		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
-		{ "min-estimates", required_argument, NULL, OPT_MIN_ESTIMATES },
-		{ "min-swing", required_argument, NULL, OPT_MIN_SWING },
-		{ "ocv", required_argument, NULL, OPT_OCV },
-		{ "ocv-rest", required_argument, NULL, OPT_OCV_REST },
-		{ "ocv-span", required_argument, NULL, OPT_OCV_SPAN },
-		{ "output", required_argument, NULL, 'o' },
-		{ "rated", required_argument, NULL, OPT_RATED },
-		{ "rejects", required_argument, NULL, OPT_REJECTS },
-		{ "temp", required_argument, NULL, OPT_TEMP },
-		{ "trend", no_argument, NULL, 't' },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ NULL, 0, NULL, 0 }
-	};
-	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of, *rf = NULL;
-	struct cap_est e;
-	const char *outpath = NULL, *rejpath = NULL, *fleetpath = NULL;
-	const char *ocvpath = NULL;
+	struct optparse op;
+	const char *fleetpath = NULL, *ocvpath = NULL;
 	double w[2];
-	void **sorted;
-	size_t i, n;
-	int ch, rc;
+	int ch;
 
-	cw_setprog("cw-capacity");
-	memset(&t, 0, sizeof(t));
-	cap_conf_default(&t.conf);
-	cap_trend_conf_default(&t.tconf);
-	t.max_points = MAX_POINTS_DEFAULT;
-	t.rated = CW_MISSING;
-	t.cells = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":ho:tv", longopts, NULL)) !=
-	    -1) {
+	cap_conf_default(&t->conf);
+	cap_trend_conf_default(&t->tconf);
+	t->max_points = MAX_POINTS_DEFAULT;
+	t->rated = CW_MISSING;
+	t->cells = 1;
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
 		case 'o':
-			outpath = optarg;
+			*outpath = optarg;
 			break;
 		case 't':
-			t.trend = 1;
+			t->trend = 1;
 			break;
 		case 'v':
 			cw_verbose = 1;
 			break;
 		case OPT_CELLS:
-			t.cells = (int)opt_long_arg("--cells", optarg, 1, 1000);
+			t->cells = (int)opt_long_arg("--cells", optarg, 1,
+			    1000);
 			break;
 		case OPT_CONFIDENCE:
-			t.tconf.conf = opt_num_arg("--confidence", optarg,
+			t->tconf.conf = opt_num_arg("--confidence", optarg,
 			    0.5, 1);
-			if (t.tconf.conf <= 0.5 || t.tconf.conf >= 1)
+			if (t->tconf.conf <= 0.5 || t->tconf.conf >= 1)
 				cw_usage_error("--confidence: %s is not "
 				    "between 0.5 and 1 (exclusive)", optarg);
 			break;
 		case OPT_EOL:
-			t.tconf.eol_pct = opt_num_arg("--eol", optarg, 0, 100);
-			if (t.tconf.eol_pct <= 0 || t.tconf.eol_pct >= 100)
+			t->tconf.eol_pct = opt_num_arg("--eol", optarg, 0, 100);
+			if (t->tconf.eol_pct <= 0 || t->tconf.eol_pct >= 100)
 				cw_usage_error("--eol: %s is not between 0 "
 				    "and 100 (exclusive)", optarg);
 			break;
@@ -365,33 +322,33 @@ main(int argc, char *argv[])
 			fleetpath = optarg;
 			break;
 		case OPT_JUMP:
-			t.conf.jump = opt_num_arg("--jump", optarg, 0, 100);
+			t->conf.jump = opt_num_arg("--jump", optarg, 0, 100);
 			break;
 		case OPT_MAX_GAP:
-			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
 			break;
 		case OPT_MAX_POINTS:
-			t.max_points = (size_t)opt_long_arg("--max-points",
+			t->max_points = (size_t)opt_long_arg("--max-points",
 			    optarg, 16, 1L << 24);
 			break;
 		case OPT_MAX_REST:
-			t.conf.max_rest = opt_dur_arg("--max-rest", optarg, 0);
+			t->conf.max_rest = opt_dur_arg("--max-rest", optarg, 0);
 			break;
 		case OPT_MIN_CURRENT:
-			t.conf.min_current = opt_num_arg("--min-current",
+			t->conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
-			if (t.conf.min_current <= 0)
+			if (t->conf.min_current <= 0)
 				cw_usage_error("--min-current: %s is not above "
 				    "0", optarg);
 			break;
 		case OPT_MIN_ESTIMATES:
-			t.tconf.min_estimates = (unsigned long)opt_long_arg(
+			t->tconf.min_estimates = (unsigned long)opt_long_arg(
 			    "--min-estimates", optarg, 2, 1000000000L);
 			break;
 		case OPT_MIN_SWING:
-			t.conf.min_swing = opt_num_arg("--min-swing", optarg,
+			t->conf.min_swing = opt_num_arg("--min-swing", optarg,
 			    0, 100);
-			if (t.conf.min_swing <= 0)
+			if (t->conf.min_swing <= 0)
 				cw_usage_error("--min-swing: %s is not above 0",
 				    optarg);
 			break;
@@ -399,46 +356,63 @@ main(int argc, char *argv[])
 			ocvpath = optarg;
 			break;
 		case OPT_OCV_REST:
-			t.conf.ocv_rest = opt_dur_arg("--ocv-rest", optarg, 0);
+			t->conf.ocv_rest = opt_dur_arg("--ocv-rest", optarg, 0);
 			break;
 		case OPT_OCV_SPAN:
-			t.conf.ocv_span = opt_dur_arg("--ocv-span", optarg, 0);
+			t->conf.ocv_span = opt_dur_arg("--ocv-span", optarg, 0);
 			break;
 		case OPT_RATED:
-			t.rated = opt_num_arg("--rated", optarg, 0, 1e9);
-			if (t.rated <= 0)
+			t->rated = opt_num_arg("--rated", optarg, 0, 1e9);
+			if (t->rated <= 0)
 				cw_usage_error("--rated: %s is not above 0",
 				    optarg);
 			break;
 		case OPT_REJECTS:
-			rejpath = optarg;
+			*rejpath = optarg;
 			break;
 		case OPT_TEMP:
 			if (strcmp(optarg, "any") == 0) {
-				t.conf.temp_any = 1;
+				t->conf.temp_any = 1;
 				break;
 			}
 			opt_list_arg("--temp", optarg, w, 2, 1, 1);
-			t.conf.temp_any = 0;
-			t.conf.temp_lo = w[0];
-			t.conf.temp_hi = w[1];
+			t->conf.temp_any = 0;
+			t->conf.temp_lo = w[0];
+			t->conf.temp_hi = w[1];
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
-	if (rejpath != NULL && strcmp(rejpath, "-") == 0)
+	optab_free(&op);
+	if (*rejpath != NULL && strcmp(*rejpath, "-") == 0)
 		cw_usage_error("--rejects: standard output holds the "
 		    "estimates; name a file");
 
 	if (fleetpath != NULL)
-		t.fleet = fleet_load(fleetpath);
+		t->fleet = fleet_load(fleetpath);
 	if (ocvpath != NULL)
-		t.ocv = ocv_load(ocvpath);
+		t->ocv = ocv_load(ocvpath);
+	return optind;
+}
+
+int
+main(int argc, char *argv[])
+{
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of, *rf = NULL;
+	struct cap_est e;
+	const char *outpath = NULL, *rejpath = NULL;
+	void **sorted;
+	size_t i, n;
+	int rc, k;
+
+	cw_setprog("cw-capacity");
+	memset(&t, 0, sizeof(t));
+	k = parse(&t, argc, argv, &outpath, &rejpath);
+	argc -= k;
+	argv += k;
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
@@ -480,43 +454,23 @@ main(int argc, char *argv[])
 		    "it on %lu: is current_a positive while charging? "
 		    "(cw-clean --charge-negative)", t.cnt.against,
 		    t.cnt.with);
-	if (rc != 0) {
-		/* Complete rows written so far stay; the output is not
-		 * committed, so -o FILE keeps its old contents. */
-		csvout_flush(&t.out);
-		csvout_free(&t.out);
-		if (t.has_rej)
-			csvout_free(&t.rej);
-		free_devs(devs);
-		fleet_free(t.fleet);
-		ocv_free(t.ocv);
-		return rc;
-	}
-	if (t.trend) {
+	if (rc == 0 && t.trend) {
 		sorted = devtab_sorted(devs);
 		n = devtab_count(devs);
 		for (i = 0; i < n; i++)
 			write_trend(&t, sorted[i]);
 		free(sorted);
 	}
-	if (csvout_flush(&t.out) != 0) {
-		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
-		    "standard output", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	if (t.has_rej && csvout_flush(&t.rej) != 0) {
-		cw_warn("%s: write error: %s", rejpath, strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	if (t.has_rej && outf_commit(rf) != 0)
-		return CW_EXIT_DATA;
-	if (outf_commit(of) != 0)
-		return CW_EXIT_DATA;
-	csvout_free(&t.out);
-	if (t.has_rej)
+	/* After a data error, complete rows written so far stay; -o FILE
+	 * is not committed and keeps its old contents. */
+	if (t.has_rej) {
+		rc = cw_finish(&t.rej, rf, rejpath, rc);
 		csvout_free(&t.rej);
+	}
+	rc = cw_finish(&t.out, of, outpath, rc);
+	csvout_free(&t.out);
 	free_devs(devs);
 	fleet_free(t.fleet);
 	ocv_free(t.ocv);
-	return CW_EXIT_OK;
+	return rc;
 }

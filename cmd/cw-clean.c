@@ -16,7 +16,7 @@
 enum {
 	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_CHARGE_SIGN,
 	OPT_DECIMAL_COMMA,
-	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_MAX_GAP, OPT_MAX_REJECT,
+	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_KEEP, OPT_MAX_GAP, OPT_MAX_REJECT,
 	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SOC_FROM_CHARGE, OPT_STEP,
 	OPT_TZ,
 	OPT_VERSION
@@ -33,6 +33,7 @@ static const struct option longopts[] = {
 	{ "device", required_argument, NULL, OPT_DEVICE },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
 	{ "help", no_argument, NULL, 'h' },
+	{ "keep", required_argument, NULL, OPT_KEEP },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
 	{ "max-reject", required_argument, NULL, OPT_MAX_REJECT },
 	{ "output", required_argument, NULL, 'o' },
@@ -61,13 +62,14 @@ usage(FILE *fp, int status)
 "                [--cells n] [--charge-negative] [--charge-sign sign]\n"
 "                [--decimal-comma]\n"
 "                [--device name | @file] [--full-voltage volts]\n"
+"                [--keep col[,col...]]\n"
 "                [--max-gap duration] [--max-reject fraction]\n"
 "                [--rejects file] [--reorder duration] [--sentinel list]\n"
 "                [--soc-from-charge ah] [--step duration] [--tz +hh:mm]\n"
 "                [file ...]\n"
 "\n"
 "Clean raw battery gauge logs (plain or gzip) into the sample stream\n"
-"device,time,voltage_v,current_a,temp_c,soc_pct.\n"
+"device,time,voltage_v,current_a,temp_c,soc_pct (then the --keep columns).\n"
 "\n"
 "  -c, --columns spec      field=header[:unit],... for device, time (iso|s|ms|us),\n"
 "                          date (a date column beside a time of day),\n"
@@ -82,6 +84,9 @@ usage(FILE *fp, int status)
 "      --charge-negative   the log counts charging current as negative\n"
 "      --charge-sign sign  auto, positive or negative: the sign of charging\n"
 "                          current in the log (default auto: per file)\n"
+"      --keep col,...      raw columns (at most 8) carried after soc_pct under\n"
+"                          their own names, values as read; with --step the\n"
+"                          last raw row's in the interval (default none)\n"
 "      --tz +hh:mm         offset of local times without a zone (default UTC)\n"
 "      --cells n           series cells per pack (voltage bounds 1.5..5.0 V per cell)\n"
 "      --bounds f=lo:hi    plausible range of voltage, current, temp or soc\n"
@@ -263,6 +268,10 @@ main(int argc, char *argv[])
 			break;
 		case OPT_FULL_VOLTAGE:
 			full_v = opt_num_arg("--full-voltage", optarg, 0.1, 1e4);
+			break;
+		case OPT_KEEP:
+			if (clean_keep_parse(&c, optarg, &err) < 0)
+				cw_usage_error("--keep: %s: '%s'", err, optarg);
 			break;
 		case OPT_MAX_GAP:
 			c.max_gap = opt_dur_arg("--max-gap", optarg, 0);

@@ -2,8 +2,6 @@
  * cw-rainflow: rainflow cycle counting per device (ASTM E1049-85) over
  * the sample stream.  The counting is lib/rainflow.c; this is the glue.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -11,7 +9,9 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "finish.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "rainflow.h"
 #include "sampin.h"
@@ -19,8 +19,36 @@
 enum { OUT_CYCLES, OUT_HISTOGRAM, OUT_MATRIX, OUT_SUMMARY };
 
 enum {
-	OPT_HISTOGRAM = 256, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
-	OPT_SIGNAL, OPT_VERSION
+	OPT_HISTOGRAM = OPTAB_LONG, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
+	OPT_SIGNAL
+};
+
+static const struct optab opts[] = {
+	{ "histogram", 0, "WIDTH", "one row per range bin of width WIDTH",
+	    NULL, OPT_HISTOGRAM },
+	{ "hysteresis", 0, "X", "ignore reversals smaller than X", "1",
+	    OPT_HYSTERESIS },
+	{ "matrix", 0, "WIDTH[,MEAN_WIDTH]", "the range-mean matrix, range "
+	    "bins WIDTH wide and mean bins MEAN_WIDTH wide", "WIDTH",
+	    OPT_MATRIX },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "residue", 0, "half|full|repeat", "count the residue as half "
+	    "cycles, full cycles, or as if the history repeated", "half",
+	    OPT_RESIDUE },
+	{ "summary", 's', NULL, "one row per device instead of one per cycle",
+	    NULL, 0 },
+	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
+	    OPT_SIGNAL },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-rainflow", "[FILE ...]",
+	"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
+	"--histogram, --matrix and --summary exclude each other.\n",
+	opts
 };
 
 /* One device's state; the devtab header comes first. */
@@ -47,7 +75,7 @@ struct run {
 	unsigned long nosig;	/* rows without a numeric signal */
 };
 
-static void usage(FILE *);
+static int parse(struct run *, int, char *[], const char **);
 static double width_arg(const char *, const char *);
 static double nonneg_arg(const char *, const char *);
 static void matrix_arg(struct run *, const char *);
@@ -56,38 +84,6 @@ static int on_row(void *, void *, const struct cw_sample *);
 static void emit(void *, const struct rf_cycle *);
 static void write_device(struct run *, struct dev *);
 static void write_summary(struct run *, struct dev *);
-static void flush_or_die(struct run *);
-
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: %s [-hsv] [--histogram WIDTH] [--hysteresis X]\n"
-	    "                   [--matrix WIDTH[,MEAN_WIDTH]] [-o FILE]\n"
-	    "                   [--residue half|full|repeat] "
-	    "[--signal COLUMN]\n"
-	    "                   [--version] [FILE ...]\n", cw_prog);
-	fputs(
-"\n"
-"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n"
-"\n"
-"  -h, --help              print this help and exit 0\n"
-"      --histogram WIDTH   one row per range bin of width WIDTH\n"
-"      --hysteresis X      ignore reversals smaller than X (default 1)\n"
-"      --matrix WIDTH[,MEAN_WIDTH]\n"
-"                          the range-mean matrix, range bins WIDTH wide and\n"
-"                          mean bins MEAN_WIDTH wide (default WIDTH)\n"
-"  -o, --output FILE       write to FILE atomically, not standard output\n"
-"      --residue half|full|repeat\n"
-"                          count the residue as half cycles, full cycles,\n"
-"                          or as if the history repeated (default half)\n"
-"  -s, --summary           one row per device instead of one per cycle\n"
-"      --signal COLUMN     count the cycles of COLUMN (default soc_pct)\n"
-"  -v, --verbose           report counts on standard error\n"
-"      --version           print the version and exit 0\n"
-"\n"
-"--histogram, --matrix and --summary exclude each other.\n", fp);
-}
 
 static double
 width_arg(const char *opt, const char *s)
@@ -208,11 +204,8 @@ on_row(void *ctx, void *dp, const struct cw_sample *s)
 	d->last = s->t;
 	r->cur = d;
 	rf_push(&d->rf, s->t, x, s->temp, emit, r);
-	if (r->w.err) {
-		cw_warn("write error: %s", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	return 0;
+	/* A write error stops the run; cw_finish() tells it. */
+	return r->w.err ? CW_EXIT_DATA : 0;
 }
 
 /* The rows of one device at the end of the stream. */
@@ -269,29 +262,68 @@ write_summary(struct run *r, struct dev *d)
 	csvout_endrow(&r->w);
 }
 
-static void
-flush_or_die(struct run *r)
+/*
+ * The options into R, the output's path into *OUTPATH; the index of the
+ * first operand.
+ */
+static int
+parse(struct run *r, int argc, char *argv[], const char **outpath)
 {
-	if (csvout_flush(&r->w) != 0)
-		cw_die(CW_EXIT_DATA, "write error: %s", strerror(errno));
+	struct optparse op;
+	int ch, nout = 0;
+
+	r->out = OUT_CYCLES;
+	r->residue = RF_RESIDUE_HALF;
+	r->hyst = 1;
+	r->rw = 1;
+	signal_arg(r, "soc_pct");
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
+		switch (ch) {
+		case 'o':
+			*outpath = optarg;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_HISTOGRAM:
+			r->out = OUT_HISTOGRAM;
+			r->rw = width_arg("--histogram", optarg);
+			nout++;
+			break;
+		case OPT_HYSTERESIS:
+			r->hyst = nonneg_arg("--hysteresis", optarg);
+			break;
+		case OPT_MATRIX:
+			r->out = OUT_MATRIX;
+			matrix_arg(r, optarg);
+			nout++;
+			break;
+		case OPT_RESIDUE:
+			if ((r->residue = rf_residue_parse(optarg)) < 0)
+				cw_usage_error("--residue: '%s' is not half, "
+				    "full or repeat", optarg);
+			break;
+		case OPT_SIGNAL:
+			signal_arg(r, optarg);
+			break;
+		case 's':
+			r->out = OUT_SUMMARY;
+			nout++;
+			break;
+		}
+	}
+	optab_free(&op);
+	if (nout > 1)
+		cw_usage_error("--histogram, --matrix and --summary exclude "
+		    "each other");
+	r->efc = strcmp(r->signal, "soc_pct") == 0;
+	return optind;
 }
 
 int
 main(int argc, char *argv[])
 {
-	static const struct option longopts[] = {
-		{ "help", no_argument, NULL, 'h' },
-		{ "histogram", required_argument, NULL, OPT_HISTOGRAM },
-		{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
-		{ "matrix", required_argument, NULL, OPT_MATRIX },
-		{ "output", required_argument, NULL, 'o' },
-		{ "residue", required_argument, NULL, OPT_RESIDUE },
-		{ "signal", required_argument, NULL, OPT_SIGNAL },
-		{ "summary", no_argument, NULL, 's' },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ NULL, 0, NULL, 0 }
-	};
 	static const char *const header[] = {
 		"device,range,mean,count,start,end,temp_c",
 		"device,range_lo,range_hi,cycles",
@@ -305,64 +337,11 @@ main(int argc, char *argv[])
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
-	int ch, nout = 0, rc;
+	int rc, k;
 
 	cw_setprog("cw-rainflow");
 	memset(&r, 0, sizeof(r));
-	r.out = OUT_CYCLES;
-	r.residue = RF_RESIDUE_HALF;
-	r.hyst = 1;
-	r.rw = 1;
-	signal_arg(&r, "soc_pct");
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":ho:sv", longopts, NULL)) !=
-	    -1) {
-		switch (ch) {
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
-		case 'o':
-			outpath = optarg;
-			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
-		case OPT_HISTOGRAM:
-			r.out = OUT_HISTOGRAM;
-			r.rw = width_arg("--histogram", optarg);
-			nout++;
-			break;
-		case OPT_HYSTERESIS:
-			r.hyst = nonneg_arg("--hysteresis", optarg);
-			break;
-		case OPT_MATRIX:
-			r.out = OUT_MATRIX;
-			matrix_arg(&r, optarg);
-			nout++;
-			break;
-		case OPT_RESIDUE:
-			if ((r.residue = rf_residue_parse(optarg)) < 0)
-				cw_usage_error("--residue: '%s' is not half, "
-				    "full or repeat", optarg);
-			break;
-		case OPT_SIGNAL:
-			signal_arg(&r, optarg);
-			break;
-		case 's':
-			r.out = OUT_SUMMARY;
-			nout++;
-			break;
-		case OPT_VERSION:
-			cw_print_version();
-			break;
-		default:
-			opt_getopt_fail(ch, argv);
-		}
-	}
-	if (nout > 1)
-		cw_usage_error("--histogram, --matrix and --summary exclude "
-		    "each other");
-	r.efc = strcmp(r.signal, "soc_pct") == 0;
+	k = parse(&r, argc, argv, &outpath);
 
 	memset(&conf, 0, sizeof(conf));
 	conf.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
@@ -376,23 +355,19 @@ main(int argc, char *argv[])
 	o = outf_open(outpath);
 	csvout_init(&r.w, outf_fp(o));
 	csvout_header(&r.w, header[r.out]);
-	rc = sampin_run(&conf, argv + optind, argc - optind, &st);
-	if (rc != 0) {
+	rc = sampin_run(&conf, argv + k, argc - k, &st);
+	if (rc != 0)
 		/*
 		 * Rows written to standard output stay (they are whole); an
 		 * output file is not put in place.
 		 */
-		csvout_flush(&r.w);
-		outf_abort(o);
-		return rc;
-	}
+		return cw_finish(&r.w, o, outpath, rc);
 	sorted = devtab_sorted(r.devs);
 	n = devtab_count(r.devs);
 	for (i = 0; i < n; i++)
 		write_device(&r, sorted[i]);
-	flush_or_die(&r);
-	if (outf_commit(o) != 0)
-		return CW_EXIT_DATA;
+	if ((rc = cw_finish(&r.w, o, outpath, CW_EXIT_OK)) != 0)
+		return rc;
 
 	if (cw_verbose) {
 		struct rf_sum all = { 0 };

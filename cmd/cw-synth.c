@@ -13,11 +13,16 @@
 #include "synth.h"
 #include "ts.h"
 
-enum { OPT_AGING = 256, OPT_MIX, OPT_TZ, OPT_VERSION };
+enum {
+	OPT_AGING = 256, OPT_CHARGE_SIGN, OPT_DOCKS, OPT_MIX, OPT_TZ,
+	OPT_VERSION
+};
 
 static const struct option longopts[] = {
 	{ "aging", required_argument, NULL, OPT_AGING },
+	{ "charge-sign", required_argument, NULL, OPT_CHARGE_SIGN },
 	{ "days", required_argument, NULL, 'd' },
+	{ "docks", no_argument, NULL, OPT_DOCKS },
 	{ "devices", required_argument, NULL, 'n' },
 	{ "faults", required_argument, NULL, 'F' },
 	{ "format", required_argument, NULL, 'f' },
@@ -47,8 +52,8 @@ usage(FILE *fp, int status)
 	fprintf(fp,
 "usage: cw-synth [-hv] [-d days] [-F faults] [-f format] [-n devices]\n"
 "                [-o dir] [-p period] [-S date] [-s seed] [-z level]\n"
-"                [--aging factor] [--mix deep,topup,idle,nocutoff]\n"
-"                [--tz +hh:mm]\n"
+"                [--aging factor] [--charge-sign sign] [--docks]\n"
+"                [--mix deep,topup,idle,nocutoff] [--tz +hh:mm]\n"
 "\n"
 "Simulate an invented bike-share fleet of 10-cell 14 Ah e-bike packs and\n"
 "write its raw gauge logs, one gzipped file per local day, with the truth\n"
@@ -66,6 +71,13 @@ usage(FILE *fp, int status)
 "  -F, --faults list   none, default, or name=rate,... for dup, late, stale,\n"
 "                      trunc, sentinel (per row), gap, jump (per device and\n"
 "                      day), header (per file); 0 disables one\n"
+"      --charge-sign s how the raw logs count charging current: positive or\n"
+"                      negative in every format (default: each format's own,\n"
+"                      a negative, b positive)\n"
+"      --docks         a dock column in the raw logs (depot, dock-01 ..\n"
+"                      dock-07, empty when away), and packs hop between\n"
+"                      docks (dock-07 has no cut-off; default: each pack at\n"
+"                      its own dock, no column)\n"
 "      --mix w,w,w,w   weights of the profiles deep-depot, topup-dock,\n"
 "                      idle-dock, topup-nocutoff (default 3,3,3,1)\n"
 "      --aging x       multiply every growth and fade rate (default 1)\n"
@@ -203,6 +215,18 @@ main(int argc, char *argv[])
 			break;
 		case OPT_AGING:
 			c.aging = opt_num_arg("--aging", optarg, 0, 1000);
+			break;
+		case OPT_CHARGE_SIGN:
+			if (strcmp(optarg, "positive") == 0)
+				c.charge_sign = 1;
+			else if (strcmp(optarg, "negative") == 0)
+				c.charge_sign = -1;
+			else
+				cw_usage_error("--charge-sign: '%s' is not "
+				    "positive or negative", optarg);
+			break;
+		case OPT_DOCKS:
+			c.docks = 1;
 			break;
 		case OPT_MIX:
 			opt_list_arg("--mix", optarg, c.mix, SYNTH_NPROFILE, 0,

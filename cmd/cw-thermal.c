@@ -33,6 +33,19 @@
 struct dev {
 	struct devent e;
 	struct thermal_dev th;
+	struct byval *val;	/* --by: the value of its last row */
+};
+
+/*
+ * --by: one value of the column, with what the summary counts for it.
+ * Its tag (thermal_dev.tag) is its insertion index plus 1.
+ */
+struct byval {
+	struct devent e;
+	struct thermal_ah ah;
+	unsigned long events[THERMAL_NKIND][THERMAL_NZONE];
+	unsigned long protocol[THERMAL_NPROTO];
+	unsigned long devices;	/* with a row at this value */
 };
 
 struct tool {
@@ -42,11 +55,14 @@ struct tool {
 	double cap_ah;		/* --capacity; NaN: unknown */
 	int cells;		/* --cells; 0: unknown */
 	int summary;
+	const char *by;		/* --by COL, or NULL */
+	struct devtab *vals;	/* --by: struct byval by value */
+	struct devtab *pairs;	/* --by: value and device seen together */
 };
 
 enum {
 	OPT_CAPACITY = 256, OPT_CELLS, OPT_COOL_MARGIN, OPT_COOL_RATE,
-	OPT_FLEET, OPT_HYST, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
+	OPT_BY, OPT_FLEET, OPT_HYST, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
 	OPT_MIN_CURRENT, OPT_MIN_DURATION, OPT_USE_LIMITS, OPT_VERSION,
 	OPT_WARM_MARGIN, OPT_WARM_VOLTAGE
 };
@@ -56,29 +72,38 @@ static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
 static void	write_summary(struct tool *t, const struct dev *d);
+static struct byval *by_value(struct tool *t, struct dev *d,
+		    const struct cw_sample *s);
+static void	write_by_header(struct tool *t);
+static double	ah_total(const struct thermal_ah *a);
+static void	write_outside(struct tool *t, const struct thermal_ah *a);
+static void	write_by_summary(struct tool *t, const struct byval *v);
 static void	report(const struct devtab *devs,
-		    const struct sampin_stats *st);
+		    const struct sampin_stats *st, const char *by);
 
 static void
 usage(FILE *fp)
 {
 	fprintf(fp,
-	    "usage: cw-thermal [-hsv] [--capacity AH] [--cells N] "
-	    "[--cool-margin PCT]\n"
-	    "                  [--cool-rate C] [--fleet FILE] "
-	    "[--hysteresis DT]\n"
-	    "                  [--limits T1,T2,T3,T4] [--max-gap DUR] "
-	    "[--merge DUR]\n"
-	    "                  [--min-current A] [--min-duration DUR] "
-	    "[-o FILE]\n"
-	    "                  [--use-limits LO,HI] [--version] "
-	    "[--warm-margin V]\n"
+	    "usage: cw-thermal [-hsv] [--by COL] [--capacity AH] [--cells N]\n"
+	    "                  [--cool-margin PCT] [--cool-rate C] "
+	    "[--fleet FILE]\n"
+	    "                  [--hysteresis DT] "
+	    "[--limits T1,T2,T3,T4] [--max-gap DUR]\n"
+	    "                  [--merge DUR] "
+	    "[--min-current A] [--min-duration DUR]\n"
+	    "                  [-o FILE] "
+	    "[--use-limits LO,HI] [--version] [--warm-margin V]\n"
 	    "                  [--warm-voltage V] [FILE ...]\n");
 	fputs(
 "\n"
 "Charging outside the safe temperature window, as events per device,\n"
 "judged by the charge protocol of the JEITA scheme.\n"
 "\n"
+"      --by COL              a stream column (a dock, charger or site that\n"
+"                            cw-clean --keep carried): its value at each\n"
+"                            event's start ends the event row, and\n"
+"                            --summary is one row per value (default none)\n"
 "      --capacity AH         rated capacity, for the cool-zone current\n"
 "                            (unset: unknown)\n"
 "      --cells N             cells in series, for the warm-zone voltage\n"
@@ -98,7 +123,8 @@ usage(FILE *fp)
 "                            (default 0.05)\n"
 "      --min-duration DUR    drop events shorter than DUR (default 60s)\n"
 "  -o, --output FILE         write to FILE atomically, not standard output\n"
-"  -s, --summary             one row per device instead of one per event\n"
+"  -s, --summary             one row per device (per value with --by)\n"
+"                            instead of one per event\n"
 "      --use-limits LO,HI    the window for discharge (default -20,60)\n"
 "  -v, --verbose             report counts on standard error\n"
 "      --version             print the version and exit 0\n"
@@ -128,8 +154,39 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 		d->th.cells = fleet_cells(t->fleet, d->e.name, d->e.namelen,
 		    t->cells);
 	}
+	if (t->by != NULL) {
+		struct byval *v = by_value(t, d, s);
+
+		d->th.tag = (int)v->e.index + 1;
+		d->th.tag_ah = &v->ah;
+	}
 	thermal_push_v(&d->th, &t->conf, s->t, s->i, s->temp, s->soc, s->v);
 	return t->out.err ? CW_EXIT_DATA : 0;
+}
+
+/*
+ * --by: the value of row S of device D, and the first time the device is
+ * seen at it, one more device there.  The device's last value is looked
+ * at first, since a pack stays at a dock for many rows.
+ */
+static struct byval *
+by_value(struct tool *t, struct dev *d, const struct cw_sample *s)
+{
+	struct byval *v = d->val;
+	char key[48];
+	int isnew, n;
+
+	if (v != NULL && v->e.namelen == s->taglen &&
+	    memcmp(v->e.name, s->tag, s->taglen) == 0)
+		return v;
+	v = devtab_get(t->vals, s->tag, s->taglen, NULL);
+	d->val = v;
+	/* The pair's key: the device's and the value's index. */
+	n = snprintf(key, sizeof(key), "%zu:%zu", d->e.index, v->e.index);
+	(void)devtab_get(t->pairs, key, (size_t)n, &isnew);
+	if (isnew)
+		v->devices++;
+	return v;
 }
 
 static void
@@ -138,6 +195,13 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	struct tool *t = ctx;
 	const struct dev *d;
 
+	if (t->by != NULL) {
+		struct byval *v = devtab_at(t->vals, (size_t)ev->tag - 1);
+
+		v->events[ev->kind][ev->zone]++;
+		if (ev->kind == THERMAL_CHARGE)
+			v->protocol[ev->protocol]++;
+	}
 	if (t->summary)
 		return;
 	d = (const struct dev *)(const void *)((const char *)th -
@@ -165,6 +229,86 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 		csvout_empty(&t->out);
 		csvout_empty(&t->out);
 	}
+	if (t->by != NULL) {
+		const struct byval *v = devtab_at(t->vals,
+		    (size_t)ev->tag - 1);
+
+		csvout_strn(&t->out, v->e.name, v->e.namelen);
+	}
+	csvout_endrow(&t->out);
+}
+
+/* All the charge of A, the part without a temperature included. */
+static double
+ah_total(const struct thermal_ah *a)
+{
+	double total = a->no_temp;
+	int z;
+
+	for (z = 0; z < THERMAL_NZONE; z++)
+		total += a->zone[z];
+	return total;
+}
+
+/* outside_pct: the share of A of known temperature outside T2..T3. */
+static void
+write_outside(struct tool *t, const struct thermal_ah *a)
+{
+	double known = ah_total(a) - a->no_temp;
+
+	if (known > 0)
+		csvout_num(&t->out, 100.0 * (known - a->zone[THERMAL_NORMAL]) /
+		    known);
+	else
+		csvout_empty(&t->out);
+}
+
+/* The header of the rows of --by: SPEC's columns first. */
+static void
+write_by_header(struct tool *t)
+{
+	static const char *const cols[] = {
+		"devices", "events_below_min", "events_cool", "events_warm",
+		"events_above_max", "ah_below_min", "ah_cool", "ah_warm",
+		"ah_above_max", "charge_ah", "ah_normal", "ah_no_temp",
+		"outside_pct", "use_cold_events", "use_hot_events",
+		"events_within", "events_over_current", "events_over_voltage",
+		"events_no_charge_allowed", "events_unknown_protocol"
+	};
+	size_t k;
+
+	csvout_str(&t->out, t->by);
+	for (k = 0; k < sizeof(cols) / sizeof(cols[0]); k++)
+		csvout_str(&t->out, cols[k]);
+	csvout_endrow(&t->out);
+}
+
+/* One row of --by --summary: the value V of the column. */
+static void
+write_by_summary(struct tool *t, const struct byval *v)
+{
+	static const int zones[] = { THERMAL_BELOW_MIN, THERMAL_COOL,
+	    THERMAL_WARM, THERMAL_ABOVE_MAX };
+	const unsigned long *ce = v->events[THERMAL_CHARGE];
+	size_t k;
+	int z;
+
+	csvout_strn(&t->out, v->e.name, v->e.namelen);
+	csvout_int(&t->out, (long long)v->devices);
+	for (k = 0; k < 4; k++)
+		csvout_int(&t->out, (long long)ce[zones[k]]);
+	for (k = 0; k < 4; k++)
+		csvout_num(&t->out, v->ah.zone[zones[k]]);
+	csvout_num(&t->out, ah_total(&v->ah));
+	csvout_num(&t->out, v->ah.zone[THERMAL_NORMAL]);
+	csvout_num(&t->out, v->ah.no_temp);
+	write_outside(t, &v->ah);
+	csvout_int(&t->out, (long long)v->events[THERMAL_USE]
+	    [THERMAL_BELOW_MIN]);
+	csvout_int(&t->out, (long long)v->events[THERMAL_USE]
+	    [THERMAL_ABOVE_MAX]);
+	for (z = 0; z < THERMAL_NPROTO; z++)
+		csvout_int(&t->out, (long long)v->protocol[z]);
 	csvout_endrow(&t->out);
 }
 
@@ -174,24 +318,16 @@ write_summary(struct tool *t, const struct dev *d)
 	const struct thermal_dev *th = &d->th;
 	const unsigned long *ce = th->events[THERMAL_CHARGE];
 	const unsigned long *ue = th->events[THERMAL_USE];
-	double total = th->ah.no_temp, known;
 	int z;
 
-	for (z = 0; z < THERMAL_NZONE; z++)
-		total += th->ah.zone[z];
-	known = total - th->ah.no_temp;
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_time(&t->out, th->first);
 	csvout_time(&t->out, th->prev_t);
-	csvout_num(&t->out, total);
+	csvout_num(&t->out, ah_total(&th->ah));
 	for (z = 0; z < THERMAL_NZONE; z++)
 		csvout_num(&t->out, th->ah.zone[z]);
 	csvout_num(&t->out, th->ah.no_temp);
-	if (known > 0)
-		csvout_num(&t->out, 100.0 * (known -
-		    th->ah.zone[THERMAL_NORMAL]) / known);
-	else
-		csvout_empty(&t->out);
+	write_outside(t, &th->ah);
 	csvout_int(&t->out, (long long)(ce[THERMAL_BELOW_MIN] +
 	    ce[THERMAL_COOL] + ce[THERMAL_WARM] + ce[THERMAL_ABOVE_MAX]));
 	csvout_int(&t->out, (long long)ce[THERMAL_BELOW_MIN]);
@@ -209,7 +345,8 @@ write_summary(struct tool *t, const struct dev *d)
 }
 
 static void
-report(const struct devtab *devs, const struct sampin_stats *st)
+report(const struct devtab *devs, const struct sampin_stats *st,
+    const char *by)
 {
 	unsigned long ev[THERMAL_NKIND] = { 0, 0 }, unjudged = 0, dropped = 0;
 	unsigned long merges = 0;
@@ -226,7 +363,7 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 		dropped += d->th.short_dropped;
 		merges += d->th.merges;
 	}
-	sampin_report(st, NULL);
+	sampin_report_tag(st, NULL, by);
 	cw_warn("%zu device%s; %lu rows without temperature or current not "
 	    "judged", n, n == 1 ? "" : "s", unjudged);
 	cw_warn("%lu charge events, %lu use events; %lu shorter than "
@@ -238,6 +375,7 @@ int
 main(int argc, char *argv[])
 {
 	static const struct option longopts[] = {
+		{ "by", required_argument, NULL, OPT_BY },
 		{ "capacity", required_argument, NULL, OPT_CAPACITY },
 		{ "cells", required_argument, NULL, OPT_CELLS },
 		{ "cool-margin", required_argument, NULL, OPT_COOL_MARGIN },
@@ -290,6 +428,11 @@ main(int argc, char *argv[])
 			break;
 		case 'v':
 			cw_verbose = 1;
+			break;
+		case OPT_BY:
+			if (optarg[0] == '\0')
+				cw_usage_error("--by: empty column name");
+			t.by = optarg;
 			break;
 		case OPT_CAPACITY:
 			t.cap_ah = opt_num_arg("--capacity", optarg, 0.001,
@@ -358,13 +501,32 @@ main(int argc, char *argv[])
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, t.summary ? SUMMARY_HEADER : EVENT_HEADER);
+	if (t.by != NULL && t.summary)
+		write_by_header(&t);
+	else if (t.by != NULL) {
+		/* The event columns, then COL, quoted as CSV needs. */
+		char names[] = EVENT_HEADER, *p, *save = NULL;
+
+		for (p = strtok_r(names, ",", &save); p != NULL;
+		    p = strtok_r(NULL, ",", &save))
+			csvout_str(&t.out, p);
+		csvout_str(&t.out, t.by);
+		csvout_endrow(&t.out);
+	} else
+		csvout_header(&t.out, t.summary ? SUMMARY_HEADER :
+		    EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
 
 	memset(&sc, 0, sizeof(sc));
 	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP);
+	if (t.by != NULL) {
+		sc.tag = t.by;
+		sc.need |= SAMP_BIT(SAMP_TAG);
+		t.vals = devtab_new(sizeof(struct byval));
+		t.pairs = devtab_new(sizeof(struct devent));
+	}
 	sc.row = on_row;
 	sc.ctx = &t;
 	sc.devs = devs;
@@ -374,9 +536,13 @@ main(int argc, char *argv[])
 		 * committed, so -o FILE keeps its old contents. */
 		csvout_flush(&t.out);
 		if (cw_verbose)
-			report(devs, &st);
+			report(devs, &st, t.by);
 		csvout_free(&t.out);
 		devtab_free(devs);
+		if (t.by != NULL) {
+			devtab_free(t.vals);
+			devtab_free(t.pairs);
+		}
 		fleet_free(fleet);
 		return rc;
 	}
@@ -386,12 +552,19 @@ main(int argc, char *argv[])
 	n = devtab_count(devs);
 	for (i = 0; i < n; i++)
 		thermal_finish(&((struct dev *)sorted[i])->th, &t.conf);
-	if (t.summary)
+	if (t.summary && t.by == NULL)
 		for (i = 0; i < n; i++)
 			write_summary(&t, sorted[i]);
 	free(sorted);
+	if (t.summary && t.by != NULL) {
+		sorted = devtab_sorted(t.vals);
+		n = devtab_count(t.vals);
+		for (i = 0; i < n; i++)
+			write_by_summary(&t, sorted[i]);
+		free(sorted);
+	}
 	if (cw_verbose)
-		report(devs, &st);
+		report(devs, &st, t.by);
 	if (csvout_flush(&t.out) != 0) {
 		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
 		    "standard output", strerror(errno));
@@ -401,6 +574,10 @@ main(int argc, char *argv[])
 		return CW_EXIT_DATA;
 	csvout_free(&t.out);
 	devtab_free(devs);
+	if (t.by != NULL) {
+		devtab_free(t.vals);
+		devtab_free(t.pairs);
+	}
 	fleet_free(fleet);
 	return CW_EXIT_OK;
 }

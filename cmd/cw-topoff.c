@@ -3,8 +3,6 @@
  * charger makes during them, per hold, per micro-cycle or per device.
  * The engine is lib/topoff.c; this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -13,8 +11,10 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "finish.h"
 #include "fleet.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "sampin.h"
 #include "topoff.h"
@@ -49,12 +49,57 @@ struct tool {
 };
 
 enum {
-	OPT_CAPACITY = 256, OPT_FLEET, OPT_FULL, OPT_FULL_VOLTAGE,
+	OPT_CAPACITY = OPTAB_LONG, OPT_FLEET, OPT_FULL, OPT_FULL_VOLTAGE,
 	OPT_MAX_GAP, OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_STANDBY_CURRENT,
-	OPT_STANDBY_FALL, OPT_STANDBY_RATE, OPT_USE_DIPS, OPT_VERSION
+	OPT_STANDBY_FALL, OPT_STANDBY_RATE, OPT_USE_DIPS
 };
 
-static void	usage(FILE *fp);
+static const struct optab opts[] = {
+	{ "capacity", 0, "AH", "capacity of every pack, for --standby-rate "
+	    "(unset; the fleet file's capacity_ah overrides)", NULL,
+	    OPT_CAPACITY },
+	{ "events", 'e', NULL, "one row per micro-cycle instead of one per "
+	    "hold", NULL, 0 },
+	{ "fleet", 0, "FILE", "the fleet file (asset register): capacity_ah",
+	    NULL, OPT_FLEET },
+	{ "full", 0, "PCT", "a SoC at or above PCT is near full", "95",
+	    OPT_FULL },
+	{ "full-voltage", 0, "V", "judge rows without SoC by voltage: at or "
+	    "above V volts is near full (unset: not judged)", NULL,
+	    OPT_FULL_VOLTAGE },
+	{ "max-gap", 0, "DUR", "a longer interval ends a hold", "15m",
+	    OPT_MAX_GAP },
+	{ "min-current", 0, "A", "charging means current above A", "0.05",
+	    OPT_MIN_CURRENT },
+	{ "min-depth", 0, "PCT", "the smallest drop below the peak that "
+	    "counts", "0.5", OPT_MIN_DEPTH },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "summary", 's', NULL, "one row per device (-e and -s exclude each "
+	    "other)", NULL, 0 },
+	{ "standby-current", 0, "A", "discharge up to A amperes is standby "
+	    "drain, more is use", "0.5", OPT_STANDBY_CURRENT },
+	{ "standby-fall", 0, "PCT", "rows without current: a SoC falling "
+	    "faster than PCT percent per hour is use",
+	    "5, or 100 * standby current / capacity when known",
+	    OPT_STANDBY_FALL },
+	{ "standby-rate", 0, "C", "the standby level as a C-rate, for packs "
+	    "whose capacity is known (unset: --standby-current)", NULL,
+	    OPT_STANDBY_RATE },
+	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
+	    OPT_USE_DIPS },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-topoff", "[FILE ...]",
+	"Holds near full charge and top-off micro-cycles, per device; dips\n"
+	"driven by use (discharge above the standby level) are counted apart.\n",
+	"Durations take 90, 90s, 15m, 2h, 1d.\n",
+	opts
+};
+
 static struct dev *dev_of(struct topoff *top);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	dev_start(struct tool *t, struct dev *d);
@@ -65,53 +110,6 @@ static void	on_hold(void *ctx, struct topoff *top,
 static void	write_summary(struct tool *t, const struct dev *d);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
-
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-topoff [-ehsv] [--capacity AH] [--fleet FILE] "
-	    "[--full PCT]\n"
-	    "                 [--full-voltage V] [--max-gap DUR] "
-	    "[--min-current A]\n"
-	    "                 [--min-depth PCT] [-o FILE] "
-	    "[--standby-current A]\n"
-	    "                 [--standby-fall PCT] [--standby-rate C] "
-	    "[--use-dips]\n"
-	    "                 [--version] [FILE ...]\n");
-	fputs(
-"\n"
-"Holds near full charge and top-off micro-cycles, per device; dips driven\n"
-"by use (discharge above the standby level) are counted apart.\n"
-"\n"
-"      --capacity AH       capacity of every pack, for --standby-rate\n"
-"                          (unset; the fleet file's capacity_ah overrides)\n"
-"  -e, --events            one row per micro-cycle instead of one per hold\n"
-"      --fleet FILE        the fleet file (asset register): capacity_ah\n"
-"      --full PCT          a SoC at or above PCT is near full (default 95)\n"
-"      --full-voltage V    judge rows without SoC by voltage: at or above\n"
-"                          V volts is near full (unset: not judged)\n"
-"  -h, --help              print this help and exit 0\n"
-"      --max-gap DUR       a longer interval ends a hold (default 15m)\n"
-"      --min-current A     charging means current above A (default 0.05)\n"
-"      --min-depth PCT     the smallest drop below the peak that counts\n"
-"                          (default 0.5)\n"
-"  -o, --output FILE       write to FILE atomically, not standard output\n"
-"  -s, --summary           one row per device (-e and -s exclude each other)\n"
-"      --standby-current A discharge up to A amperes is standby drain,\n"
-"                          more is use (default 0.5)\n"
-"      --standby-fall PCT  rows without current: a SoC falling faster than\n"
-"                          PCT percent per hour is use (default 5, or\n"
-"                          100 * standby current / capacity when known)\n"
-"      --standby-rate C    the standby level as a C-rate, for packs whose\n"
-"                          capacity is known (unset: --standby-current)\n"
-"      --use-dips          with -e, list use dips too (kind use)\n"
-"  -v, --verbose           report counts on standard error\n"
-"      --version           print the version and exit 0\n"
-"\n"
-"Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
-}
-
 /* The device state that embeds TOP. */
 static struct dev *
 dev_of(struct topoff *top)
@@ -274,58 +272,27 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 	    unjudged, carried);
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into T, the output's path into *OUTPATH; the index of the
+ * first operand.
+ */
+static int
+parse(struct tool *t, int argc, char *argv[], const char **outpath)
 {
-	static const struct option longopts[] = {
-		{ "capacity", required_argument, NULL, OPT_CAPACITY },
-		{ "events", no_argument, NULL, 'e' },
-		{ "fleet", required_argument, NULL, OPT_FLEET },
-		{ "full", required_argument, NULL, OPT_FULL },
-		{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
-		{ "help", no_argument, NULL, 'h' },
-		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
-		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
-		{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
-		{ "output", required_argument, NULL, 'o' },
-		{ "standby-current", required_argument, NULL,
-		    OPT_STANDBY_CURRENT },
-		{ "standby-fall", required_argument, NULL, OPT_STANDBY_FALL },
-		{ "standby-rate", required_argument, NULL, OPT_STANDBY_RATE },
-		{ "summary", no_argument, NULL, 's' },
-		{ "use-dips", no_argument, NULL, OPT_USE_DIPS },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ NULL, 0, NULL, 0 }
-	};
-	static const char *const header[] = { HOLD_HEADER, EVENT_HEADER,
-	    SUMMARY_HEADER };
-	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
-	const char *outpath = NULL, *fleetpath = NULL;
+	struct optparse op;
+	const char *fleetpath = NULL;
 	int events = 0, summary = 0;
-	void **sorted;
-	size_t i, n;
-	int ch, rc;
+	int ch;
 
-	cw_setprog("cw-topoff");
-	memset(&t, 0, sizeof(t));
-	topoff_conf_default(&t.conf);
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":eho:sv", longopts, NULL)) !=
-	    -1) {
+	topoff_conf_default(&t->conf);
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'e':
 			events = 1;
 			break;
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
 		case 'o':
-			outpath = optarg;
+			*outpath = optarg;
 			break;
 		case 's':
 			summary = 1;
@@ -334,9 +301,9 @@ main(int argc, char *argv[])
 			cw_verbose = 1;
 			break;
 		case OPT_CAPACITY:
-			t.capacity = opt_num_arg("--capacity", optarg, 0,
+			t->capacity = opt_num_arg("--capacity", optarg, 0,
 			    1e6);
-			if (!(t.capacity > 0))
+			if (!(t->capacity > 0))
 				cw_usage_error("--capacity: %s is not above 0",
 				    optarg);
 			break;
@@ -344,61 +311,80 @@ main(int argc, char *argv[])
 			fleetpath = optarg;
 			break;
 		case OPT_STANDBY_CURRENT:
-			t.conf.standby_a = opt_num_arg("--standby-current",
+			t->conf.standby_a = opt_num_arg("--standby-current",
 			    optarg, 0, 1e6);
 			break;
 		case OPT_STANDBY_FALL:
-			t.conf.standby_fall = opt_num_arg("--standby-fall",
+			t->conf.standby_fall = opt_num_arg("--standby-fall",
 			    optarg, 0, 1e6);
-			if (!(t.conf.standby_fall > 0))
+			if (!(t->conf.standby_fall > 0))
 				cw_usage_error("--standby-fall: %s is not "
 				    "above 0", optarg);
-			t.fall_set = 1;
+			t->fall_set = 1;
 			break;
 		case OPT_STANDBY_RATE:
-			t.standby_rate = opt_num_arg("--standby-rate", optarg,
+			t->standby_rate = opt_num_arg("--standby-rate", optarg,
 			    0, 100);
-			if (!(t.standby_rate > 0))
+			if (!(t->standby_rate > 0))
 				cw_usage_error("--standby-rate: %s is not "
 				    "above 0", optarg);
 			break;
 		case OPT_USE_DIPS:
-			t.use_dips = 1;
+			t->use_dips = 1;
 			break;
 		case OPT_FULL:
-			t.conf.full_pct = opt_num_arg("--full", optarg, 0, 100);
+			t->conf.full_pct = opt_num_arg("--full", optarg, 0,
+			    100);
 			break;
 		case OPT_FULL_VOLTAGE:
-			t.conf.full_v = opt_num_arg("--full-voltage", optarg,
+			t->conf.full_v = opt_num_arg("--full-voltage", optarg,
 			    0.001, 10000);
 			break;
 		case OPT_MAX_GAP:
-			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
 			break;
 		case OPT_MIN_CURRENT:
-			t.conf.min_current = opt_num_arg("--min-current",
+			t->conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
 			break;
 		case OPT_MIN_DEPTH:
-			t.conf.min_depth = opt_num_arg("--min-depth", optarg,
+			t->conf.min_depth = opt_num_arg("--min-depth", optarg,
 			    0.001, 100);
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
-	if (events && summary)
+	optab_free(&op);
+		if (events && summary)
 		cw_usage_error("-e (--events) and -s (--summary) exclude each "
 		    "other");
-	t.mode = events ? MODE_EVENTS : summary ? MODE_SUMMARY : MODE_HOLDS;
-	if (t.use_dips && !events)
+	t->mode = events ? MODE_EVENTS : summary ? MODE_SUMMARY : MODE_HOLDS;
+	if (t->use_dips && !events)
 		cw_usage_error("--use-dips lists dips with -e (--events)");
 	if (fleetpath != NULL)
-		t.fleet = fleet_load(fleetpath);
+		t->fleet = fleet_load(fleetpath);
+	return optind;
+}
+
+int
+main(int argc, char *argv[])
+{
+	static const char *const header[] = { HOLD_HEADER, EVENT_HEADER,
+	    SUMMARY_HEADER };
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of;
+	const char *outpath = NULL;
+	void **sorted;
+	size_t i, n;
+	int rc, k;
+
+	cw_setprog("cw-topoff");
+	memset(&t, 0, sizeof(t));
+	k = parse(&t, argc, argv, &outpath);
+	argc -= k;
+	argv += k;
 
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
@@ -419,36 +405,22 @@ main(int argc, char *argv[])
 	sc.ctx = &t;
 	sc.devs = devs;
 	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc != 0) {
-		/* Complete rows written so far stay; the output is not
-		 * committed, so -o FILE keeps its old contents. */
-		csvout_flush(&t.out);
-		if (cw_verbose)
-			report(devs, &st);
-		csvout_free(&t.out);
-		devtab_free(devs);
-		fleet_free(t.fleet);
-		return rc;
-	}
-
-	/* Holds still open end with the stream, in device name order. */
-	sorted = devtab_sorted(devs);
-	n = devtab_count(devs);
-	for (i = 0; i < n; i++)
-		topoff_finish(&((struct dev *)sorted[i])->top, &t.conf);
-	if (t.mode == MODE_SUMMARY)
+	if (rc == 0) {
+		/* Holds still open end with the stream, in name order. */
+		sorted = devtab_sorted(devs);
+		n = devtab_count(devs);
 		for (i = 0; i < n; i++)
-			write_summary(&t, sorted[i]);
-	free(sorted);
+			topoff_finish(&((struct dev *)sorted[i])->top, &t.conf);
+		if (t.mode == MODE_SUMMARY)
+			for (i = 0; i < n; i++)
+				write_summary(&t, sorted[i]);
+		free(sorted);
+	}
 	if (cw_verbose)
 		report(devs, &st);
-	rc = CW_EXIT_OK;
-	if (csvout_flush(&t.out) != 0) {
-		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
-		    "standard output", strerror(errno));
-		rc = CW_EXIT_DATA;
-	} else if (outf_commit(of) != 0)
-		rc = CW_EXIT_DATA;
+	/* After a data error, complete rows written so far stay; -o FILE
+	 * is not committed and keeps its old contents. */
+	rc = cw_finish(&t.out, of, outpath, rc);
 	csvout_free(&t.out);
 	devtab_free(devs);
 	fleet_free(t.fleet);

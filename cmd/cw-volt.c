@@ -3,8 +3,6 @@
  * events per device or as a summary per device.  The engine is
  * lib/volt.c; this file holds the options and the output.
  */
-#include <errno.h>
-#include <getopt.h>
 #include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -13,8 +11,10 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "finish.h"
 #include "fleet.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "sampin.h"
 #include "volt.h"
@@ -36,17 +36,16 @@ struct dev {
 struct tool {
 	struct volt_conf conf;
 	struct csvout out;
-	const struct fleet *fleet;
+	struct fleet *fleet;
 	int cells;
 	int summary;
 };
 
 enum {
-	OPT_CELLS = 256, OPT_FLEET, OPT_HYST, OPT_MAX, OPT_MAX_GAP, OPT_MIN,
-	OPT_MIN_CURRENT, OPT_MIN_DURATION, OPT_VERSION
+	OPT_CELLS = OPTAB_LONG, OPT_FLEET, OPT_HYST, OPT_MAX, OPT_MAX_GAP,
+	OPT_MIN, OPT_MIN_CURRENT, OPT_MIN_DURATION
 };
 
-static void	usage(FILE *fp);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct volt_dev *vd,
 		    const struct volt_event *ev);
@@ -55,42 +54,38 @@ static void	write_summary(struct tool *t, const struct dev *d);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
 
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-volt [-hsv] [--cells N] [--fleet FILE] "
-	    "[--hysteresis V] [--max V]\n"
-	    "               [--max-gap DUR] [--min V] [--min-current A] "
-	    "[--min-duration DUR]\n"
-	    "               [-o FILE] [--version] [FILE ...]\n");
-	fputs(
-"\n"
-"Charge, use and rest outside the cells' voltage window, as events per\n"
-"device.\n"
-"\n"
-"      --cells N           cells in series: the cell voltage is the pack\n"
-"                          voltage over N (default 1)\n"
-"      --fleet FILE        the fleet file; its cells column overrides\n"
-"                          --cells per pack\n"
-"  -h, --help              print this help and exit 0\n"
-"      --hysteresis V      come back inside by V per cell to end an event\n"
-"                          (default 0.02)\n"
-"      --max V             over-voltage above V per cell (default 4.25)\n"
-"      --max-gap DUR       a longer interval ends an event (default 15m)\n"
-"      --min V             over-discharge below V per cell (default 2.50)\n"
-"      --min-current A     charge above A, use below -A, rest between\n"
-"                          (default 0.05)\n"
-"      --min-duration DUR  drop events shorter than DUR (default 30s)\n"
-"  -o, --output FILE       write to FILE atomically, not standard output\n"
-"  -s, --summary           one row per device instead of one per event\n"
-"  -v, --verbose           report counts on standard error\n"
-"      --version           print the version and exit 0\n"
-"\n"
-"The default limits are typical of NMC and LCO cells, from memory; LFP\n"
-"cells need others (e.g. --max 3.65 --min 2.50).  The cell maker's data\n"
-"sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
-}
+static const struct optab opts[] = {
+	{ "cells", 0, "N", "cells in series: the cell voltage is the pack "
+	    "voltage over N", "1", OPT_CELLS },
+	{ "fleet", 0, "FILE", "the fleet file; its cells column overrides "
+	    "--cells per pack", NULL, OPT_FLEET },
+	{ "hysteresis", 0, "V", "come back inside by V per cell to end an "
+	    "event", "0.02", OPT_HYST },
+	{ "max", 0, "V", "over-voltage above V per cell", "4.25", OPT_MAX },
+	{ "max-gap", 0, "DUR", "a longer interval ends an event", "15m",
+	    OPT_MAX_GAP },
+	{ "min", 0, "V", "over-discharge below V per cell", "2.50", OPT_MIN },
+	{ "min-current", 0, "A", "charge above A, use below -A, rest between",
+	    "0.05", OPT_MIN_CURRENT },
+	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "30s",
+	    OPT_MIN_DURATION },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "summary", 's', NULL, "one row per device instead of one per event",
+	    NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-volt", "[FILE ...]",
+	"Charge, use and rest outside the cells' voltage window, as events\n"
+	"per device.\n",
+	"The default limits are typical of NMC and LCO cells, from memory;\n"
+	"LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
+	"maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
+	opts
+};
 
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
@@ -194,101 +189,92 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 	    ev[VOLT_UNDER], dropped);
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into T, the output's path into *OUTPATH; the index of the
+ * first operand.
+ */
+static int
+parse(struct tool *t, int argc, char *argv[], const char **outpath)
 {
-	static const struct option longopts[] = {
-		{ "cells", required_argument, NULL, OPT_CELLS },
-		{ "fleet", required_argument, NULL, OPT_FLEET },
-		{ "help", no_argument, NULL, 'h' },
-		{ "hysteresis", required_argument, NULL, OPT_HYST },
-		{ "max", required_argument, NULL, OPT_MAX },
-		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
-		{ "min", required_argument, NULL, OPT_MIN },
-		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
-		{ "min-duration", required_argument, NULL, OPT_MIN_DURATION },
-		{ "output", required_argument, NULL, 'o' },
-		{ "summary", no_argument, NULL, 's' },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ NULL, 0, NULL, 0 }
-	};
-	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct fleet *fleet = NULL;
-	struct outf *of;
-	const char *outpath = NULL, *fleetpath = NULL;
-	void **sorted;
-	size_t i, n;
-	int ch, rc;
+	struct optparse op;
+	const char *fleetpath = NULL;
+	int ch;
 
-	cw_setprog("cw-volt");
-	memset(&t, 0, sizeof(t));
-	volt_conf_default(&t.conf);
-	t.cells = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":ho:sv", longopts, NULL)) !=
-	    -1) {
+	volt_conf_default(&t->conf);
+	t->cells = 1;
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
 		case 'o':
-			outpath = optarg;
+			*outpath = optarg;
 			break;
 		case 's':
-			t.summary = 1;
+			t->summary = 1;
 			break;
 		case 'v':
 			cw_verbose = 1;
 			break;
 		case OPT_CELLS:
-			t.cells = (int)opt_long_arg("--cells", optarg, 1, 1000);
+			t->cells = (int)opt_long_arg("--cells", optarg, 1,
+			    1000);
 			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
 			break;
 		case OPT_HYST:
-			t.conf.hyst = opt_num_arg("--hysteresis", optarg, 0,
+			t->conf.hyst = opt_num_arg("--hysteresis", optarg, 0,
 			    10);
 			break;
 		case OPT_MAX:
-			t.conf.vmax = opt_num_arg("--max", optarg, 0.001, 100);
+			t->conf.vmax = opt_num_arg("--max", optarg, 0.001, 100);
 			break;
 		case OPT_MAX_GAP:
-			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
 			break;
 		case OPT_MIN:
-			t.conf.vmin = opt_num_arg("--min", optarg, 0, 100);
+			t->conf.vmin = opt_num_arg("--min", optarg, 0, 100);
 			break;
 		case OPT_MIN_CURRENT:
-			t.conf.min_current = opt_num_arg("--min-current",
+			t->conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
 			break;
 		case OPT_MIN_DURATION:
-			t.conf.min_duration = opt_dur_arg("--min-duration",
+			t->conf.min_duration = opt_dur_arg("--min-duration",
 			    optarg, 1);
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
-	if (t.conf.vmin >= t.conf.vmax)
+	optab_free(&op);
+	if (t->conf.vmin >= t->conf.vmax)
 		cw_usage_error("--min (%g V) must be below --max (%g V)",
-		    t.conf.vmin, t.conf.vmax);
-	if (t.conf.hyst >= t.conf.vmax - t.conf.vmin)
+		    t->conf.vmin, t->conf.vmax);
+	if (t->conf.hyst >= t->conf.vmax - t->conf.vmin)
 		cw_usage_error("--hysteresis (%g V) must be below --max minus "
-		    "--min (%g V)", t.conf.hyst, t.conf.vmax - t.conf.vmin);
+		    "--min (%g V)", t->conf.hyst, t->conf.vmax - t->conf.vmin);
 
 	if (fleetpath != NULL)
-		fleet = fleet_load(fleetpath);
-	t.fleet = fleet;
+		t->fleet = fleet_load(fleetpath);
+	return optind;
+}
+
+int
+main(int argc, char *argv[])
+{
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of;
+	const char *outpath = NULL;
+	void **sorted;
+	size_t i, n;
+	int rc, k;
+
+	cw_setprog("cw-volt");
+	memset(&t, 0, sizeof(t));
+	k = parse(&t, argc, argv, &outpath);
+	argc -= k;
+	argv += k;
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
@@ -303,38 +289,24 @@ main(int argc, char *argv[])
 	sc.ctx = &t;
 	sc.devs = devs;
 	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc != 0) {
-		/* Complete rows written so far stay; the output is not
-		 * committed, so -o FILE keeps its old contents. */
-		csvout_flush(&t.out);
-		if (cw_verbose)
-			report(devs, &st);
-		csvout_free(&t.out);
-		devtab_free(devs);
-		fleet_free(fleet);
-		return rc;
-	}
-
-	/* What is still open ends with the stream, in device name order. */
-	sorted = devtab_sorted(devs);
-	n = devtab_count(devs);
-	for (i = 0; i < n; i++)
-		volt_finish(&((struct dev *)sorted[i])->v, &t.conf);
-	if (t.summary)
+	if (rc == 0) {
+		/* What is still open ends with the stream, in name order. */
+		sorted = devtab_sorted(devs);
+		n = devtab_count(devs);
 		for (i = 0; i < n; i++)
-			write_summary(&t, sorted[i]);
-	free(sorted);
+			volt_finish(&((struct dev *)sorted[i])->v, &t.conf);
+		if (t.summary)
+			for (i = 0; i < n; i++)
+				write_summary(&t, sorted[i]);
+		free(sorted);
+	}
 	if (cw_verbose)
 		report(devs, &st);
-	rc = CW_EXIT_OK;
-	if (csvout_flush(&t.out) != 0) {
-		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
-		    "standard output", strerror(errno));
-		rc = CW_EXIT_DATA;
-	} else if (outf_commit(of) != 0)
-		rc = CW_EXIT_DATA;
+	/* After a data error, complete rows written so far stay; -o FILE
+	 * is not committed and keeps its old contents. */
+	rc = cw_finish(&t.out, of, outpath, rc);
 	csvout_free(&t.out);
 	devtab_free(devs);
-	fleet_free(fleet);
+	fleet_free(t.fleet);
 	return rc;
 }

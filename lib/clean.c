@@ -3,6 +3,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 #include <sys/stat.h>
 
 #include "clean.h"
@@ -10,6 +11,7 @@
 #include "devtab.h"
 #include "num.h"
 #include "resample.h"
+#include "sampin.h"
 #include "ts.h"
 
 const char *const clean_reason_name[CR_NREASON] = {
@@ -27,6 +29,15 @@ struct cdev {
 	int soc_known;
 	cw_time soc_t;
 	struct rs_state rs;
+	/*
+	 * --keep: the values of the pending rows, beside q (a slot of
+	 * kstride bytes each), and of the last two rows released, by the
+	 * parity of their key (the count of rows released): a grid point
+	 * takes the row it closes or the one before (resample.h).
+	 */
+	char *qk;
+	char *kv;
+	unsigned long nrel;
 };
 
 struct run {
@@ -54,6 +65,23 @@ struct run {
 	unsigned long scan_rows, agree, disagree;
 	int scan_by_v;		/* no SoC column: by voltage */
 	struct devtab *scan_devs;
+	/* Unit plausibility of this file (units_add(), units_check()). */
+	struct {
+		double v[CLEAN_UNIT_ROWS];	/* voltage, V as assumed */
+		double i[CLEAN_UNIT_ROWS];	/* |current|, A as assumed */
+		double iv[CLEAN_UNIT_ROWS];	/* its pack voltage */
+		double t[CLEAN_UNIT_ROWS];	/* temperature, C as assumed */
+		int nv, ni, nt, nint;	/* nint: whole-number currents */
+		int done;
+		char src[256];
+		char hdr[CM_NFIELD][64];	/* the columns' headers */
+		int unit[CM_NFIELD];		/* and their units */
+		int has_temp;
+	} u;
+	/* --keep: this file's columns, the slot size, this row's values. */
+	int keepcol[CLEAN_KEEP_MAX];
+	size_t kstride;
+	char *krow;
 };
 
 /* A device's last row in the read-ahead. */
@@ -70,7 +98,14 @@ static int on_row(void *, const struct csvin_rec *);
 static int on_bad(void *, const struct csvin_rec *, const char *);
 static int on_blank(void *, const struct csvin_rec *);
 static int reject(struct run *, const struct csvin_rec *, int);
-static void release(struct run *, struct cdev *, const struct rs_point *);
+static void release(struct run *, struct cdev *, const struct rs_point *,
+    const char *);
+static int keep_header(struct run *, const struct csvin_rec *);
+static void units_add(struct run *, int, double);
+static void units_check(struct run *);
+static int cmp_dbl(const void *, const void *);
+static double pct(double *, int, double);
+static void keep_row(struct run *, const struct csvin_rec *);
 static void emit(void *, const struct rs_point *);
 static void drain(struct run *, struct cdev *, cw_time);
 
@@ -131,6 +166,257 @@ file_device(struct run *r, const char *path)
 	r->file_devlen = n;
 }
 
+int
+clean_keep_parse(struct clean_conf *c, const char *list, const char **err)
+{
+	static char buf[1024];
+	char *p, *next;
+	int j, k;
+
+	c->nkeep = 0;
+	if (strlen(list) >= sizeof(buf)) {
+		*err = "list too long";
+		return -1;
+	}
+	strcpy(buf, list);
+	for (p = buf; p != NULL; p = next) {
+		next = strchr(p, ',');
+		if (next != NULL)
+			*next++ = '\0';
+		if (*p == '\0') {
+			*err = "empty column name";
+			return -1;
+		}
+		for (k = 0; k < SAMP_EXTRA; k++)
+			if (strcmp(p, sampin_colname[k]) == 0) {
+				*err = "a column of the sample stream already";
+				return -1;
+			}
+		for (j = 0; j < c->nkeep; j++)
+			if (strcmp(p, c->keep[j]) == 0) {
+				*err = "a column named twice";
+				return -1;
+			}
+		if (c->nkeep == CLEAN_KEEP_MAX) {
+			*err = "at most 8 columns";
+			return -1;
+		}
+		c->keep[c->nkeep++] = p;
+	}
+	return 0;
+}
+
+/*
+ * The --keep columns in header H: by exact name, else ignoring case (as
+ * -c finds its headers).  A missing one is an error: a mistyped name
+ * would otherwise give a column of nothing.
+ */
+static int
+keep_header(struct run *r, const struct csvin_rec *h)
+{
+	int j;
+	size_t i;
+
+	for (j = 0; j < r->c->nkeep; j++) {
+		int col = csvin_find(h, r->c->keep[j]);
+
+		for (i = 0; col < 0 && i < h->nf; i++)
+			if (strcasecmp(h->f[i], r->c->keep[j]) == 0)
+				col = (int)i;
+		if (col < 0) {
+			char seen[512] = "";
+
+			for (i = 0; i < h->nf && strlen(seen) < 400; i++) {
+				if (i > 0)
+					strcat(seen, ", ");
+				strncat(seen, h->f[i], 60);
+			}
+			cw_warn_at(h->src, h->line, "no column '%s' for --keep; "
+			    "headers seen: %s", r->c->keep[j], seen);
+			return CW_EXIT_DATA;
+		}
+		r->keepcol[j] = col;
+	}
+	return 0;
+}
+
+/*
+ * This row's --keep values into r->krow, as read; a value too long for
+ * its slot is cut at a character boundary, the first one told.
+ */
+static void
+keep_row(struct run *r, const struct csvin_rec *rec)
+{
+	int j;
+
+	for (j = 0; j < r->c->nkeep; j++) {
+		unsigned char *slot = (unsigned char *)r->krow +
+		    (size_t)j * CLEAN_KEEP_LEN;
+		size_t n = rec->len[r->keepcol[j]];
+
+		if (n > CLEAN_KEEP_LEN - 1) {
+			n = CLEAN_KEEP_LEN - 1;
+			/* Not inside a UTF-8 sequence. */
+			while (n > 0 && ((unsigned char)rec->f[r->keepcol[j]][n]
+			    & 0xC0) == 0x80)
+				n--;
+			if (r->st->keep_cut++ == 0)
+				cw_warn_at(rec->src, rec->line, "--keep %s: value "
+				    "longer than %d bytes cut (further ones only "
+				    "counted)", r->c->keep[j], CLEAN_KEEP_LEN - 1);
+		}
+		slot[0] = (unsigned char)n;
+		memcpy(slot + 1, rec->f[r->keepcol[j]], n);
+	}
+}
+
+static int
+cmp_dbl(const void *a, const void *b)
+{
+	double x = *(const double *)a, y = *(const double *)b;
+
+	return x < y ? -1 : x > y;
+}
+
+/* Percentile P (0..1) of the N values of V, sorted here. */
+static double
+pct(double *v, int n, double p)
+{
+	qsort(v, (size_t)n, sizeof(*v), cmp_dbl);
+	return v[(int)(p * (n - 1) + 0.5)];
+}
+
+/* A value of field F of this row, in the unit assumed, for the check. */
+static void
+units_add(struct run *r, int f, double x)
+{
+	switch (f) {
+	case CM_VOLTAGE:
+		if (r->u.nv < CLEAN_UNIT_ROWS)
+			r->u.v[r->u.nv++] = x;
+		break;
+	case CM_CURRENT:
+		/* Rests say nothing of the unit. */
+		if (r->u.ni < CLEAN_UNIT_ROWS && x != 0 && r->u.nv > 0) {
+			r->u.iv[r->u.ni] = r->u.v[r->u.nv - 1];
+			r->u.i[r->u.ni++] = fabs(x);
+			r->u.nint += x == floor(x);
+		}
+		break;
+	case CM_TEMP:
+		if (r->u.nt < CLEAN_UNIT_ROWS)
+			r->u.t[r->u.nt++] = x;
+		break;
+	}
+	if (r->u.nv == CLEAN_UNIT_ROWS && r->u.ni == CLEAN_UNIT_ROWS &&
+	    (r->u.nt == CLEAN_UNIT_ROWS || !r->u.has_temp))
+		units_check(r);
+}
+
+/*
+ * Tell when this file's values only make sense in another unit.  The
+ * thresholds (common practice, no source): a lithium-ion cell lies
+ * between 2.5 and 4.25 V, so a median above the voltage bound is a pack
+ * (whatever the unit) or, in volts as assumed, millivolts; a pack's current in amperes is rarely above 25 A per
+ * volt of the pack (an e-bike's 40 V, 20 A is 0.5; milliamperes of the
+ * same pack are 50 and more), nor, written in whole numbers of a median
+ * of 100 and more, above 1.5 (a gauge's own 100..250 mA of standby at
+ * 40 V are 2.5..6 as amperes); a pack's median temperature over the
+ * first rows is below 50 C, and 50..150 read as Celsius is Fahrenheit,
+ * 230..370 kelvin (or 0.1 C), 1500..4000 tenths of a kelvin.
+ */
+static void
+units_check(struct run *r)
+{
+	const struct clean_conf *c = r->c;
+	double med, lo, hi, vmed = 0, vscale = 1;
+	int k;
+
+	if (r->u.done || r->u.src[0] == '\0')
+		return;
+	r->u.done = 1;
+	if (r->u.nv >= CLEAN_UNIT_MIN) {
+		lo = pct(r->u.v, r->u.nv, 0.01);
+		hi = pct(r->u.v, r->u.nv, 0.99);
+		vmed = med = pct(r->u.v, r->u.nv, 0.5);
+		if (med > c->hi[CM_VOLTAGE] && med >= 1000 &&
+		    r->u.unit[CM_VOLTAGE] == CMU_V) {
+			vscale = 1000;
+			if (med <= 5000)
+				cw_warn("%s: voltage '%s' looks like millivolts "
+				    "(median %.6g over %d rows): give -c "
+				    "'voltage=%s:mV'", r->u.src,
+				    r->u.hdr[CM_VOLTAGE], med, r->u.nv,
+				    r->u.hdr[CM_VOLTAGE]);
+		}
+		if (med > c->hi[CM_VOLTAGE] && med / vscale > 5.0) {
+			int n1 = (int)ceil(hi / vscale / 4.25);
+			int n2 = (int)floor(lo / vscale / 2.5);
+			char cells[48], fix[128];
+
+			if (n2 > n1)
+				snprintf(cells, sizeof(cells), "%d to %d", n1,
+				    n2);
+			else
+				snprintf(cells, sizeof(cells), "%d", n1);
+			if (vscale > 1)
+				snprintf(fix, sizeof(fix), "-c 'voltage=%s:mV' "
+				    "and ", r->u.hdr[CM_VOLTAGE]);
+			else
+				fix[0] = '\0';
+			cw_warn("%s: voltage '%s' looks like %sa pack of %s "
+			    "cells in series (median %.6g, 1st to 99th "
+			    "percentile %.6g to %.6g over %d rows; a cell 2.5 "
+			    "to 4.25 V): give %s--cells N", r->u.src,
+			    r->u.hdr[CM_VOLTAGE], vscale > 1 ? "millivolts of " :
+			    "", cells, med, lo, hi, r->u.nv, fix);
+		}
+	}
+	if (r->u.ni >= CLEAN_UNIT_MIN && r->u.unit[CM_CURRENT] == CMU_A &&
+	    vmed > 0) {
+		double per_v, p90;
+
+		for (k = 0; k < r->u.ni; k++)
+			r->u.iv[k] = r->u.i[k] / (fabs(r->u.iv[k]) / vscale +
+			    1e-9);
+		per_v = pct(r->u.iv, r->u.ni, 0.5);
+		p90 = pct(r->u.i, r->u.ni, 0.9);
+		med = pct(r->u.i, r->u.ni, 0.5);
+		if (per_v > 25 || (r->u.nint >= 0.95 * r->u.ni && med >= 100 &&
+		    per_v > 1.5))
+			cw_warn("%s: current '%s' looks like milliamperes "
+			    "(median |I| %.6g, 90th percentile %.6g over %d "
+			    "rows, %.3g A per volt of the pack as amperes): "
+			    "give -c 'current=%s:mA'", r->u.src,
+			    r->u.hdr[CM_CURRENT], med, p90, r->u.ni, per_v,
+			    r->u.hdr[CM_CURRENT]);
+	}
+	if (r->u.nt >= CLEAN_UNIT_MIN && r->u.unit[CM_TEMP] == CMU_C) {
+		const char *what = NULL, *unit = NULL;
+
+		med = pct(r->u.t, r->u.nt, 0.5);
+		if (med >= 1500 && med <= 4000) {
+			what = "tenths of a kelvin";
+			unit = "dK";
+		} else if (med >= 230 && med <= 370) {
+			what = "kelvin (or tenths of a degree C: dC)";
+			unit = "K";
+		} else if (med > 150 && med < 700) {
+			what = "tenths of a degree C";
+			unit = "dC";
+		} else if (med > 50 && med <= 150) {
+			what = "degrees Fahrenheit";
+			unit = "F";
+		}
+		if (what != NULL)
+			cw_warn("%s: temperature '%s' looks like %s (median "
+			    "%.6g over %d rows, implausible for a pack in "
+			    "degrees C): give -c 'temp=%s:%s'", r->u.src,
+			    r->u.hdr[CM_TEMP], what, med, r->u.nt,
+			    r->u.hdr[CM_TEMP], unit);
+	}
+}
+
 static int
 on_header(void *ctx, const struct csvin_rec *h)
 {
@@ -147,6 +433,23 @@ on_header(void *ctx, const struct csvin_rec *h)
 	if (r->scan) {
 		r->scan_by_v = r->map.col[CM_SOC] < 0;
 		return 0;
+	}
+	if (keep_header(r, h) != 0)
+		return CW_EXIT_DATA;
+	/* The file before was judged on what it had; now this one. */
+	units_check(r);
+	memset(&r->u, 0, sizeof(r->u));
+	snprintf(r->u.src, sizeof(r->u.src), "%s", h->src);
+	{
+		int f;
+
+		for (f = 0; f < CM_NFIELD; f++) {
+			if (r->map.col[f] >= 0)
+				snprintf(r->u.hdr[f], sizeof(r->u.hdr[f]),
+				    "%s", h->f[r->map.col[f]]);
+			r->u.unit[f] = r->map.unit[f];
+		}
+		r->u.has_temp = r->map.col[CM_TEMP] >= 0;
 	}
 	/* This file's sign: the read-ahead's finding, found by name. */
 	r->negative = r->c->charge_sign == CLEAN_SIGN_NEGATIVE;
@@ -312,6 +615,10 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		return reject(r, rec, CR_MISSING);
 	if (field_time(r, rec, &p.t) < 0)
 		return reject(r, rec, CR_BADTIME);
+	/* The first rows' values for the unit check, in range or not. */
+	for (k = 0; !r->u.done && k < sizeof(fields) / sizeof(fields[0]); k++)
+		if (field_num(r, rec, fields[k], &x[fields[k]]) == 0)
+			units_add(r, fields[k], x[fields[k]]);
 	for (k = 0; k < sizeof(fields) / sizeof(fields[0]); k++) {
 		f = fields[k];
 		rc = field_num(r, rec, f, &x[f]);
@@ -334,6 +641,9 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	p.i = x[CM_CURRENT];
 	p.temp = x[CM_TEMP];
 	p.soc = x[CM_SOC];
+	p.key = 0;
+	if (c->nkeep > 0)
+		keep_row(r, rec);
 
 	d = r->last;
 	if (d == NULL || d->e.namelen != namelen ||
@@ -344,6 +654,8 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		if (isnew) {
 			d->max_seen = d->last_out = INT64_MIN;
 			r->st->devices++;
+			if (c->nkeep > 0)
+				d->kv = cw_calloc(2, r->kstride);
 		}
 		r->last = d;
 	}
@@ -367,7 +679,7 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		return reject(r, rec, CR_DUPLICATE);
 	r->st->accepted++;
 	if (c->reorder == 0 && d->qh == d->qn) {
-		release(r, d, &p);
+		release(r, d, &p, r->krow);
 		d->max_seen = p.t;
 		return 0;
 	}
@@ -375,6 +687,9 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		if (d->qh > 0) {
 			memmove(d->q, d->q + d->qh, (d->qn - d->qh) *
 			    sizeof(*d->q));
+			if (r->kstride > 0)
+				memmove(d->qk, d->qk + d->qh * r->kstride,
+				    (d->qn - d->qh) * r->kstride);
 			d->qn -= d->qh;
 			lo -= d->qh;
 			d->qh = 0;
@@ -382,10 +697,17 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		if (d->qn == d->qcap) {
 			d->qcap = d->qcap ? 2 * d->qcap : 16;
 			d->q = cw_realloc(d->q, d->qcap * sizeof(*d->q));
+			if (r->kstride > 0)
+				d->qk = cw_realloc(d->qk, d->qcap * r->kstride);
 		}
 	}
 	memmove(d->q + lo + 1, d->q + lo, (d->qn - lo) * sizeof(*d->q));
 	d->q[lo] = p;
+	if (r->kstride > 0) {
+		memmove(d->qk + (lo + 1) * r->kstride, d->qk + lo * r->kstride,
+		    (d->qn - lo) * r->kstride);
+		memcpy(d->qk + lo * r->kstride, r->krow, r->kstride);
+	}
 	d->qn++;
 	if (p.t > d->max_seen)
 		d->max_seen = p.t;
@@ -398,9 +720,11 @@ static void
 drain(struct run *r, struct cdev *d, cw_time upto)
 {
 	while (d->qh < d->qn && d->q[d->qh].t <= upto) {
-		struct rs_point p = d->q[d->qh++];
+		struct rs_point p = d->q[d->qh];
 
-		release(r, d, &p);
+		release(r, d, &p, r->kstride > 0 ? d->qk + d->qh * r->kstride :
+		    NULL);
+		d->qh++;
 	}
 	if (d->qh == d->qn)
 		d->qh = d->qn = 0;
@@ -408,10 +732,15 @@ drain(struct run *r, struct cdev *d, cw_time upto)
 
 /* A row leaves the reorder window, in time order. */
 static void
-release(struct run *r, struct cdev *d, const struct rs_point *p0)
+release(struct run *r, struct cdev *d, const struct rs_point *p0,
+    const char *kv)
 {
 	const struct clean_conf *c = r->c;
 	struct rs_point p = *p0;
+
+	p.key = ++d->nrel;
+	if (r->kstride > 0)
+		memcpy(d->kv + (p.key & 1) * r->kstride, kv, r->kstride);
 
 	if (c->soc_ah > 0) {
 		if (d->soc_known) {
@@ -457,6 +786,13 @@ emit(void *ctx, const struct rs_point *p)
 	csvout_num(w, p->i);
 	csvout_num(w, p->temp);
 	csvout_num(w, p->soc);
+	if (r->kstride > 0) {
+		const char *kv = r->cur->kv + (p->key & 1) * r->kstride;
+		int j;
+
+		for (j = 0; j < r->c->nkeep; j++, kv += CLEAN_KEEP_LEN)
+			csvout_strn(w, kv + 1, (unsigned char)kv[0]);
+	}
 	csvout_endrow(w);
 	r->st->written++;
 }
@@ -643,7 +979,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	struct run r;
 	struct csvin *in;
 	size_t i;
-	int rc;
+	int rc, k;
 
 	memset(st, 0, sizeof(*st));
 	memset(&r, 0, sizeof(r));
@@ -655,7 +991,15 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	r.required = (1u << CM_TIME) | (1u << CM_VOLTAGE) | (1u << CM_CURRENT);
 	if (c->device == NULL && !c->device_from_file)
 		r.required |= 1u << CM_DEVICE;
-	csvout_header(out, "device,time,voltage_v,current_a,temp_c,soc_pct");
+	/* The stream's columns (sampin_colname[]), then the kept ones. */
+	for (k = 0; k < SAMP_EXTRA; k++)
+		csvout_str(out, sampin_colname[k]);
+	for (k = 0; k < c->nkeep; k++)
+		csvout_str(out, c->keep[k]);
+	csvout_endrow(out);
+	r.kstride = (size_t)c->nkeep * CLEAN_KEEP_LEN;
+	if (r.kstride > 0)
+		r.krow = cw_calloc(1, r.kstride);
 	if (rej != NULL)
 		csvout_header(rej, "source,line,reason,record");
 	r.negative = c->charge_sign == CLEAN_SIGN_NEGATIVE;
@@ -665,6 +1009,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	in = csvin_new(c->delim, &ops, &r);
 	r.in = in;
 	rc = csvin_files(in, files, n);
+	units_check(&r);
 	free((void *)r.fsign);
 	st->header_repeats = csvin_stats(in)->header_repeats;
 	csvin_free(in);
@@ -678,7 +1023,12 @@ clean_run(const struct clean_conf *c, char **files, int n,
 			rs_flush(&d->rs, c->step, emit, &r);
 		}
 		free(d->q);
+		free(d->qk);
+		free(d->kv);
 	}
 	devtab_free(r.devs);
+	free(r.krow);
+	if (st->keep_cut > 1)
+		cw_warn("--keep: %lu values cut in all", st->keep_cut);
 	return rc;
 }

@@ -41,6 +41,26 @@ enum {
 #define CLEAN_SIGN_MIN		20
 #define CLEAN_SIGN_RATIO	4
 
+/*
+ * Unit plausibility: the first CLEAN_UNIT_ROWS values of voltage, current
+ * and temperature of each file, in the units assumed, are looked at as a
+ * whole (medians and percentiles, not single rows), and a warning tells
+ * when they only make sense in another unit (mA for A, F, K or 0.1 K for
+ * C, mV for V) or as a pack of cells in series, with the option that
+ * fixes it.  At least CLEAN_UNIT_MIN values are needed.
+ */
+#define CLEAN_UNIT_ROWS		2000
+#define CLEAN_UNIT_MIN		100
+
+/*
+ * --keep: at most CLEAN_KEEP_MAX raw columns carried into the stream, each
+ * value in a slot of CLEAN_KEEP_LEN bytes (a length byte, then at most
+ * CLEAN_KEEP_LEN - 1 bytes of the value; a longer one is cut, with a
+ * warning).
+ */
+#define CLEAN_KEEP_MAX	8
+#define CLEAN_KEEP_LEN	64
+
 struct clean_conf {
 	struct colmap_spec spec;
 	const char *device;	/* --device NAME */
@@ -56,6 +76,8 @@ struct clean_conf {
 	int nsentinel;
 	double soc_ah;		/* --soc-from-charge, 0 when off */
 	double full_v;		/* full-charge voltage */
+	const char *keep[CLEAN_KEEP_MAX];	/* --keep, as named */
+	int nkeep;
 };
 
 struct clean_stats {
@@ -66,9 +88,16 @@ struct clean_stats {
 	unsigned long written;	/* sample rows written */
 	unsigned long header_repeats;
 	unsigned long devices;
+	unsigned long keep_cut;	/* --keep values longer than a slot */
 };
 
 void	clean_conf_default(struct clean_conf *c);
+/*
+ * Parse a --keep list COL[,COL...] into C (names point into a copy kept
+ * for the run); 0, or -1 with *ERR set.
+ */
+int	clean_keep_parse(struct clean_conf *c, const char *list,
+	    const char **err);
 /*
  * Clean FILES[0..N) (stdin when N is 0) to OUT; rejected lines to REJ
  * (may be NULL).  Returns 0 or an exit code (input error, reported).

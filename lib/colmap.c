@@ -13,14 +13,28 @@
 
 #include "colmap.h"
 #include "cw.h"
+#include "sampin.h"
 
 const char *const colmap_field_name[CM_NFIELD] = {
 	"device", "time", "voltage", "current", "temp", "soc", "date"
 };
 
-static const char *const canonical[CM_NFIELD] = {
-	"device", "time", "voltage_v", "current_a", "temp_c", "soc_pct", "date"
-};
+/*
+ * The canonical names are the sample stream's own (sampin_colname[], the
+ * one table of the stream's columns); the stream has no date column.
+ */
+typedef char colmap_fields_follow_the_stream[
+    (int)CM_DEVICE == (int)SAMP_DEVICE && (int)CM_TIME == (int)SAMP_TIME &&
+    (int)CM_VOLTAGE == (int)SAMP_VOLTAGE &&
+    (int)CM_CURRENT == (int)SAMP_CURRENT && (int)CM_TEMP == (int)SAMP_TEMP &&
+    (int)CM_SOC == (int)SAMP_SOC && (int)CM_DATE == (int)SAMP_EXTRA ?
+    1 : -1];
+
+static const char *
+canonical(int f)
+{
+	return f == CM_DATE ? "date" : sampin_colname[f];
+}
 
 /*
  * Name words per field, space separated.  A word in name_words[] counts
@@ -230,7 +244,7 @@ score(int f, const char *name, int *unit)
 	};
 
 	*unit = CMU_NONE;
-	if (strcmp(name, canonical[f]) == 0) {
+	if (strcmp(name, canonical(f)) == 0) {
 		*unit = canonical_unit[f];
 		return 100;
 	}

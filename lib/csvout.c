@@ -5,6 +5,7 @@
  * significant digits, then written with the decimal point put back and
  * trailing zeros dropped; the rare others go through snprintf("%.10g").
  */
+#include <errno.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -41,14 +42,22 @@ csvout_free(struct csvout *w)
 	w->buf = NULL;
 }
 
+/* The first write error: kept with its errno for the message. */
+static void
+failed(struct csvout *w)
+{
+	w->err = 1;
+	w->errnum = errno;
+}
+
 int
 csvout_flush(struct csvout *w)
 {
 	if (w->n > 0 && !w->err && fwrite(w->buf, 1, w->n, w->fp) != w->n)
-		w->err = 1;
+		failed(w);
 	w->n = 0;
 	if (!w->err && fflush(w->fp) != 0)
-		w->err = 1;
+		failed(w);
 	return w->err ? -1 : 0;
 }
 
@@ -59,7 +68,7 @@ reserve(struct csvout *w, size_t n)
 	if (w->n + n <= w->cap)
 		return;
 	if (w->n > 0 && !w->err && fwrite(w->buf, 1, w->n, w->fp) != w->n)
-		w->err = 1;
+		failed(w);
 	w->n = 0;
 	if (n > w->cap) {
 		w->cap = n;

@@ -17,6 +17,7 @@ struct csvout {
 	size_t n, cap;
 	int nfield;	/* fields written in the current row */
 	int err;	/* a write failed */
+	int errnum;	/* errno of the first failure */
 };
 
 void	csvout_init(struct csvout *w, FILE *fp);

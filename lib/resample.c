@@ -61,6 +61,7 @@ rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
 		g.temp = lerp(a->temp, p->temp, f);
 		g.soc = lerp(a->soc, p->soc, f);
 		g.i = cw_isnum(p->i) ? s->acc / (double)step : CW_MISSING;
+		g.key = g.t == p->t ? p->key : a->key;
 		emit(ctx, &g);
 		s->acc = 0;
 		s->acc_start = s->g_next;

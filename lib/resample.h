@@ -19,9 +19,15 @@
 
 #include "cw.h"
 
+/*
+ * KEY is the caller's: a grid point gets the key of the last sample at or
+ * before it (the sample whose interval it closes, or the one held), so a
+ * caller can carry values that are not interpolated (cw-clean --keep).
+ */
 struct rs_point {
 	cw_time t;
 	double v, i, temp, soc;
+	unsigned long key;
 };
 
 struct rs_state {

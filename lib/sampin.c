@@ -13,7 +13,8 @@
 #define SAMPIN_MAXWARN 10	/* skipped rows reported one by one */
 
 const char *const sampin_colname[SAMP_NCOL] = {
-	"device", "time", "voltage_v", "current_a", "temp_c", "soc_pct", NULL
+	"device", "time", "voltage_v", "current_a", "temp_c", "soc_pct", NULL,
+	NULL
 };
 
 struct rd {
@@ -27,8 +28,20 @@ static int on_header(void *, const struct csvin_rec *);
 static int on_row(void *, const struct csvin_rec *);
 static int on_bad(void *, const struct csvin_rec *, const char *);
 static int on_blank(void *, const struct csvin_rec *);
+static const char *colname(const struct sampin_conf *, int);
 static void skip(struct rd *, const struct csvin_rec *, const char *, ...)
     __attribute__((format(printf, 3, 4)));
+
+/* The name of column K for the tool (NULL: none). */
+static const char *
+colname(const struct sampin_conf *c, int k)
+{
+	if (k == SAMP_EXTRA)
+		return c->extra;
+	if (k == SAMP_TAG)
+		return c->tag;
+	return sampin_colname[k];
+}
 
 static void
 skip(struct rd *d, const struct csvin_rec *r, const char *fmt, ...)
@@ -54,8 +67,7 @@ on_header(void *ctx, const struct csvin_rec *r)
 	int k;
 
 	for (k = 0; k < SAMP_NCOL; k++) {
-		const char *name = k == SAMP_EXTRA ? d->c->extra :
-		    sampin_colname[k];
+		const char *name = colname(d->c, k);
 
 		d->col[k] = name != NULL ? csvin_find(r, name) : -1;
 		if (d->col[k] < 0 && (d->c->need & SAMP_BIT(k))) {
@@ -73,8 +85,7 @@ on_header(void *ctx, const struct csvin_rec *r)
 
 			for (k = 0; k < SAMP_NCOL; k++)
 				if (d->c->need_any & SAMP_BIT(k)) {
-					const char *nm = k == SAMP_EXTRA ?
-					    d->c->extra : sampin_colname[k];
+					const char *nm = colname(d->c, k);
 
 					if (names[0] != '\0')
 						strcat(names, " or ");
@@ -145,6 +156,15 @@ on_row(void *ctx, const struct csvin_rec *r)
 	s.temp = value(d, r, SAMP_TEMP);
 	s.soc = value(d, r, SAMP_SOC);
 	s.x = value(d, r, SAMP_EXTRA);
+	s.tag = "";
+	s.taglen = 0;
+	i = d->col[SAMP_TAG];
+	if (i >= 0 && (size_t)i < r->nf) {
+		s.tag = r->f[i];
+		s.taglen = r->len[i];
+	}
+	if (i >= 0 && s.taglen == 0)
+		d->st->missing[SAMP_TAG]++;
 	s.src = r->src;
 	s.line = r->line;
 	dev = devtab_get(d->c->devs, name, namelen, NULL);
@@ -206,12 +226,23 @@ sampin_run(const struct sampin_conf *c, char **files, int n,
 void
 sampin_report(const struct sampin_stats *st, const char *extra)
 {
+	sampin_report_tag(st, extra, NULL);
+}
+
+void
+sampin_report_tag(const struct sampin_stats *st, const char *extra,
+    const char *tag)
+{
+	struct sampin_conf c;
 	int k;
 
+	memset(&c, 0, sizeof(c));
+	c.extra = extra;
+	c.tag = tag;
 	cw_warn("%lu rows read, %lu used, %lu skipped", st->rows, st->used,
 	    st->skipped);
 	for (k = 0; k < SAMP_NCOL; k++) {
-		const char *name = k == SAMP_EXTRA ? extra : sampin_colname[k];
+		const char *name = colname(&c, k);
 
 		if (name == NULL || (st->missing[k] == 0 &&
 		    st->invalid[k] == 0))

@@ -16,7 +16,9 @@
 
 enum sampin_col {
 	SAMP_DEVICE, SAMP_TIME, SAMP_VOLTAGE, SAMP_CURRENT, SAMP_TEMP,
-	SAMP_SOC, SAMP_EXTRA, SAMP_NCOL
+	SAMP_SOC, SAMP_EXTRA,
+	SAMP_TAG,	/* a text column of the tool's choice (cw-thermal --by) */
+	SAMP_NCOL
 };
 #define SAMP_BIT(c) (1u << (c))
 
@@ -27,6 +29,9 @@ struct cw_sample {
 	double temp;	/* temp_c */
 	double soc;	/* soc_pct, 0..100 */
 	double x;	/* the extra column */
+	const char *tag;	/* the text column as read, valid during the
+				   call; "" when absent or empty */
+	size_t taglen;
 	const char *src;	/* file and line, for messages */
 	unsigned long line;
 };
@@ -41,6 +46,7 @@ struct sampin_stats {
 
 struct sampin_conf {
 	const char *extra;	/* name of the extra column, or NULL */
+	const char *tag;	/* name of the text column, or NULL */
 	unsigned need;		/* SAMP_BIT()s of columns that must exist */
 	unsigned need_any;	/* if non-zero, at least one of these must */
 	/*
@@ -57,7 +63,14 @@ int	sampin_run(const struct sampin_conf *c, char **files, int n,
 	    struct sampin_stats *st);
 /* With -v: print the counts of ST to stderr. */
 void	sampin_report(const struct sampin_stats *st, const char *extra);
-/* The canonical column names, by enum sampin_col (EXTRA: NULL). */
+/* The same, naming the text column TAG (NULL: none). */
+void	sampin_report_tag(const struct sampin_stats *st, const char *extra,
+	    const char *tag);
+/*
+ * The sample stream's columns, by enum sampin_col (EXTRA and TAG: NULL): the one
+ * table of them.  cw-clean writes them in this order (lib/clean.c), colmap
+ * takes them as the canonical raw names, and every reader finds them here.
+ */
 extern const char *const sampin_colname[SAMP_NCOL];
 
 #endif

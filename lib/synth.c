@@ -84,6 +84,7 @@ static void enter(struct synth_fleet *, struct synth_dev *, int, cw_time);
 static void mc_end(struct synth_fleet *, struct synth_dev *, cw_time, int);
 static void ev_close(struct synth_fleet *, struct synth_dev *);
 static int zone_of(double);
+static void dock_hop(struct synth_fleet *, struct synth_dev *);
 static int cmp_phase(const void *, const void *);
 static void swing(struct synth_truth *, double, int);
 
@@ -662,13 +663,53 @@ synth_dev_charger(const struct synth_dev *d)
 void
 synth_dev_site(const struct synth_dev *d, char buf[16])
 {
-	if (d->site == 0) {
+	synth_site_name(d->site, buf);
+}
+
+const char *
+synth_dev_home(const struct synth_dev *d, char buf[16])
+{
+	if (d->home == 0) {
+		synth_dev_site(d, buf);
+		return synth_dev_charger(d);
+	}
+	synth_site_name(d->home, buf);
+	return d->home == SITE_NOCUTOFF ? ch_nocutoff.name : ch_dock.name;
+}
+
+void
+synth_site_name(int site, char buf[16])
+{
+	if (site < 0) {
+		buf[0] = '\0';
+		return;
+	}
+	if (site == 0) {
 		memcpy(buf, "depot", 6);
 		return;
 	}
 	memcpy(buf, "dock-0", 6);
-	buf[6] = (char)('0' + d->site);
+	buf[6] = (char)('0' + site);
 	buf[7] = '\0';
+}
+
+/*
+ * --docks: a pack put in a dock goes to its home dock half of the time,
+ * else to any of the seven (the one without a cut-off included), drawn
+ * from a hash of the seed, the pack and its plug-in count rather than
+ * from its random streams, so that the physics' draws keep their order.
+ */
+static void
+dock_hop(struct synth_fleet *f, struct synth_dev *d)
+{
+	uint64_t x = f->c.seed ^ (0x9e3779b97f4a7c15ULL * (uint64_t)(d->idx +
+	    1)) ^ (0xc2b2ae3d27d4eb4fULL * (uint64_t)d->tr.plugins);
+	uint64_t h = synth_splitmix64(&x);
+
+	if (d->home == 0)
+		d->home = d->site;
+	d->site = (h & 1) ? d->home : 1 + (int)((h >> 1) % SITE_NOCUTOFF);
+	d->dock = d->site == SITE_NOCUTOFF ? &ch_nocutoff : &ch_dock;
 }
 
 void
@@ -747,6 +788,8 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 		d->ch_state = SYNTH_CH_CHARGING;
 		d->held = 0;
 		d->tr.plugins++;
+		if (loc == SYNTH_AT_DOCK && f->c.docks)
+			dock_hop(f, d);
 	}
 	if (loc == SYNTH_RIDING) {
 		d->rd.start = t;
@@ -913,6 +956,8 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 	gs = gs < 0 ? 0 : gs > 100 ? 100 : gs;
 	s->soc10 = d->gauge_int ? 10 * (long)floor(gs + 0.5) :
 	    (long)floor(gs * 10.0 + 0.5);
+	s->site = d->loc == SYNTH_AT_DOCK || d->loc == SYNTH_AT_DEPOT ?
+	    d->site : -1;
 
 	/* The truth, in the rows' convention (charge.h). */
 	t0 = d->have_prev ? d->prev_t : t - (cw_time)f->c.period_s *

@@ -206,6 +206,9 @@ struct synth_conf {
 	double aging;		/* multiplies every growth and fade rate */
 	double rate[SYNTH_NFAULT];
 	unsigned formats;	/* SYNTH_FMT_* bits */
+	int charge_sign;	/* raw logs' charging current: 0 each
+				   format's own, 1 positive, -1 negative */
+	int docks;		/* a dock column; packs hop between docks */
 	int level;		/* gzip level */
 	const char *outdir;
 };
@@ -220,6 +223,7 @@ struct synth_sample {
 	long ma;		/* current, mA, positive charging */
 	long dk;		/* temperature, 0.1 K */
 	long soc10;		/* SoC, tenths of a percent */
+	int site;		/* where it sits: 0 depot, N dock N, -1 neither */
 };
 
 /* One charging event outside the normal window, in true values. */
@@ -288,6 +292,7 @@ struct synth_dev {
 	size_t namelen;
 	int profile;
 	int site;		/* 0: depot, else dock site number */
+	int home;		/* --docks: its own dock (0: not yet hopped) */
 	int gauge_int;		/* the gauge reports whole percent */
 	long phase_s;		/* sample times are phase_s past the grid */
 	struct synth_rng rng;	/* physics */
@@ -361,6 +366,13 @@ void	synth_fleet_finish(struct synth_fleet *f);
 /* Names of the charger and site of D, for the truth. */
 const char *synth_dev_charger(const struct synth_dev *d);
 void	synth_dev_site(const struct synth_dev *d, char buf[16]);
+/*
+ * D's own site into BUF and the name of its charger: with --docks the
+ * home dock it hops from, else the same as the two above.
+ */
+const char *synth_dev_home(const struct synth_dev *d, char buf[16]);
+/* The name of site SITE (0: depot); "" for -1. */
+void	synth_site_name(int site, char buf[16]);
 
 /* Writing (synthout.c). */
 

@@ -84,6 +84,10 @@ static void gzw_open(struct run *, struct gzw *, int);
 static void gzw_flush(struct gzw *);
 static void gzw_close(struct gzw *);
 static void put_header(struct run *);
+static const struct synth_sample *signed_sample(const struct run *, int,
+    const struct synth_sample *, struct synth_sample *);
+static size_t put_dock(const struct run *, char *, char,
+    const struct synth_sample *);
 static void put_row(struct run *, struct synth_dev *,
 	    const struct synth_sample *, cw_time, int, double);
 static void fault(struct run *, unsigned long, const struct synth_dev *,
@@ -421,11 +425,50 @@ put_header(struct run *r)
 		size_t n = strlen(h);
 
 		memcpy(w->buf + w->n, h, n);
+		if (r->c->docks) {
+			memcpy(w->buf + w->n + n, w->fmt == SYNTH_FMT_A ?
+			    ",dock" : ";dock", 5);
+			n += 5;
+		}
 		w->buf[w->n + n] = '\n';
 		w->n += n + 1;
 		r->st->bytes += n + 1;
 	}
 	r->line++;
+}
+
+/*
+ * --charge-sign: S as format FMT should write it.  Format A counts
+ * charging negative and B positive (their own conventions); a sign asked
+ * for that differs turns the current (into *BUF).
+ */
+static const struct synth_sample *
+signed_sample(const struct run *r, int fmt, const struct synth_sample *s,
+    struct synth_sample *buf)
+{
+	int own = fmt == SYNTH_FMT_A ? -1 : 1;
+
+	if (r->c->charge_sign == 0 || r->c->charge_sign == own)
+		return s;
+	*buf = *s;
+	buf->ma = -s->ma;
+	return buf;
+}
+
+/* --docks: the delimiter DL and the site of S at P; its length. */
+static size_t
+put_dock(const struct run *r, char *p, char dl, const struct synth_sample *s)
+{
+	char site[16];
+	size_t n;
+
+	if (!r->c->docks)
+		return 0;
+	synth_site_name(s->site, site);
+	n = strlen(site);
+	p[0] = dl;
+	memcpy(p + 1, site, n);
+	return n + 1;
 }
 
 /*
@@ -441,17 +484,21 @@ put_row(struct run *r, struct synth_dev *d, const struct synth_sample *s,
 
 	for (k = 0; k < r->nw; k++) {
 		struct gzw *w = &r->w[k];
+		struct synth_sample turned;
+		const struct synth_sample *sw = signed_sample(r, w->fmt, s,
+		    &turned);
 		char *b = w->buf + w->n, dl;
 		size_t n, last;
 
 		if (w->fmt == SYNTH_FMT_A) {
-			n = synth_fmt_a(b, d, s, t_shown, sentinel);
+			n = synth_fmt_a(b, d, sw, t_shown, sentinel);
 			dl = ',';
 		} else {
-			n = synth_fmt_b(b, d, s, t_shown, r->c->tz_s,
+			n = synth_fmt_b(b, d, sw, t_shown, r->c->tz_s,
 			    sentinel);
 			dl = ';';
 		}
+		n += put_dock(r, b + n, dl, sw);
 		if (cut >= 0) {
 			for (last = n; last > 0 && b[last - 1] != dl; last--)
 				;
@@ -709,8 +756,7 @@ write_devices(struct run *r)
 
 		csvout_strn(w, d->name, d->namelen);
 		csvout_str(w, synth_profile_name[d->profile]);
-		csvout_str(w, synth_dev_charger(d));
-		synth_dev_site(d, site);
+		csvout_str(w, synth_dev_home(d, site));
 		csvout_str(w, site);
 		csvout_str(w, d->gauge_int ? "int" : "tenth");
 		csvout_fixed(w, p->cap0_ah, 4);

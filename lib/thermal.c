@@ -377,8 +377,11 @@ thermal_push_v(struct thermal_dev *d, const struct thermal_conf *c,
 	d->rows++;
 	if (!judged)
 		d->unjudged++;
-	if (cw_isnum(i_a) && i_a > c->min_current)
+	if (cw_isnum(i_a) && i_a > c->min_current) {
 		thermal_ah_add(&d->ah, &c->lim, temp_c, ah);
+		if (d->tag_ah != NULL)
+			thermal_ah_add(d->tag_ah, &c->lim, temp_c, ah);
+	}
 
 	for (k = 0; k < THERMAL_NKIND; k++) {
 		r = &d->run[k];
@@ -391,7 +394,7 @@ thermal_push_v(struct thermal_dev *d, const struct thermal_conf *c,
 		side = 0;
 		if (judged && active(c, k, i_a))
 			side = out_side(c, k, r->open ? r->side : 0, temp_c);
-		if (r->open && side != r->side)
+		if (r->open && (side != r->side || r->ev.tag != d->tag))
 			run_close(r);
 		if (r->open) {
 			ev_add(&r->ev, &c->lim, t, ah, temp_c, soc, i_a, v);
@@ -399,12 +402,14 @@ thermal_push_v(struct thermal_dev *d, const struct thermal_conf *c,
 		}
 		if (side != 0) {
 			if (r->pending && r->pend_side == side &&
+			    r->pend.tag == d->tag &&
 			    c->merge > 0 && t0 - r->pend.end <= c->merge) {
 				run_join(d, r);
 			} else {
 				if (r->pending)
 					run_flush(d, c, r);
 				ev_start(&r->ev, k, side, t0, soc0);
+				r->ev.tag = d->tag;
 			}
 			r->open = 1;
 			r->side = side;

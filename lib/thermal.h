@@ -139,6 +139,13 @@ struct thermal_event {
 	 */
 	double i_max, v_max;
 	int protocol;
+	/*
+	 * The caller's label of the event's first row (thermal_dev.tag
+	 * when that row was pushed): cw-thermal --by.  A row of another
+	 * label ends an event, and events of different labels are never
+	 * merged.
+	 */
+	int tag;
 };
 
 struct thermal_dev;
@@ -208,6 +215,14 @@ struct thermal_dev {
 	double cap_ah;			/* rated capacity; NaN or 0: unknown */
 	int cells;			/* in series; 0: unknown */
 	unsigned long protocol[THERMAL_NPROTO];	/* charge events emitted */
+	/*
+	 * Set by the caller before each push, for a summary by a column
+	 * (cw-thermal --by): the label of the row, copied to an event
+	 * that starts at it, and where its Ah charged also go (NULL: only
+	 * to ah).  Zero and NULL when unused.
+	 */
+	int tag;
+	struct thermal_ah *tag_ah;
 };
 
 /* All-zero but for the SoC, capacity and cells, which are unknown. */

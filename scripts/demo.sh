@@ -4,8 +4,8 @@
 #
 #   1. cw-synth simulates the fleet (24 packs, 28 winter days, one row per
 #      pack every 10 s) and writes its raw gauge logs (format a: epoch ms,
-#      mV, mA charge-negative, 0.1 K) and the truth it injected, into
-#      demo/in/;
+#      mV, mA charge-negative, 0.1 K, and the dock each pack sits at: packs
+#      hop between docks) and the truth it injected, into demo/in/;
 #   2. cw-clean turns the logs into one sample stream, demo/out/cw-clean.csv.gz,
 #      and keeps every line it rejected in demo/out/cw-clean-rejects.csv;
 #   3. every analysis tool reads that stream and writes demo/out/<tool>.csv;
@@ -14,7 +14,11 @@
 #      cw-wear --dwell; measured.png: modelled against measured fade per
 #      pack, from cw-wear --measured and cw-capacity --trend, with the
 #      model's scales fitted to it in cw-wear-fit.csv);
-#   5. scripts/morning-report.sh prints the packs that need attention.
+#   5. cw-report prints the packs that need attention, most urgent first
+#      (demo/out/report.txt; exit 3 of cw-report, "something to act on",
+#      is not a failure of the demo).
+#      Then cw-thermal --by dock --summary says which dock charges in
+#      the cold (demo/out/cold-docks.txt).
 #
 # demo/in and demo/out are emptied first and ignored by git.  Settings can
 # be changed from the environment: DEMO_DEVICES, DEMO_DAYS, DEMO_START
@@ -147,10 +151,11 @@ dwell_group() {
 }
 
 say "cw-synth: $devs packs, $days days from $start, seed $seed -> $in/"
-cw-synth -n "$devs" -d "$days" -S "$start" -s "$seed" -o "$in"
+cw-synth -n "$devs" -d "$days" -S "$start" -s "$seed" --docks -o "$in"
 
 # The operator's asset register, which a real fleet keeps anyway: each
-# pack's home site and the group of riders it serves.  Only the plots and
+# pack's home site (packs hop, so the dock column of the logs is where
+# one charged) and the group of riders it serves.  Only the plots and
 # the report read it; the tools never see the truth.
 awk -F, 'NR == 1 { print "device,site,group"; next }
     { print $1 "," $4 "," $2 }' "$in/truth-devices.csv" >"$in/fleet.csv"
@@ -159,11 +164,13 @@ awk -F, 'NR == 1 { print "device,site,group"; next }
 # as negative.  cw-clean's default --sentinel list rejects the gauges'
 # no-value codes (-32768, 65535) by their raw value; the current bound is
 # a plausibility bound: no real current of these packs comes near 30 A
-# (the depot charger gives 14 A).
+# (the depot charger gives 14 A).  --keep dock carries the dock column of
+# the logs into the stream, for cw-thermal --by dock.
 say "cw-clean: raw logs -> $out/cw-clean.csv.gz (rejects kept)"
 mkfifo "$tmp/stream"
 job compress "$tmp/stream" "$out/cw-clean.csv.gz"
 job cw-clean -v --charge-negative --cells 10 --bounds current=-30:30 \
+    --keep dock \
     --rejects "$out/cw-clean-rejects.csv" -o "$tmp/stream" \
     "$in"/*.a.csv.gz 2>"$out/cw-clean.log"
 waitall || { cat "$out/cw-clean.log" >&2; die "cw-clean failed"; }
@@ -178,17 +185,22 @@ tail -n 2 "$out/cw-clean.log" | sed "s/^/demo: /" >&2
 # get one too.
 S=$out/cw-clean.csv.gz
 DCIR="--temp -10,45 --soc 10,90"
-say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear -> $out/"
+say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear cw-capacity" \
+    "cw-volt -> $out/"
 job cw-rainflow -o "$out/cw-rainflow.csv" "$S"
 job cw-thermal -o "$out/cw-thermal.csv" "$S"
+job cw-thermal -s --capacity 14 --cells 10 \
+    -o "$out/cw-thermal-summary.csv" "$S"
+job cw-thermal --by dock -s -o "$out/cw-thermal-docks.csv" "$S"
 job cw-topoff -s -o "$out/cw-topoff.csv" "$S"
+job cw-capacity -t --rated 14 -o "$out/cw-capacity-trend.csv" "$S"
+job cw-volt -s --cells 10 -o "$out/cw-volt-summary.csv" "$S"
 job cw-dcir $DCIR -o "$out/cw-dcir.csv" "$S"
 job cw-dcir -t --temp -10,45 --soc auto -o "$out/cw-dcir-trend.csv" "$S"
 job cw-wear --cycle-life 500 --capacity 14 -o "$out/cw-wear.csv" "$S"
 job cw-wear --dwell -o "$out/cw-wear-dwell.csv" "$S"
 # Temperature of the charging rows, one a minute per pack, for the plot.
 job charging_temp "$S" "$in/fleet.csv" "$out/charging-temp.csv"
-job cw-capacity -t --rated 14 -o "$out/cw-capacity-trend.csv" "$S"
 waitall || die "an analysis tool failed"
 
 # The model against the measured capacity: cw-wear's fade beside the
@@ -238,5 +250,24 @@ job gnuplot -e "in='$out/dwell-idle-dock.csv'; out='$out/dwell.png'; \
     scripts/plot-dwell.gp
 waitall || die "gnuplot failed"
 
-scripts/morning-report.sh "$out" "$in/fleet.csv" | tee "$out/morning-report.txt"
+# The morning report from the per-pack outputs, dates at the fleet's
+# local offset (cw-synth's default, +01:00).
+rc=0
+cw-report --fleet "$in/fleet.csv" --tz +01:00 -o "$out/report.txt" \
+    "$out/cw-wear.csv" "$out/cw-thermal-summary.csv" "$out/cw-topoff.csv" \
+    "$out/cw-dcir-trend.csv" "$out/cw-capacity-trend.csv" \
+    "$out/cw-volt-summary.csv" || rc=$?
+[ $rc -eq 0 ] || [ $rc -eq 3 ] || die "cw-report failed"
+cat "$out/report.txt"
+# Packs hop between docks, so the report's per-pack site cannot name the
+# charger: the summary per dock can (events_below_min and ah_below_min
+# found by name).
+awk -F, 'NR == 1 { for (k = 1; k <= NF; k++) c[$k] = k; next }
+    $c["events_below_min"] > 0 {
+	printf "%s%s: %d charge events below T1, %.2f Ah, %d packs there\n",
+	    n++ ? "" : "Docks that charged in the cold (cw-thermal --by dock):\n",
+	    ($1 == "" ? "(away)" : $1), $c["events_below_min"],
+	    $c["ah_below_min"], $c["devices"] }
+    END { if (!n) print "No dock charged below T1." }' \
+    "$out/cw-thermal-docks.csv" | tee "$out/cold-docks.txt"
 say "done in $(( $(date +%s) - t0 )) s; outputs in $out/"

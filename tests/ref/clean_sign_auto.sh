@@ -1,6 +1,6 @@
 #!/bin/sh
-# --charge-sign auto against the sign convention cw-synth wrote.  Both of
-# its raw formats count charging current negative (cw-synth(1)); the
+# --charge-sign auto against the sign convention cw-synth wrote.  Its
+# format a counts charging current negative (cw-synth(1)); the
 # convention of the sample stream (positive while charging) is the one
 # the coulomb-counting rule needs: SoC rises with the integral of
 # charging current (charge = integral of I dt, with SoC = charge over

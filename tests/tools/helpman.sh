@@ -42,6 +42,7 @@ norm='
 function dflt(text,   v) {
 	# "default V", "Default V" or "V (the default".
 	v = ""
+	gsub(/[ \t]+/, " ", text)
 	if (match(text, /[Dd]efault [^ ]+/))
 		v = substr(text, RSTART + 8, RLENGTH - 8)
 	else if (match(text, /[^ ]+ \(the default/))
@@ -96,7 +97,7 @@ function out() { if (name != "") print name "\t" dflt(text); name = "" }
 	text = substr($0, RSTART + RLENGTH)
 	next
 }
-/^      [ ]+[^ -]/ && name != "" { text = text " " $0; next }
+/^       +[^ ]/ && name != "" { text = text " " $0; next }
 { out() }
 END { out() }
 ' "$tmp.help" | sort >"$tmp.hlp"

@@ -443,6 +443,63 @@ test_merge(void **st)
 	near(got[1].charge_ah, 120.0 / 3600, 1e-12);
 }
 
+/*
+ * The caller's tag (cw-thermal --by): an event takes its first row's tag,
+ * a row of another tag ends it, two tags are never merged, and each
+ * row's Ah also go to tag_ah.  By hand, below: rows 60 s apart at 1 A,
+ * 5 C (cool) but one at 20 C (normal).
+ */
+static void
+test_tag(void **st)
+{
+	/* {t, I, T, SoC}, with the tag of each row beside. */
+	static const double rows[][4] = {
+		{ 0, 1.0, 5, NA }, { 60, 1.0, 5, NA }, { 120, 1.0, 5, NA },
+		{ 180, 1.0, 5, NA }, { 240, 1.0, 20, NA }, { 300, 1.0, 5, NA },
+		{ 360, 1.0, 5, NA },
+	};
+	static const int tags[] = { 1, 1, 1, 2, 2, 1, 1 };
+	struct thermal_ah ah[3];
+	struct thermal_conf c;
+	struct thermal_dev d;
+	size_t k;
+
+	(void)st;
+	setup_conf(&c);
+	c.min_duration = 0;
+	thermal_init(&d);
+	memset(ah, 0, sizeof(ah));
+	for (k = 0; k < sizeof(rows) / sizeof(rows[0]); k++) {
+		d.tag = tags[k];
+		d.tag_ah = &ah[tags[k]];
+		thermal_push(&d, &c, (cw_time)rows[k][0] * S, rows[k][1],
+		    rows[k][2], rows[k][3]);
+	}
+	thermal_finish(&d, &c);
+	/*
+	 * Tag 1: 0..120 s (the first row opens it at 0, no charge), cool.
+	 * The row at 180 s has tag 2: a new event 120..180 s (without tags
+	 * all rows to 180 s are one run).  The normal row at 240 s (tag 2)
+	 * ends it; at 300 s tag 1 again: 240..360 s, not merged with the
+	 * tag 2 event 60 s before (it would be, within --merge 2m, were the
+	 * tags the same).
+	 */
+	assert_int_equal(ngot, 3);
+	assert_true(got[0].start == 0 && got[0].end == 120 * S);
+	assert_int_equal(got[0].tag, 1);
+	assert_true(got[1].start == 120 * S && got[1].end == 180 * S);
+	assert_int_equal(got[1].tag, 2);
+	assert_true(got[2].start == 240 * S && got[2].end == 360 * S);
+	assert_int_equal(got[2].tag, 1);
+	assert_int_equal(got[2].parts, 1);
+	/* Ah by tag, each row's own 60 As: tag 1 rows 60, 120, 300, 360
+	 * (cool), tag 2 rows 180 (cool) and 240 (normal). */
+	near(ah[1].zone[THERMAL_COOL], 240.0 / 3600, 1e-12);
+	near(ah[2].zone[THERMAL_COOL], 60.0 / 3600, 1e-12);
+	near(ah[2].zone[THERMAL_NORMAL], 60.0 / 3600, 1e-12);
+	near(d.ah.zone[THERMAL_COOL], 300.0 / 3600, 1e-12);
+}
+
 /* --min-duration drops short events and counts them. */
 static void
 test_min_duration(void **st)
@@ -649,6 +706,7 @@ main(void)
 		cmocka_unit_test(test_sign_and_use),
 		cmocka_unit_test(test_min_current),
 		cmocka_unit_test(test_merge),
+		cmocka_unit_test(test_tag),
 		cmocka_unit_test(test_min_duration),
 		cmocka_unit_test(test_max_gap),
 		cmocka_unit_test(test_unjudged),

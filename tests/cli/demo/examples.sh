@@ -1,7 +1,7 @@
-# Each usage example in the headers of scripts/plot-*.gp and
-# scripts/morning-report.sh, as written there, on a small invented fleet
-# without faults (4 packs, 2 days); the CSVs they make and the size of each
-# plot (a PNG's IHDR width and height).
+# Each usage example in the headers of scripts/plot-*.gp, as written
+# there, on a small invented fleet without faults (4 packs, 2 days); the
+# CSVs they make and the size of each plot (a PNG's IHDR width and
+# height).
 # source: snapshot: the CSVs and plot sizes of a small invented fleet, pinned
 #   as the scripts make them
 png() {
@@ -14,15 +14,12 @@ png() {
 top=$PWD
 cd "$TMPDIR_CASE" || exit 1
 ln -s "$top/scripts" scripts
-mkdir out
 cw-synth -n 4 -d 2 -F none -o in || exit 1
 cw-clean --charge-negative --cells 10 -o log.csv in/*.a.csv.gz || exit 1
 cp log.csv stream.csv
 awk -F, 'NR == 1 { print "device,site,group"; next }
     { print $1 "," $4 "," $2 }' in/truth-devices.csv >fleet.csv
 cw-wear -o wear.csv log.csv || exit 1
-cw-wear --cycle-life 500 -o out/cw-wear.csv log.csv || exit 1
-cw-thermal -o out/cw-thermal.csv log.csv || exit 1
 
 echo "== plot-fade.gp"
 (head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k18,18gr |
@@ -81,10 +78,6 @@ cw-wear --dwell log.csv | awk -F, -v dev=EB-0001 -v days=2 '
 cat dwell.csv
 gnuplot -e "in='dwell.csv'; out='dwell.png'" "scripts/plot-dwell.gp"
 png dwell.png
-
-echo "== morning-report.sh"
-"scripts/morning-report.sh" -n 2 out fleet.csv
-echo "exit $?"
 
 echo "== plot-measured.gp"
 cw-wear --cycle-life 500 --capacity 10 \

@@ -1,0 +1,178 @@
+/*
+ * cw-report: the morning report for cron.  It reads the per-device CSVs
+ * the analysis tools wrote and the fleet file, and prints the packs that
+ * need attention, most urgent first, and why; exit status 3 when there is
+ * any.  The engine is lib/report.c; this file holds the options.
+ */
+#include <errno.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cw.h"
+#include "finish.h"
+#include "fleet.h"
+#include "opt.h"
+#include "optab.h"
+#include "outf.h"
+#include "report.h"
+#include "ts.h"
+
+/* Something needs attention: cron mails on it. */
+#define EXIT_ATTENTION 3
+
+enum {
+	OPT_BY = OPTAB_LONG, OPT_CSV, OPT_FLEET, OPT_GROWTH, OPT_HORIZON,
+	OPT_LIFE, OPT_LIMITS, OPT_SINCE, OPT_SOH, OPT_TOPOFF, OPT_TZ
+};
+
+static const struct optab opts[] = {
+	{ "by", 0, "site|model", "roll the reasons up per site or model of "
+	    "the fleet file (without it: per pack)", NULL, OPT_BY },
+	{ "csv", 0, NULL, "write CSV: rank,device,site,reason,detail,new,tier",
+	    NULL, OPT_CSV },
+	{ "fleet", 0, "FILE", "the fleet file: site, model, capacity_ah",
+	    NULL, OPT_FLEET },
+	{ "growth", 0, "PCT", "resistance growth since the trend's start that "
+	    "needs attention", "100, i.e. doubled", OPT_GROWTH },
+	{ "horizon", 0, "DAYS", "a sure trend that reaches --soh or --growth "
+	    "within DAYS needs attention", "90", OPT_HORIZON },
+	{ "life", 0, "DAYS", "modelled days to end of life below DAYS need "
+	    "attention", "365", OPT_LIFE },
+	{ "limits", 0, "T1,T2,T3,T4", "the zones cw-thermal was run with, for "
+	    "the text", "0,10,45,60 C", OPT_LIMITS },
+	{ "top", 'n', "N", "list the N most urgent packs (or groups) only",
+	    "0: all", 0 },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0 },
+	{ "since", 0, "FILE", "an earlier --csv report: mark what is new",
+	    NULL, OPT_SINCE },
+	{ "soh", 0, "PCT", "measured state of health below PCT needs "
+	    "attention", "80", OPT_SOH },
+	{ "topoff", 0, "N", "show top-off micro-cycles a day of N or more "
+	    "beside a listed pack", "10", OPT_TOPOFF },
+	{ "tz", 0, "+HH:MM", "dates at this offset from UTC", "UTC", OPT_TZ },
+	{ "verbose", 'v', NULL, "say what each input file was taken for",
+	    NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-report", "[FILE ...]",
+	"The packs that need attention, most urgent first, and why, from\n"
+	"the outputs of cw-wear, cw-thermal --summary, cw-topoff --summary,\n"
+	"cw-dcir --trend, cw-capacity --trend and cw-volt --summary (each\n"
+	"recognised by its header).  Exit status 3 when any pack needs\n"
+	"attention, 0 when none does.\n",
+	"The thresholds are common practice, no source; the cell maker's data\n"
+	"sheet rules.  The report advises; it is not a safety system.\n",
+	opts
+};
+
+
+int
+main(int argc, char *argv[])
+{
+	static char stdin_name[] = "-";
+	static char *stdin_only[] = { stdin_name };
+	struct report_conf conf;
+	struct optparse op;
+	struct report *rep;
+	struct fleet *fleet = NULL;
+	struct outf *of;
+	const char *outpath = NULL, *fleetpath = NULL, *since = NULL;
+	size_t npacks;
+	int ch, i, rc = CW_EXIT_OK;
+
+	cw_setprog("cw-report");
+	report_conf_default(&conf);
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
+		switch (ch) {
+		case 'n':
+			conf.top = opt_long_arg("--top", optarg, 0, 1000000000);
+			break;
+		case 'o':
+			outpath = optarg;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_BY:
+			if (strcmp(optarg, "site") == 0)
+				conf.by = REPORT_BY_SITE;
+			else if (strcmp(optarg, "model") == 0)
+				conf.by = REPORT_BY_MODEL;
+			else
+				cw_usage_error("--by: \"%s\" is not site or "
+				    "model", optarg);
+			break;
+		case OPT_CSV:
+			conf.csv = 1;
+			break;
+		case OPT_FLEET:
+			fleetpath = optarg;
+			break;
+		case OPT_GROWTH:
+			conf.growth_max = opt_num_arg("--growth", optarg,
+			    0.001, 1e6);
+			break;
+		case OPT_HORIZON:
+			conf.horizon_d = opt_num_arg("--horizon", optarg, 0,
+			    36500);
+			break;
+		case OPT_LIFE:
+			conf.life_d = opt_num_arg("--life", optarg, 0, 36500);
+			break;
+		case OPT_LIMITS:
+			opt_list_arg("--limits", optarg, conf.lim, 4, 1, 1);
+			break;
+		case OPT_SINCE:
+			since = optarg;
+			break;
+		case OPT_SOH:
+			conf.soh_min = opt_num_arg("--soh", optarg, 0.001,
+			    150);
+			break;
+		case OPT_TOPOFF:
+			conf.topoff_day = opt_num_arg("--topoff", optarg, 0,
+			    1e6);
+			break;
+		case OPT_TZ:
+			if (ts_parse_offset(optarg, &conf.tz_s) != 0)
+				cw_usage_error("--tz: \"%s\" is not an offset "
+				    "such as +01:00, -0500 or UTC", optarg);
+			break;
+		}
+	}
+	optab_free(&op);
+	argc -= optind;
+	argv += optind;
+	if (argc == 0) {
+		argv = stdin_only;
+		argc = 1;
+	}
+
+	if (fleetpath != NULL)
+		fleet = fleet_load(fleetpath);
+	rep = report_new(&conf, fleet);
+	if (since != NULL)
+		rc = report_since(rep, since);
+	for (i = 0; i < argc && rc == 0; i++)
+		rc = report_read(rep, argv[i]);
+	if (rc == 0) {
+		npacks = report_rank(rep);
+		of = outf_open(outpath);
+		if (report_write(rep, outf_fp(of)) != 0) {
+			cw_write_error(outpath, errno);
+			outf_abort(of);
+			rc = CW_EXIT_DATA;
+		} else if (outf_commit(of) != 0)
+			rc = CW_EXIT_DATA;
+		else if (npacks > 0)
+			rc = EXIT_ATTENTION;
+	}
+	report_free(rep);
+	fleet_free(fleet);
+	return rc;
+}

@@ -1,0 +1,288 @@
+/*
+ * optab.c: getopt tables, synopsis and help from one description of a
+ * tool's options (optab.h).
+ */
+#include <ctype.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cw.h"
+#include "opt.h"
+#include "optab.h"
+
+#define WIDTH	78	/* the help's right margin */
+#define TEXTCOL	26	/* where an option's description starts */
+#define ID_HELP		'h'
+#define ID_VERSION	(OPTAB_LONG - 1)
+
+/* The two options every tool has, after its own. */
+static const struct optab common[] = {
+	{ "help", 'h', NULL, "print this help and exit 0", NULL, ID_HELP },
+	{ "version", 0, NULL, "print the version and exit 0", NULL,
+	    ID_VERSION },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static size_t
+count(const struct optab *t)
+{
+	size_t n = 0;
+
+	while (t[n].name != NULL)
+		n++;
+	return n;
+}
+
+static int
+id_of(const struct optab *o)
+{
+	return o->id != 0 ? o->id : o->letter;
+}
+
+void
+optab_init(struct optparse *p, const struct optool *tool)
+{
+	const struct optab *sets[2] = { tool->opts, common };
+	size_t n, i, k = 0, s;
+	char *sh = p->shorts;
+
+	p->tool = tool;
+	n = count(tool->opts) + count(common);
+	p->longopts = cw_calloc(n + 1, sizeof(*p->longopts));
+	*sh++ = ':';
+	for (s = 0; s < 2; s++)
+		for (i = 0; sets[s][i].name != NULL; i++) {
+			const struct optab *o = &sets[s][i];
+
+			p->longopts[k].name = o->name;
+			p->longopts[k].has_arg = o->arg != NULL ?
+			    required_argument : no_argument;
+			p->longopts[k].val = id_of(o);
+			k++;
+			if (o->letter != 0 && sh < p->shorts +
+			    sizeof(p->shorts) - 2) {
+				*sh++ = (char)o->letter;
+				if (o->arg != NULL)
+					*sh++ = ':';
+			}
+		}
+	*sh = '\0';
+	opterr = 0;
+}
+
+int
+optab_next(struct optparse *p, int argc, char *argv[])
+{
+	int ch;
+
+	ch = getopt_long(argc, argv, p->shorts, p->longopts, NULL);
+	switch (ch) {
+	case -1:
+		return -1;
+	case ID_HELP:
+		optab_help(stdout, p->tool);
+		exit(fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA);
+	case ID_VERSION:
+		cw_print_version();
+	case ':':
+	case '?':
+		opt_getopt_fail(ch, argv);
+	}
+	return ch;
+}
+
+void
+optab_free(struct optparse *p)
+{
+	free(p->longopts);
+	p->longopts = NULL;
+}
+
+/*
+ * The key an option is sorted by in the synopsis and the help: its
+ * letter, or its name when it has none (so -o sorts as "o", before
+ * --output-format).
+ */
+static const char *
+key(const struct optab *o, char buf[2])
+{
+	if (o->letter == 0)
+		return o->name;
+	buf[0] = (char)o->letter;
+	buf[1] = '\0';
+	return buf;
+}
+
+static int
+cmp_syn(const void *a, const void *b)
+{
+	const struct optab *x = *(const struct optab *const *)a;
+	const struct optab *y = *(const struct optab *const *)b;
+	char bx[2], by[2];
+	const char *kx = key(x, bx), *ky = key(y, by);
+	int c;
+
+	for (; *kx != '\0' && *ky != '\0'; kx++, ky++)
+		if ((c = tolower((unsigned char)*kx) -
+		    tolower((unsigned char)*ky)) != 0)
+			return c;
+	if (*kx != *ky)
+		return *kx == '\0' ? -1 : 1;
+	/* The lower case letter first, as -s before -S. */
+	return islower((unsigned char)*key(y, by)) -
+	    islower((unsigned char)*key(x, bx));
+}
+
+/* Word W of length N at column *COL of a line indented by IND. */
+static void
+put_word(FILE *fp, const char *w, size_t n, size_t *col, size_t ind)
+{
+	if (*col > ind && *col + 1 + n > WIDTH) {
+		fprintf(fp, "\n%*s", (int)ind, "");
+		*col = ind;
+	} else if (*col != ind) {
+		fputc(' ', fp);
+		(*col)++;
+	}
+	fwrite(w, 1, n, fp);
+	*col += n;
+}
+
+/* TEXT word by word from column *COL, wrapped lines indented by IND. */
+static void
+put_text(FILE *fp, const char *text, size_t *col, size_t ind)
+{
+	const char *s = text, *e;
+
+	for (;;) {
+		while (*s == ' ')
+			s++;
+		if (*s == '\0')
+			return;
+		/* A bracketed option stays whole, as "[--full PCT]". */
+		if (*s == '[' && (e = strchr(s, ']')) != NULL)
+			e++;
+		else
+			for (e = s; *e != '\0' && *e != ' '; e++)
+				;
+		put_word(fp, s, (size_t)(e - s), col, ind);
+		s = e;
+	}
+}
+
+static void
+synopsis(FILE *fp, const struct optool *tool)
+{
+	const struct optab *sets[2] = { tool->opts, common };
+	const struct optab **v;
+	char flags[64], buf[256];
+	size_t n, i, k = 0, nf = 0, col, ind;
+	int s;
+
+	n = count(tool->opts) + count(common);
+	v = cw_calloc(n, sizeof(*v));
+	for (s = 0; s < 2; s++)
+		for (i = 0; sets[s][i].name != NULL; i++) {
+			const struct optab *o = &sets[s][i];
+
+			if (o->letter != 0 && o->arg == NULL) {
+				if (nf < sizeof(flags) - 1)
+					flags[nf++] = (char)o->letter;
+			} else
+				v[k++] = o;
+		}
+	/* The flags' letters in order, lower case first per letter. */
+	for (i = 1; i < nf; i++) {
+		char c = flags[i];
+		size_t j = i;
+
+		while (j > 0 && (tolower((unsigned char)flags[j - 1]) >
+		    tolower((unsigned char)c) ||
+		    (tolower((unsigned char)flags[j - 1]) ==
+		    tolower((unsigned char)c) && isupper((unsigned char)
+		    flags[j - 1])))) {
+			flags[j] = flags[j - 1];
+			j--;
+		}
+		flags[j] = c;
+	}
+	flags[nf] = '\0';
+	qsort(v, k, sizeof(*v), cmp_syn);
+	fprintf(fp, "usage: %s", tool->prog);
+	ind = strlen("usage: ") + strlen(tool->prog) + 1;
+	col = ind - 1;
+	if (nf > 0) {
+		snprintf(buf, sizeof(buf), "[-%s]", flags);
+		put_word(fp, buf, strlen(buf), &col, ind);
+	}
+	for (i = 0; i < k; i++) {
+		if (v[i]->letter != 0)
+			snprintf(buf, sizeof(buf), "[-%c %s]", v[i]->letter,
+			    v[i]->arg);
+		else if (v[i]->arg != NULL)
+			snprintf(buf, sizeof(buf), "[--%s %s]", v[i]->name,
+			    v[i]->arg);
+		else
+			snprintf(buf, sizeof(buf), "[--%s]", v[i]->name);
+		put_word(fp, buf, strlen(buf), &col, ind);
+	}
+	if (tool->operands != NULL)
+		put_text(fp, tool->operands, &col, ind);
+	fputc('\n', fp);
+	free(v);
+}
+
+void
+optab_help(FILE *fp, const struct optool *tool)
+{
+	const struct optab *sets[2] = { tool->opts, common };
+	const struct optab **v;
+	char buf[256];
+	size_t n, i, k = 0, col;
+	int s;
+
+	synopsis(fp, tool);
+	if (tool->about != NULL)
+		fprintf(fp, "\n%s", tool->about);
+	fputc('\n', fp);
+	n = count(tool->opts) + count(common);
+	v = cw_calloc(n, sizeof(*v));
+	for (s = 0; s < 2; s++)
+		for (i = 0; sets[s][i].name != NULL; i++)
+			v[k++] = &sets[s][i];
+	qsort(v, k, sizeof(*v), cmp_syn);
+	for (i = 0; i < k; i++) {
+		const struct optab *o = v[i];
+
+		if (o->letter != 0)
+			snprintf(buf, sizeof(buf), "  -%c, --%s%s%s",
+			    o->letter, o->name, o->arg ? " " : "",
+			    o->arg ? o->arg : "");
+		else
+			snprintf(buf, sizeof(buf), "      --%s%s%s", o->name,
+			    o->arg ? " " : "", o->arg ? o->arg : "");
+		fputs(buf, fp);
+		col = strlen(buf);
+		/* A long one has its text on the next line. */
+		if (col < TEXTCOL - 1)
+			fprintf(fp, "%*s", (int)(TEXTCOL - col), "");
+		else if (col == TEXTCOL - 1)
+			fputc(' ', fp);
+		else
+			fprintf(fp, "\n%*s", TEXTCOL, "");
+		col = TEXTCOL;
+		put_text(fp, o->help, &col, TEXTCOL);
+		if (o->dflt != NULL) {
+			/* "(default X)" on one line when X is one word. */
+			snprintf(buf, sizeof(buf), "(default %s)", o->dflt);
+			if (strchr(o->dflt, ' ') == NULL)
+				put_word(fp, buf, strlen(buf), &col, TEXTCOL);
+			else
+				put_text(fp, buf, &col, TEXTCOL);
+		}
+		fputc('\n', fp);
+	}
+	free(v);
+	if (tool->epilogue != NULL)
+		fprintf(fp, "\n%s", tool->epilogue);
+}

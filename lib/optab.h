@@ -1,0 +1,54 @@
+/*
+ * optab.h: a tool's options described once.  From one table come the
+ * getopt_long() tables, the usage synopsis and the --help text, and
+ * tests/tools/helpman.sh checks the manual page against that help, so
+ * the three cannot drift apart.
+ *
+ * -h/--help and --version are handled here; a missing value or an
+ * unknown option is a usage error (exit 2).  Values are still checked by
+ * the opt_*_arg() functions of opt.h, in the tool.
+ */
+#ifndef OPTAB_H
+#define OPTAB_H
+
+#include <getopt.h>
+#include <stdio.h>
+
+/* The id optab_next() returns for an option without a letter starts here. */
+#define OPTAB_LONG 256
+
+struct optab {
+	const char *name;	/* long name without "--"; NULL ends a table */
+	int letter;		/* short letter, or 0 */
+	const char *arg;	/* the value's name (AH, FILE), NULL: a flag */
+	const char *help;	/* what it does, one sentence without a stop */
+	const char *dflt;	/* the default as shown, or NULL for none */
+	int id;			/* returned for it; 0: the letter */
+};
+
+struct optool {
+	const char *prog;	/* the tool's name */
+	const char *operands;	/* after the options: "[FILE ...]" */
+	const char *about;	/* the help's paragraph, lines ending in \n */
+	const char *epilogue;	/* after the options, or NULL */
+	const struct optab *opts;	/* without help and version */
+};
+
+struct optparse {
+	const struct optool *tool;
+	struct option *longopts;
+	char shorts[2 * 64 + 2];
+};
+
+void	optab_init(struct optparse *p, const struct optool *tool);
+/*
+ * The next option's id (its letter, or its table id), with optarg set
+ * for one that takes a value; -1 at the end, with optind at the first
+ * operand.  Prints the help or the version and exits for those.
+ */
+int	optab_next(struct optparse *p, int argc, char *argv[]);
+void	optab_free(struct optparse *p);
+/* The help: synopsis, paragraph, every option with its default. */
+void	optab_help(FILE *fp, const struct optool *tool);
+
+#endif
