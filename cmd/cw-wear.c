@@ -15,6 +15,7 @@
 #include "devtab.h"
 #include "dwell.h"
 #include "fleet.h"
+#include "measured.h"
 #include "model.h"
 #include "opt.h"
 #include "outf.h"
@@ -29,6 +30,8 @@
 	"share_high_soc,share_heat,fade_pct,soh_pct,days_to_eol,dominant," \
 	"prior,damage,damage_prior"
 #define HEADER_CAP ",max_charge_c,mean_charge_c,fade_ah"
+#define HEADER_MEAS ",measured_fade_pct,model_error_pct"
+#define HEADER_FIT "quantity,before,after,stderr"
 #define HEADER_DWELL "device,soc_lo,soc_hi,temp_lo_c,temp_hi_c,hours," \
 	"idle_hours"
 #define MAXWARN 10	/* messages of one kind, then only a count */
@@ -60,6 +63,8 @@ struct run {
 	double capacity;	/* Ah, 0 when not given */
 	struct fleet *fleet;	/* --fleet, or NULL */
 	const char *fleet_path;
+	struct meas *meas;	/* --measured, or NULL */
+	unsigned long meas_why[MEAS_NWHY];	/* packs by why (not) */
 	unsigned long late_service;	/* in_service after the first row */
 	struct devtab *devs;
 	unsigned long joins;	/* states joined after or before another */
@@ -74,9 +79,9 @@ struct run {
 
 enum {
 	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
-	OPT_FLEET, OPT_FULL,
+	OPT_FIT_SCALES, OPT_FLEET, OPT_FULL,
 	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
-	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
+	OPT_MEASURED, OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
 };
 
@@ -85,6 +90,7 @@ static const struct option longopts[] = {
 	{ "capacity", required_argument, NULL, OPT_CAPACITY },
 	{ "cycle-life", required_argument, NULL, OPT_CYCLE_LIFE },
 	{ "dwell", no_argument, NULL, OPT_DWELL },
+	{ "fit-scales", no_argument, NULL, OPT_FIT_SCALES },
 	{ "fleet", required_argument, NULL, OPT_FLEET },
 	{ "full", required_argument, NULL, OPT_FULL },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
@@ -92,6 +98,7 @@ static const struct option longopts[] = {
 	{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
 	{ "limits", required_argument, NULL, OPT_LIMITS },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+	{ "measured", required_argument, NULL, OPT_MEASURED },
 	{ "merge", no_argument, NULL, OPT_MERGE },
 	{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
 	{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
@@ -122,6 +129,8 @@ static void report(const struct run *, struct dev **, size_t);
 static void set_prior(struct run *, struct dev *);
 static int on_dwell(void *, void *, const struct cw_sample *);
 static void dwell_run(struct run *, char **, int, const char *);
+static void fit_row(struct csvout *, const char *, double, double, double);
+static void fit_run(struct run *, struct dev **, size_t, struct csvout *);
 
 static void
 usage(FILE *fp)
@@ -129,12 +138,13 @@ usage(FILE *fp)
 	fprintf(fp,
 	    "usage: cw-wear [-hv] [--calendar-life DAYS] [--capacity AH] "
 	    "[--cycle-life N]\n"
-	    "               [--dwell] [--fleet FILE] [--full PCT] "
-	    "[--full-voltage V]\n"
-	    "               [--hysteresis PCT] [--limits T1,T2,T3,T4] "
-	    "[--max-gap DUR]\n"
-	    "               [--merge] [--min-current A] [--min-depth PCT] "
-	    "[--model NAME]\n"
+	    "               [--dwell] [--fit-scales] [--fleet FILE] "
+	    "[--full PCT]\n"
+	    "               [--full-voltage V] [--hysteresis PCT] "
+	    "[--limits T1,T2,T3,T4]\n"
+	    "               [--max-gap DUR] [--measured FILE] [--merge] "
+	    "[--min-current A]\n"
+	    "               [--min-depth PCT] [--model NAME]\n"
 	    "               [-o FILE] [--residue half|full|repeat] "
 	    "[--state FILE]\n"
 	    "               [--state-out] [--version] [file ...]\n"
@@ -152,6 +162,10 @@ usage(FILE *fp)
 	    "                            (default: the published constants)\n"
 	    "      --dwell               hours by SoC and temperature band "
 	    "instead\n"
+	    "      --fit-scales          fit the cycle and calendar scales to "
+	    "--measured\n"
+	    "                            (least squares over packs) and "
+	    "print them\n"
 	    "      --fleet FILE          the fleet file: soh_pct, in_service, "
 	    "efc_prior,\n"
 	    "                            capacity_ah per pack\n"
@@ -165,6 +179,9 @@ usage(FILE *fp)
 	    "(default 0,10,45,60)\n"
 	    "      --max-gap DUR         a longer interval carries no charge "
 	    "(default 15m)\n"
+	    "      --measured FILE       add measured_fade_pct and "
+	    "model_error_pct from a\n"
+	    "                            cw-capacity --trend output\n"
 	    "      --merge               the operands are states: join and "
 	    "report\n"
 	    "      --min-current A       charging above A, idle below "
@@ -376,6 +393,15 @@ write_row(struct csvout *w, const struct run *r, const struct dev *d,
 		csvout_num(w, x->mean_charge_c);
 		csvout_num(w, x->fade_ah);
 	}
+	if (r->meas != NULL) {
+		double m;
+
+		meas_fade(meas_find(r->meas, d->e.name, d->e.namelen),
+		    d->w.acc.first, d->w.acc.last, fleet_capacity(r->fleet,
+		    d->e.name, d->e.namelen, r->capacity), &m);
+		csvout_num(w, m);
+		csvout_num(w, cw_isnum(m) ? x->fade_pct - m : CW_MISSING);
+	}
 	csvout_endrow(w);
 }
 
@@ -439,6 +465,14 @@ report(const struct run *r, struct dev **devs, size_t n)
 		cw_warn("prior damage: %lu packs by measured SoH, %lu by age "
 		    "and cycles, %lu new", kind[WEAR_PRIOR_SOH],
 		    kind[WEAR_PRIOR_AGE], kind[WEAR_PRIOR_NEW]);
+	if (r->meas != NULL)
+		cw_warn("--measured: %zu packs in the file; of the %zu here, "
+		    "%lu with a measured fade, %lu %s, %lu %s, %lu %s, %lu %s",
+		    meas_count(r->meas), n, r->meas_why[MEAS_OK],
+		    r->meas_why[MEAS_NOROW], meas_why(MEAS_NOROW),
+		    r->meas_why[MEAS_NOSLOPE], meas_why(MEAS_NOSLOPE),
+		    r->meas_why[MEAS_UNSURE], meas_why(MEAS_UNSURE),
+		    r->meas_why[MEAS_SPAN], meas_why(MEAS_SPAN));
 	if (r->joins > 0)
 		cw_warn("%lu states joined to the one before or after them",
 		    r->joins);
@@ -574,6 +608,87 @@ dwell_run(struct run *r, char **argv, int argc, const char *out)
 		exit(CW_EXIT_DATA);
 }
 
+/* One row of the fit's table. */
+static void
+fit_row(struct csvout *w, const char *q, double before, double after,
+    double se)
+{
+	csvout_str(w, q);
+	csvout_num(w, before);
+	csvout_num(w, after);
+	csvout_num(w, se);
+	csvout_endrow(w);
+}
+
+/*
+ * --fit-scales: the model's cycle and calendar scales fitted to the
+ * measured fade of the N devices (lib/measured.c), and their effect, as
+ * rows of quantity,before,after,stderr to W.
+ */
+static void
+fit_run(struct run *r, struct dev **devs, size_t n, struct csvout *w)
+{
+	static const char *const life[2] = { "cycle_life", "calendar_life_days" };
+	struct meas_obs *o;
+	struct meas_fit f;
+	struct wear_result x;
+	struct model_eval e;
+	double cap, ref[2];
+	size_t k, m = 0;
+	int j;
+
+	o = cw_calloc(n > 0 ? n : 1, sizeof(*o));
+	for (k = 0; k < n; k++) {
+		cap = fleet_capacity(r->fleet, devs[k]->e.name,
+		    devs[k]->e.namelen, r->capacity);
+		wear_report(&r->conf, &devs[k]->w.acc, &devs[k]->w.prior, cap,
+		    &x);
+		if (meas_fade(meas_find(r->meas, devs[k]->e.name,
+		    devs[k]->e.namelen), devs[k]->w.acc.first,
+		    devs[k]->w.acc.last, cap, &o[m].measured_pct) != MEAS_OK ||
+		    !cw_isnum(x.fade_pct))
+			continue;
+		o[m].acc = &devs[k]->w.acc;
+		o[m].prior = &devs[k]->w.prior;
+		o[m].capacity_ah = cap;
+		m++;
+	}
+	if (meas_fit_scales(&r->conf, o, m, &f) != 0)
+		cw_die(CW_EXIT_DATA, "--fit-scales: %zu packs with both a "
+		    "measured and a modelled fade; the fit needs 2 at least",
+		    m);
+	if (f.common)
+		cw_warn("--fit-scales: the packs do not tell cycling from "
+		    "calendar aging apart (their modelled fades grow alike "
+		    "with either scale): one factor fitted for both");
+	if (!f.converged)
+		cw_warn("--fit-scales: no convergence in 200 steps; the last "
+		    "step's scales are printed");
+	/* The damage of one rated life at reference, to give the scales as
+	 * --cycle-life and --calendar-life. */
+	r->conf.model->cycle(1.0, r->conf.model->ref_soc,
+	    r->conf.model->ref_temp_c, &e);
+	ref[0] = r->conf.model->damage_at(WEAR_EOL_FADE) / e.full;
+	r->conf.model->calendar(r->conf.model->ref_soc,
+	    r->conf.model->ref_temp_c, &e);
+	ref[1] = r->conf.model->damage_at(WEAR_EOL_FADE) / (e.full * 86400.0);
+	csvout_header(w, HEADER_FIT);
+	fit_row(w, "packs", (double)f.n, (double)f.n, CW_MISSING);
+	fit_row(w, "cycle_scale", f.scale[0][0], f.scale[1][0], f.se[0]);
+	fit_row(w, "calendar_scale", f.scale[0][1], f.scale[1][1], f.se[1]);
+	/* A life is ref / scale; its error by the first-order rule. */
+	for (j = 0; j < 2; j++)
+		fit_row(w, life[j], ref[j] / f.scale[0][j],
+		    ref[j] / f.scale[1][j], f.se[j] * ref[j] /
+		    (f.scale[1][j] * f.scale[1][j]));
+	fit_row(w, "scale_correlation", CW_MISSING, f.corr, CW_MISSING);
+	fit_row(w, "rms_error_pct", f.rms[0], f.rms[1], CW_MISSING);
+	fit_row(w, "mean_error_pct", f.bias[0], f.bias[1], CW_MISSING);
+	fit_row(w, "median_days_to_eol", f.eol_median[0], f.eol_median[1],
+	    CW_MISSING);
+	free(o);
+}
+
 /* Whether PATH names something that exists (a state to load). */
 static int
 exists(const char *path)
@@ -602,7 +717,8 @@ main(int argc, char *argv[])
 	double cycle_life = 0, calendar_life = 0;
 	size_t n, k;
 	unsigned fixed = 0;
-	int ch, rc, merge = 0, state_out = 0, dwell = 0;
+	const char *measured = NULL;
+	int ch, rc, merge = 0, state_out = 0, dwell = 0, fitting = 0;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -633,6 +749,9 @@ main(int argc, char *argv[])
 		case OPT_DWELL:
 			dwell = 1;
 			break;
+		case OPT_FIT_SCALES:
+			fitting = 1;
+			break;
 		case OPT_FLEET:
 			fleet = optarg;
 			break;
@@ -659,6 +778,9 @@ main(int argc, char *argv[])
 			r.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
 			r.conf.topoff.max_gap = r.conf.max_gap;
 			fixed |= WSTATE_SET_MAX_GAP;
+			break;
+		case OPT_MEASURED:
+			measured = optarg;
 			break;
 		case OPT_MERGE:
 			merge = 1;
@@ -707,6 +829,11 @@ main(int argc, char *argv[])
 	if (dwell && (state != NULL || state_out || merge))
 		cw_usage_error("--dwell does not go with --state, --state-out "
 		    "or --merge (a dwell table is not kept in a state)");
+	if (fitting && measured == NULL)
+		cw_usage_error("--fit-scales needs --measured FILE");
+	if ((fitting || measured != NULL) && (dwell || state_out))
+		cw_usage_error("--measured and --fit-scales go with the report, "
+		    "not with --dwell or --state-out");
 	if (dwell) {
 		dwell_run(&r, argv, argc, out);
 		return CW_EXIT_OK;
@@ -721,6 +848,8 @@ main(int argc, char *argv[])
 		r.fleet = fleet_load(fleet);
 		r.fleet_path = fleet;
 	}
+	if (measured != NULL)
+		r.meas = meas_load(measured);
 	r.devs = devtab_new(sizeof(struct dev));
 	memset(&rd, 0, sizeof(rd));
 	rd.conf = &r.conf;
@@ -802,16 +931,31 @@ main(int argc, char *argv[])
 		write_states(of, out, &r, sorted, n);
 	else {
 		csvout_init(&w, outf_fp(of));
-		csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
-		    HEADER HEADER_CAP : HEADER);
+		/* --fit-scales: the fit's table, not the rows. */
+		if (!fitting)
+			csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
+			    (r.meas != NULL ? HEADER HEADER_CAP HEADER_MEAS :
+			    HEADER HEADER_CAP) : r.meas != NULL ?
+			    HEADER HEADER_MEAS : HEADER);
 		for (k = 0; k < n; k++) {
 			wear_finish(&sorted[k]->w, &r.conf);
 			wear_report(&r.conf, &sorted[k]->w.acc,
 			    &sorted[k]->w.prior, fleet_capacity(r.fleet,
 			    sorted[k]->e.name, sorted[k]->e.namelen,
 			    r.capacity), &x);
-			write_row(&w, &r, sorted[k], &x);
+			if (!fitting)
+				write_row(&w, &r, sorted[k], &x);
+			if (r.meas != NULL) {
+				double m;
+
+				r.meas_why[meas_fade(meas_find(r.meas,
+				    sorted[k]->e.name, sorted[k]->e.namelen),
+				    sorted[k]->w.acc.first,
+				    sorted[k]->w.acc.last, 1, &m)]++;
+			}
 		}
+		if (fitting)
+			fit_run(&r, sorted, n, &w);
 		if (csvout_flush(&w) != 0) {
 			int e = errno;
 
@@ -829,6 +973,7 @@ main(int argc, char *argv[])
 	free(r.piece);
 	devtab_free(r.devs);
 	fleet_free(r.fleet);
+	meas_free(r.meas);
 	/* The state moves on last, once the report is out. */
 	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
 		exit(CW_EXIT_DATA);

@@ -11,7 +11,9 @@
 #   3. every analysis tool reads that stream and writes demo/out/<tool>.csv;
 #   4. gnuplot draws the plots of scripts/plot-*.gp into demo/out/*.png
 #      (dwell.png: where the idle-dock group spends its time, from
-#      cw-wear --dwell);
+#      cw-wear --dwell; measured.png: modelled against measured fade per
+#      pack, from cw-wear --measured and cw-capacity --trend, with the
+#      model's scales fitted to it in cw-wear-fit.csv);
 #   5. cw-report prints the packs that need attention, most urgent first
 #      (demo/out/report.txt; exit 3 of cw-report, "something to act on",
 #      is not a failure of the demo).
@@ -204,6 +206,19 @@ job cw-wear --dwell -o "$out/cw-wear-dwell.csv" "$S"
 job charging_temp "$S" "$in/fleet.csv" "$out/charging-temp.csv"
 waitall || die "an analysis tool failed"
 
+# The model against the measured capacity: cw-wear's fade beside the
+# Theil-Sen trend of cw-capacity, and the model's scales fitted to it.
+say "cw-wear --measured: $out/cw-wear-measured.csv, cw-wear-fit.csv"
+# The fit needs two packs with a sure measured fade, which a short run
+# may not have.
+M="--cycle-life 500 --capacity 14"
+job cw-wear $M --measured "$out/cw-capacity-trend.csv" \
+    -o "$out/cw-wear-measured.csv" "$S"
+cw-wear $M --measured "$out/cw-capacity-trend.csv" --fit-scales \
+    -o "$out/cw-wear-fit.csv" "$S" 2>"$out/cw-wear-fit.log" ||
+	say "no scales fitted: $(tail -n 1 "$out/cw-wear-fit.log")"
+waitall || die "cw-wear --measured failed"
+
 # Where the packs held in docks spend their time.
 dwell_group "$out/cw-wear-dwell.csv" "$in/fleet.csv" "$out/cw-wear.csv" \
     idle-dock >"$out/dwell-idle-dock.csv"
@@ -227,6 +242,8 @@ job gnuplot -e "in='$out/cw-wear.csv'; out='$out/fade.png'" \
     scripts/plot-fade.gp
 job gnuplot -e "steps='$out/cw-dcir.csv'; trend='$out/cw-dcir-trend.csv'; \
     packs='$fast'; out='$out/dcir.png'" scripts/plot-dcir.gp
+job gnuplot -e "in='$out/cw-wear-measured.csv'; out='$out/measured.png'" \
+    scripts/plot-measured.gp
 job gnuplot -e "in='$out/rainflow-groups.csv'; out='$out/rainflow.png'" \
     scripts/plot-rainflow.gp
 job gnuplot -e "in='$out/charging-temp.csv'; out='$out/charge-temp.png'" \

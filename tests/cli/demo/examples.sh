@@ -79,3 +79,9 @@ cat dwell.csv
 gnuplot -e "in='dwell.csv'; out='dwell.png'" "scripts/plot-dwell.gp"
 png dwell.png
 
+echo "== plot-measured.gp"
+cw-wear --cycle-life 500 --capacity 10 \
+    --measured "$top/testdata/wear-fleet-trend.csv" \
+    "$top/testdata/wear-fleet.csv" >wear.csv || exit 1
+gnuplot -e "in='wear.csv'; out='measured.png'" scripts/plot-measured.gp
+png measured.png

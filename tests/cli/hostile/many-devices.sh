@@ -15,7 +15,7 @@ awk 'BEGIN { print "device,time,voltage_v,current_a,temp_c,soc_pct"
 run_one cw-clean many.csv
 echo "cw-clean devices: $(sed 1d out.csv | cut -d, -f1 | sort -u | wc -l | tr -d ' ')"
 for t in "cw-rainflow --summary" cw-thermal cw-topoff "cw-dcir --trend" \
-    cw-wear; do
+    cw-wear "cw-capacity --trend"; do
 	run_one $t many.csv
 	echo "${t%% *}: $(sed 1d out.csv | cut -d, -f1 | sort -u | wc -l | tr -d ' ') devices," \
 	    "in name order: $(sed 1d out.csv | cut -d, -f1 | sort -c && echo yes)"
