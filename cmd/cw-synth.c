@@ -2,7 +2,6 @@
  * cw-synth: an invented e-bike fleet's raw gauge logs, with the truth.
  */
 #include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -10,89 +9,68 @@
 
 #include "cw.h"
 #include "opt.h"
+#include "optab.h"
 #include "synth.h"
 #include "ts.h"
 
 enum {
-	OPT_AGING = 256, OPT_CHARGE_SIGN, OPT_DOCKS, OPT_INCIDENTS, OPT_MIX,
-	OPT_TZ, OPT_VERSION
+	OPT_AGING = OPTAB_LONG, OPT_CHARGE_SIGN, OPT_DOCKS, OPT_INCIDENTS,
+	OPT_MIX, OPT_TZ
 };
 
-static const struct option longopts[] = {
-	{ "aging", required_argument, NULL, OPT_AGING },
-	{ "charge-sign", required_argument, NULL, OPT_CHARGE_SIGN },
-	{ "days", required_argument, NULL, 'd' },
-	{ "docks", no_argument, NULL, OPT_DOCKS },
-	{ "devices", required_argument, NULL, 'n' },
-	{ "faults", required_argument, NULL, 'F' },
-	{ "format", required_argument, NULL, 'f' },
-	{ "help", no_argument, NULL, 'h' },
-	{ "level", required_argument, NULL, 'z' },
-	{ "incidents", required_argument, NULL, OPT_INCIDENTS },
-	{ "mix", required_argument, NULL, OPT_MIX },
-	{ "outdir", required_argument, NULL, 'o' },
-	{ "period", required_argument, NULL, 'p' },
-	{ "seed", required_argument, NULL, 's' },
-	{ "start", required_argument, NULL, 'S' },
-	{ "tz", required_argument, NULL, OPT_TZ },
-	{ "verbose", no_argument, NULL, 'v' },
-	{ "version", no_argument, NULL, OPT_VERSION },
-	{ NULL, 0, NULL, 0 }
+static const struct optab opts[] = {
+	{ "aging", 0, "factor", "multiply every growth and fade rate", "1",
+	    OPT_AGING },
+	{ "charge-sign", 0, "sign", "how the raw logs count charging "
+	    "current: positive or negative in every format (default: each "
+	    "format's own, a negative, b positive)", NULL, OPT_CHARGE_SIGN },
+	{ "days", 'd', "days", "days", "7", 0 },
+	{ "devices", 'n', "devices", "packs", "10", 0 },
+	{ "docks", 0, NULL, "a dock column in the raw logs (depot, dock-01 .. "
+	    "dock-07, empty when away), and packs hop between docks (dock-07 "
+	    "has no cut-off; without it each pack stays at its own dock, no "
+	    "column)", NULL, OPT_DOCKS },
+	{ "faults", 'F', "faults", "none, the default rates, or "
+	    "name=rate,... for dup, "
+	    "late, stale, trunc, sentinel (per row), gap, jump (per device "
+	    "and day), header (per file); 0 disables one", NULL, 0 },
+	{ "format", 'f', "format", "a (epoch ms, mV, mA, 0.1 K), b (local "
+	    "time, V, A, degrees F, ';' and decimal comma) or both", "a", 0 },
+	{ "incidents", 0, "n", "give n packs each of the four incidents: a "
+	    "fast charger without JEITA rules in the cold, one in a hot "
+	    "cabinet, a pack stored flat, a charger set to 4.30 V per cell",
+	    "0", OPT_INCIDENTS },
+	{ "level", 'z', "level", "gzip level 0..9", "1", 0 },
+	{ "mix", 0, "deep,topup,idle,nocutoff", "weights of the profiles "
+	    "deep-depot, topup-dock, idle-dock, topup-nocutoff", "3,3,3,1",
+	    OPT_MIX },
+	{ "outdir", 'o', "dir", "write the files there (default the current "
+	    "folder), made if missing", NULL, 0 },
+	{ "period", 'p', "period", "sampling period, whole seconds dividing "
+	    "a day", "10 s", 0 },
+	{ "seed", 's', "seed", "random seed", "1", 0 },
+	{ "start", 'S', "date", "first local day, YYYY-MM-DD", "2026-01-12",
+	    0 },
+	{ "tz", 0, "+hh:mm", "the fleet's local time offset", "+01:00",
+	    OPT_TZ },
+	{ "verbose", 'v', NULL, "print what was written to stderr", NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
-static void usage(FILE *, int);
+static const struct optool tool = {
+	"cw-synth", NULL,
+	"Simulate an invented bike-share fleet of 10-cell 14 Ah e-bike packs\n"
+	"and write its raw gauge logs, one gzipped file per local day, with\n"
+	"the truth that was injected beside them.\n",
+	NULL,
+	opts
+};
+
 static uint64_t seed_arg(const char *);
 static long date_arg(const char *);
 static long period_arg(const char *);
 static unsigned format_arg(const char *);
 static void outdir_prepare(const char *);
-
-static void
-usage(FILE *fp, int status)
-{
-	fprintf(fp,
-"usage: cw-synth [-hv] [-d days] [-F faults] [-f format] [-n devices]\n"
-"                [-o dir] [-p period] [-S date] [-s seed] [-z level]\n"
-"                [--aging factor] [--charge-sign sign] [--docks]\n"
-"                [--incidents n]\n"
-"                [--mix deep,topup,idle,nocutoff] [--tz +hh:mm]\n"
-"\n"
-"Simulate an invented bike-share fleet of 10-cell 14 Ah e-bike packs and\n"
-"write its raw gauge logs, one gzipped file per local day, with the truth\n"
-"that was injected beside them.\n"
-"\n"
-"  -n, --devices n     packs (default 10)\n"
-"  -d, --days n        days (default 7)\n"
-"  -S, --start date    first local day, YYYY-MM-DD (default 2026-01-12)\n"
-"      --tz +hh:mm     the fleet's local time offset (default +01:00)\n"
-"  -p, --period dur    sampling period, whole seconds dividing a day\n"
-"                      (default 10s)\n"
-"  -s, --seed n        random seed (default 1)\n"
-"  -f, --format f      a (epoch ms, mV, mA, 0.1 K), b (local time, V, A,\n"
-"                      degrees F, ';' and decimal comma) or both (default a)\n"
-"  -F, --faults list   none, default, or name=rate,... for dup, late, stale,\n"
-"                      trunc, sentinel (per row), gap, jump (per device and\n"
-"                      day), header (per file); 0 disables one\n"
-"      --charge-sign s how the raw logs count charging current: positive or\n"
-"                      negative in every format (default: each format's own,\n"
-"                      a negative, b positive)\n"
-"      --docks         a dock column in the raw logs (depot, dock-01 ..\n"
-"                      dock-07, empty when away), and packs hop between\n"
-"                      docks (dock-07 has no cut-off; default: each pack at\n"
-"                      its own dock, no column)\n"
-"      --mix w,w,w,w   weights of the profiles deep-depot, topup-dock,\n"
-"                      idle-dock, topup-nocutoff (default 3,3,3,1)\n"
-"      --aging x       multiply every growth and fade rate (default 1)\n"
-"      --incidents n   give n packs each of the four incidents: a fast\n"
-"                      charger without JEITA rules in the cold, one in a\n"
-"                      hot cabinet, a pack stored flat, a charger set to\n"
-"                      4.30 V per cell (default 0)\n"
-"  -o, --outdir dir    write the files there (default .; made if missing)\n"
-"  -z, --level n       gzip level 0..9 (default 1)\n"
-"  -v, --verbose       print what was written to stderr\n"
-"  -h, --help          print this help; --version prints the version\n");
-	exit(status);
-}
 
 /* A seed: a decimal number from 0 to 2^64 - 1. */
 static uint64_t
@@ -172,6 +150,7 @@ int
 main(int argc, char *argv[])
 {
 	struct synth_conf c;
+	struct optparse op;
 	struct synth_stats st;
 	const char *err;
 	double sum;
@@ -180,9 +159,8 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-synth");
 	synth_conf_default(&c);
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":F:S:d:f:hn:o:p:s:vz:", longopts,
-	    NULL)) != -1) {
+	optab_init(&op, &tool);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'F':
 			if (synth_faults_parse(optarg, c.rate, &err) < 0)
@@ -197,9 +175,6 @@ main(int argc, char *argv[])
 			break;
 		case 'f':
 			c.formats = format_arg(optarg);
-			break;
-		case 'h':
-			usage(stdout, CW_EXIT_OK);
 			break;
 		case 'n':
 			c.ndev = opt_long_arg("--devices", optarg, 1, 1000000);
@@ -259,12 +234,9 @@ main(int argc, char *argv[])
 				    "+hh:mm", optarg);
 			c.tz_s = tz;
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
+	optab_free(&op);
 	if (optind < argc)
 		cw_usage_error("unexpected argument '%s'", argv[optind]);
 	if (4 * c.incidents > c.ndev)
