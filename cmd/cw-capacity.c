@@ -5,6 +5,7 @@
  * lib/capacity.c (segments, the estimate, the trend) and lib/theilsen.c
  * (the robust fit); this file holds the options and the output.
  */
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -66,8 +67,12 @@ enum {
 	OPT_RATED, OPT_REJECTS, OPT_TEMP
 };
 
+/* Where an option of the table is stored: a member of struct tool. */
+#define T(m)	offsetof(struct tool, m)
+
 static const struct optab opts[] = {
-	{ "cells", 0, "N", "cells in series, for --ocv", "1", OPT_CELLS },
+	{ "cells", 0, "N", "cells in series, for --ocv", "1", OPT_CELLS,
+	    OPTAB_INT, T(cells), 1, 1000 },
 	{ "confidence", 0, "P", "confidence level of the slope's interval",
 	    "0.95", OPT_CONFIDENCE },
 	{ "eol", 0, "PCT", "end of life at PCT percent of the rated "
@@ -75,13 +80,16 @@ static const struct optab opts[] = {
 	{ "fleet", 0, "FILE", "the fleet file; its capacity_ah is the rating",
 	    NULL, OPT_FLEET },
 	{ "jump", 0, "PTS", "SoC points a step may differ from what its "
-	    "charge explains before it is a jump", "2", OPT_JUMP },
+	    "charge explains before it is a jump", "2", OPT_JUMP,
+	    OPTAB_NUM, T(conf.jump), 0, 100 },
 	{ "max-gap", 0, "DUR", "rows further apart end a segment", "15m",
-	    OPT_MAX_GAP },
+	    OPT_MAX_GAP,
+	    OPTAB_DUR, T(conf.max_gap), 0, 0 },
 	{ "max-points", 0, "N", "estimates kept per device for the trend",
 	    "2048", OPT_MAX_POINTS },
 	{ "max-rest", 0, "DUR", "longest pause inside a segment", "5m",
-	    OPT_MAX_REST },
+	    OPT_MAX_REST,
+	    OPTAB_DUR, T(conf.max_rest), 0, 0 },
 	{ "min-current", 0, "A", "smallest current of a segment's rows",
 	    "0.1", OPT_MIN_CURRENT },
 	{ "min-estimates", 0, "N", "fewest estimates for a trend", "5",
@@ -91,9 +99,11 @@ static const struct optab opts[] = {
 	{ "ocv", 0, "FILE", "SoC from the rest voltage by this OCV table, not "
 	    "from soc_pct", NULL, OPT_OCV },
 	{ "ocv-rest", 0, "DUR", "rest before a voltage is an OCV point",
-	    "30m", OPT_OCV_REST },
+	    "30m", OPT_OCV_REST,
+	    OPTAB_DUR, T(conf.ocv_rest), 0, 0 },
 	{ "ocv-span", 0, "DUR", "longest time between two OCV points", "1d",
-	    OPT_OCV_SPAN },
+	    OPT_OCV_SPAN,
+	    OPTAB_DUR, T(conf.ocv_span), 0, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
 	    "output", NULL, 0 },
 	{ "rated", 0, "AH", "rated capacity of every pack", "none",
@@ -289,7 +299,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 	t->max_points = MAX_POINTS_DEFAULT;
 	t->rated = CW_MISSING;
 	t->cells = 1;
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'o':
@@ -300,10 +310,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 			break;
 		case 'v':
 			cw_verbose = 1;
-			break;
-		case OPT_CELLS:
-			t->cells = (int)opt_long_arg("--cells", optarg, 1,
-			    1000);
 			break;
 		case OPT_CONFIDENCE:
 			t->tconf.conf = opt_num_arg("--confidence", optarg,
@@ -321,18 +327,9 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 		case OPT_FLEET:
 			fleetpath = optarg;
 			break;
-		case OPT_JUMP:
-			t->conf.jump = opt_num_arg("--jump", optarg, 0, 100);
-			break;
-		case OPT_MAX_GAP:
-			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			break;
 		case OPT_MAX_POINTS:
 			t->max_points = (size_t)opt_long_arg("--max-points",
 			    optarg, 16, 1L << 24);
-			break;
-		case OPT_MAX_REST:
-			t->conf.max_rest = opt_dur_arg("--max-rest", optarg, 0);
 			break;
 		case OPT_MIN_CURRENT:
 			t->conf.min_current = opt_num_arg("--min-current",
@@ -354,12 +351,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 			break;
 		case OPT_OCV:
 			ocvpath = optarg;
-			break;
-		case OPT_OCV_REST:
-			t->conf.ocv_rest = opt_dur_arg("--ocv-rest", optarg, 0);
-			break;
-		case OPT_OCV_SPAN:
-			t->conf.ocv_span = opt_dur_arg("--ocv-span", optarg, 0);
 			break;
 		case OPT_RATED:
 			t->rated = opt_num_arg("--rated", optarg, 0, 1e9);

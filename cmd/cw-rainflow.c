@@ -277,7 +277,7 @@ parse(struct run *r, int argc, char *argv[], const char **outpath)
 	r->hyst = 1;
 	r->rw = 1;
 	signal_arg(r, "soc_pct");
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, NULL);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'o':

@@ -86,7 +86,7 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-report");
 	report_conf_default(&conf);
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, NULL);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'n':

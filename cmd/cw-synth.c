@@ -159,7 +159,7 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-synth");
 	synth_conf_default(&c);
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, NULL);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'F':

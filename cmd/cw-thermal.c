@@ -67,33 +67,45 @@ enum {
 	OPT_WARM_VOLTAGE
 };
 
+/* Where an option of the table is stored: a member of struct tool. */
+#define T(m)	offsetof(struct tool, m)
+
 static const struct optab opts[] = {
 	{ "by", 0, "COL", "a stream column (a dock, charger or site that "
 	    "cw-clean --keep carried): its value at each event's start ends "
 	    "the event row, and --summary is one row per value", NULL,
 	    OPT_BY },
 	{ "capacity", 0, "AH", "rated capacity, for the cool-zone current "
-	    "(unset: unknown)", NULL, OPT_CAPACITY },
+	    "(unset: unknown)", NULL, OPT_CAPACITY,
+	    OPTAB_NUM, T(cap_ah), 0.001, 1e6 },
 	{ "cells", 0, "N", "cells in series, for the warm-zone voltage "
-	    "(unset: unknown)", NULL, OPT_CELLS },
+	    "(unset: unknown)", NULL, OPT_CELLS,
+	    OPTAB_INT, T(cells), 1, 1000 },
 	{ "cool-margin", 0, "PCT", "current allowed above the cool rate", "5",
-	    OPT_COOL_MARGIN },
+	    OPT_COOL_MARGIN,
+	    OPTAB_NUM, T(conf.cool_margin), 0, 100 },
 	{ "cool-rate", 0, "C", "C-rate allowed in the cool zone", "0.5",
-	    OPT_COOL_RATE },
+	    OPT_COOL_RATE,
+	    OPTAB_NUM, T(conf.cool_rate), 0, 100 },
 	{ "fleet", 0, "FILE", "the fleet file; its capacity_ah and cells "
 	    "override --capacity and --cells per pack", NULL, OPT_FLEET },
 	{ "hysteresis", 0, "DT", "come back inside by DT to end an event",
-	    "0.5", OPT_HYST },
+	    "0.5", OPT_HYST,
+	    OPTAB_TEMPDIFF, T(conf.lim.hyst), 0, 0 },
 	{ "limits", 0, "T1,T2,T3,T4", "the four zone thresholds",
 	    "0,10,45,60", OPT_LIMITS },
 	{ "max-gap", 0, "DUR", "a longer interval ends an event", "15m",
-	    OPT_MAX_GAP },
+	    OPT_MAX_GAP,
+	    OPTAB_DUR, T(conf.max_gap), 0, 0 },
 	{ "merge", 0, "DUR", "join events at most DUR apart", "2m",
-	    OPT_MERGE },
+	    OPT_MERGE,
+	    OPTAB_DUR, T(conf.merge), -1, 0 },
 	{ "min-current", 0, "A", "charging above A, discharge below -A",
-	    "0.05", OPT_MIN_CURRENT },
+	    "0.05", OPT_MIN_CURRENT,
+	    OPTAB_NUM, T(conf.min_current), 0, 1e6 },
 	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "60s",
-	    OPT_MIN_DURATION },
+	    OPT_MIN_DURATION,
+	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
 	    "output", NULL, 0 },
 	{ "summary", 's', NULL, "one row per device (per value with --by) "
@@ -102,9 +114,11 @@ static const struct optab opts[] = {
 	    OPT_USE_LIMITS },
 	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
 	{ "warm-margin", 0, "V", "voltage per cell allowed above the warm "
-	    "voltage", "0.02", OPT_WARM_MARGIN },
+	    "voltage", "0.02", OPT_WARM_MARGIN,
+	    OPTAB_NUM, T(conf.warm_margin), 0, 1 },
 	{ "warm-voltage", 0, "V", "charge voltage per cell allowed in the "
-	    "warm zone", "4.10", OPT_WARM_VOLTAGE },
+	    "warm zone", "4.10", OPT_WARM_VOLTAGE,
+	    OPTAB_NUM, T(conf.warm_v), 0.001, 100 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -381,7 +395,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 
 	thermal_conf_default(&t->conf);
 	t->cap_ah = CW_MISSING;
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'o':
@@ -398,59 +412,17 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 				cw_usage_error("--by: empty column name");
 			t->by = optarg;
 			break;
-		case OPT_CAPACITY:
-			t->cap_ah = opt_num_arg("--capacity", optarg, 0.001,
-			    1e6);
-			break;
-		case OPT_CELLS:
-			t->cells = (int)opt_long_arg("--cells", optarg, 1,
-			    1000);
-			break;
-		case OPT_COOL_MARGIN:
-			t->conf.cool_margin = opt_num_arg("--cool-margin",
-			    optarg, 0, 100);
-			break;
-		case OPT_COOL_RATE:
-			t->conf.cool_rate = opt_num_arg("--cool-rate", optarg,
-			    0, 100);
-			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
-			break;
-		case OPT_HYST:
-			t->conf.lim.hyst = opt_tempdiff_arg("--hysteresis",
-			    optarg);
 			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, t->conf.lim.t, 4, 1,
 			    1);
 			break;
-		case OPT_MAX_GAP:
-			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			break;
-		case OPT_MERGE:
-			t->conf.merge = opt_dur_arg("--merge", optarg, 1);
-			break;
-		case OPT_MIN_CURRENT:
-			t->conf.min_current = opt_num_arg("--min-current",
-			    optarg, 0, 1e6);
-			break;
-		case OPT_MIN_DURATION:
-			t->conf.min_duration = opt_dur_arg("--min-duration",
-			    optarg, 1);
-			break;
 		case OPT_USE_LIMITS:
 			opt_list_arg("--use-limits", optarg, use, 2, 1, 1);
 			t->conf.lim.use_lo = use[0];
 			t->conf.lim.use_hi = use[1];
-			break;
-		case OPT_WARM_MARGIN:
-			t->conf.warm_margin = opt_num_arg("--warm-margin",
-			    optarg, 0, 1);
-			break;
-		case OPT_WARM_VOLTAGE:
-			t->conf.warm_v = opt_num_arg("--warm-voltage", optarg,
-			    0.001, 100);
 			break;
 		}
 	}

@@ -54,6 +54,9 @@ enum {
 	OPT_STANDBY_FALL, OPT_STANDBY_RATE, OPT_USE_DIPS
 };
 
+/* Where an option of the table is stored: a member of struct tool. */
+#define T(m)	offsetof(struct tool, m)
+
 static const struct optab opts[] = {
 	{ "capacity", 0, "AH", "capacity of every pack, for --standby-rate "
 	    "(unset; the fleet file's capacity_ah overrides)", NULL,
@@ -63,22 +66,28 @@ static const struct optab opts[] = {
 	{ "fleet", 0, "FILE", "the fleet file (asset register): capacity_ah",
 	    NULL, OPT_FLEET },
 	{ "full", 0, "PCT", "a SoC at or above PCT is near full", "95",
-	    OPT_FULL },
+	    OPT_FULL,
+	    OPTAB_NUM, T(conf.full_pct), 0, 100 },
 	{ "full-voltage", 0, "V", "judge rows without SoC by voltage: at or "
 	    "above V volts is near full (unset: not judged)", NULL,
-	    OPT_FULL_VOLTAGE },
+	    OPT_FULL_VOLTAGE,
+	    OPTAB_NUM, T(conf.full_v), 0.001, 10000 },
 	{ "max-gap", 0, "DUR", "a longer interval ends a hold", "15m",
-	    OPT_MAX_GAP },
+	    OPT_MAX_GAP,
+	    OPTAB_DUR, T(conf.max_gap), 0, 0 },
 	{ "min-current", 0, "A", "charging means current above A", "0.05",
-	    OPT_MIN_CURRENT },
+	    OPT_MIN_CURRENT,
+	    OPTAB_NUM, T(conf.min_current), 0, 1e6 },
 	{ "min-depth", 0, "PCT", "the smallest drop below the peak that "
-	    "counts", "0.5", OPT_MIN_DEPTH },
+	    "counts", "0.5", OPT_MIN_DEPTH,
+	    OPTAB_NUM, T(conf.min_depth), 0.001, 100 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
 	    "output", NULL, 0 },
 	{ "summary", 's', NULL, "one row per device (-e and -s exclude each "
 	    "other)", NULL, 0 },
 	{ "standby-current", 0, "A", "discharge up to A amperes is standby "
-	    "drain, more is use", "0.5", OPT_STANDBY_CURRENT },
+	    "drain, more is use", "0.5", OPT_STANDBY_CURRENT,
+	    OPTAB_NUM, T(conf.standby_a), 0, 1e6 },
 	{ "standby-fall", 0, "PCT", "rows without current: a SoC falling "
 	    "faster than PCT percent per hour is use",
 	    "5, or 100 * standby current / capacity when known",
@@ -87,7 +96,8 @@ static const struct optab opts[] = {
 	    "whose capacity is known (unset: --standby-current)", NULL,
 	    OPT_STANDBY_RATE },
 	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
-	    OPT_USE_DIPS },
+	    OPT_USE_DIPS,
+	    OPTAB_FLAG, T(use_dips), 0, 0 },
 	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
@@ -95,7 +105,8 @@ static const struct optab opts[] = {
 static const struct optool tool = {
 	"cw-topoff", "[FILE ...]",
 	"Holds near full charge and top-off micro-cycles, per device; dips\n"
-	"driven by use (discharge above the standby level) are counted apart.\n",
+	"driven by use (discharge above the standby level) are counted\n"
+	"apart.\n",
 	"Durations take 90, 90s, 15m, 2h, 1d.\n",
 	opts
 };
@@ -285,7 +296,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 	int ch;
 
 	topoff_conf_default(&t->conf);
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'e':
@@ -310,10 +321,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		case OPT_FLEET:
 			fleetpath = optarg;
 			break;
-		case OPT_STANDBY_CURRENT:
-			t->conf.standby_a = opt_num_arg("--standby-current",
-			    optarg, 0, 1e6);
-			break;
 		case OPT_STANDBY_FALL:
 			t->conf.standby_fall = opt_num_arg("--standby-fall",
 			    optarg, 0, 1e6);
@@ -328,28 +335,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 			if (!(t->standby_rate > 0))
 				cw_usage_error("--standby-rate: %s is not "
 				    "above 0", optarg);
-			break;
-		case OPT_USE_DIPS:
-			t->use_dips = 1;
-			break;
-		case OPT_FULL:
-			t->conf.full_pct = opt_num_arg("--full", optarg, 0,
-			    100);
-			break;
-		case OPT_FULL_VOLTAGE:
-			t->conf.full_v = opt_num_arg("--full-voltage", optarg,
-			    0.001, 10000);
-			break;
-		case OPT_MAX_GAP:
-			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			break;
-		case OPT_MIN_CURRENT:
-			t->conf.min_current = opt_num_arg("--min-current",
-			    optarg, 0, 1e6);
-			break;
-		case OPT_MIN_DEPTH:
-			t->conf.min_depth = opt_num_arg("--min-depth", optarg,
-			    0.001, 100);
 			break;
 		}
 	}

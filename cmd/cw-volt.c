@@ -54,21 +54,31 @@ static void	write_summary(struct tool *t, const struct dev *d);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
 
+/* Where an option of the table is stored: a member of struct tool. */
+#define T(m)	offsetof(struct tool, m)
+
 static const struct optab opts[] = {
 	{ "cells", 0, "N", "cells in series: the cell voltage is the pack "
-	    "voltage over N", "1", OPT_CELLS },
+	    "voltage over N", "1", OPT_CELLS,
+	    OPTAB_INT, T(cells), 1, 1000 },
 	{ "fleet", 0, "FILE", "the fleet file; its cells column overrides "
 	    "--cells per pack", NULL, OPT_FLEET },
 	{ "hysteresis", 0, "V", "come back inside by V per cell to end an "
-	    "event", "0.02", OPT_HYST },
-	{ "max", 0, "V", "over-voltage above V per cell", "4.25", OPT_MAX },
+	    "event", "0.02", OPT_HYST,
+	    OPTAB_NUM, T(conf.hyst), 0, 10 },
+	{ "max", 0, "V", "over-voltage above V per cell", "4.25", OPT_MAX,
+	    OPTAB_NUM, T(conf.vmax), 0.001, 100 },
 	{ "max-gap", 0, "DUR", "a longer interval ends an event", "15m",
-	    OPT_MAX_GAP },
-	{ "min", 0, "V", "over-discharge below V per cell", "2.50", OPT_MIN },
+	    OPT_MAX_GAP,
+	    OPTAB_DUR, T(conf.max_gap), 0, 0 },
+	{ "min", 0, "V", "over-discharge below V per cell", "2.50", OPT_MIN,
+	    OPTAB_NUM, T(conf.vmin), 0, 100 },
 	{ "min-current", 0, "A", "charge above A, use below -A, rest between",
-	    "0.05", OPT_MIN_CURRENT },
+	    "0.05", OPT_MIN_CURRENT,
+	    OPTAB_NUM, T(conf.min_current), 0, 1e6 },
 	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "30s",
-	    OPT_MIN_DURATION },
+	    OPT_MIN_DURATION,
+	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
 	    "output", NULL, 0 },
 	{ "summary", 's', NULL, "one row per device instead of one per event",
@@ -202,7 +212,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 
 	volt_conf_default(&t->conf);
 	t->cells = 1;
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'o':
@@ -214,33 +224,8 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		case 'v':
 			cw_verbose = 1;
 			break;
-		case OPT_CELLS:
-			t->cells = (int)opt_long_arg("--cells", optarg, 1,
-			    1000);
-			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
-			break;
-		case OPT_HYST:
-			t->conf.hyst = opt_num_arg("--hysteresis", optarg, 0,
-			    10);
-			break;
-		case OPT_MAX:
-			t->conf.vmax = opt_num_arg("--max", optarg, 0.001, 100);
-			break;
-		case OPT_MAX_GAP:
-			t->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			break;
-		case OPT_MIN:
-			t->conf.vmin = opt_num_arg("--min", optarg, 0, 100);
-			break;
-		case OPT_MIN_CURRENT:
-			t->conf.min_current = opt_num_arg("--min-current",
-			    optarg, 0, 1e6);
-			break;
-		case OPT_MIN_DURATION:
-			t->conf.min_duration = opt_dur_arg("--min-duration",
-			    optarg, 1);
 			break;
 		}
 	}

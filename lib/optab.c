@@ -41,13 +41,14 @@ id_of(const struct optab *o)
 }
 
 void
-optab_init(struct optparse *p, const struct optool *tool)
+optab_init(struct optparse *p, const struct optool *tool, void *base)
 {
 	const struct optab *sets[2] = { tool->opts, common };
 	size_t n, i, k = 0, s;
 	char *sh = p->shorts;
 
 	p->tool = tool;
+	p->base = base;
 	n = count(tool->opts) + count(common);
 	p->longopts = cw_calloc(n + 1, sizeof(*p->longopts));
 	*sh++ = ':';
@@ -71,25 +72,74 @@ optab_init(struct optparse *p, const struct optool *tool)
 	opterr = 0;
 }
 
+/* Store the value of O, as its kind says, into BASE. */
+static void
+store(const struct optab *o, void *base, const char *v)
+{
+	char *at = (char *)base + o->off, name[64];
+
+	snprintf(name, sizeof(name), "--%s", o->name);
+	switch (o->kind) {
+	case OPTAB_NUM:
+		*(double *)(void *)at = opt_num_arg(name, v, o->lo, o->hi);
+		break;
+	case OPTAB_INT:
+		*(int *)(void *)at = (int)opt_long_arg(name, v, (long)o->lo,
+		    (long)o->hi);
+		break;
+	case OPTAB_DUR:
+		*(cw_time *)(void *)at = opt_dur_arg(name, v, o->lo < 0);
+		break;
+	case OPTAB_TEMPDIFF:
+		*(double *)(void *)at = opt_tempdiff_arg(name, v);
+		break;
+	case OPTAB_FLAG:
+		*(int *)(void *)at = 1;
+		break;
+	case OPTAB_STR:
+		*(const char **)(void *)at = v;
+		break;
+	}
+}
+
+/* The entry of the tool's table with id ID that stores itself. */
+static const struct optab *
+stored(const struct optparse *p, int ch)
+{
+	const struct optab *o;
+
+	if (p->base == NULL)
+		return NULL;
+	for (o = p->tool->opts; o->name != NULL; o++)
+		if (id_of(o) == ch)
+			return o->kind != OPTAB_CASE ? o : NULL;
+	return NULL;
+}
+
 int
 optab_next(struct optparse *p, int argc, char *argv[])
 {
+	const struct optab *o;
 	int ch;
 
-	ch = getopt_long(argc, argv, p->shorts, p->longopts, NULL);
-	switch (ch) {
-	case -1:
-		return -1;
-	case ID_HELP:
-		optab_help(stdout, p->tool);
-		exit(fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA);
-	case ID_VERSION:
-		cw_print_version();
-	case ':':
-	case '?':
-		opt_getopt_fail(ch, argv);
+	for (;;) {
+		ch = getopt_long(argc, argv, p->shorts, p->longopts, NULL);
+		switch (ch) {
+		case -1:
+			return -1;
+		case ID_HELP:
+			optab_help(stdout, p->tool);
+			exit(fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA);
+		case ID_VERSION:
+			cw_print_version();
+		case ':':
+		case '?':
+			opt_getopt_fail(ch, argv);
+		}
+		if ((o = stored(p, ch)) == NULL)
+			return ch;
+		store(o, p->base, optarg);
 	}
-	return ch;
 }
 
 void

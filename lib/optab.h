@@ -17,6 +17,22 @@
 /* The id optab_next() returns for an option without a letter starts here. */
 #define OPTAB_LONG 256
 
+/*
+ * What optab_next() does with an option's value itself, into the
+ * struct the caller gave optab_init() (at offset OFF): OPTAB_CASE hands
+ * the option back to the caller; the others store it, checked by the
+ * opt_*_arg() function of opt.h with LO and HI.
+ */
+enum optab_kind {
+	OPTAB_CASE,	/* returned to the caller */
+	OPTAB_NUM,	/* double, opt_num_arg(LO, HI) */
+	OPTAB_INT,	/* int, opt_long_arg(LO, HI) */
+	OPTAB_DUR,	/* cw_time, opt_dur_arg(zero allowed when LO < 0) */
+	OPTAB_TEMPDIFF,	/* double, opt_tempdiff_arg() */
+	OPTAB_FLAG,	/* int set to 1 */
+	OPTAB_STR	/* const char *, the value as given */
+};
+
 struct optab {
 	const char *name;	/* long name without "--"; NULL ends a table */
 	int letter;		/* short letter, or 0 */
@@ -24,6 +40,9 @@ struct optab {
 	const char *help;	/* what it does, one sentence without a stop */
 	const char *dflt;	/* the default as shown, or NULL for none */
 	int id;			/* returned for it; 0: the letter */
+	int kind;		/* enum optab_kind */
+	size_t off;		/* where it is stored, in the caller's struct */
+	double lo, hi;		/* its range */
 };
 
 struct optool {
@@ -36,15 +55,19 @@ struct optool {
 
 struct optparse {
 	const struct optool *tool;
+	void *base;		/* the struct options are stored into */
 	struct option *longopts;
 	char shorts[2 * 64 + 2];
 };
 
-void	optab_init(struct optparse *p, const struct optool *tool);
+/* BASE: the struct the table's offsets point into (NULL: none). */
+void	optab_init(struct optparse *p, const struct optool *tool,
+	    void *base);
 /*
  * The next option's id (its letter, or its table id), with optarg set
  * for one that takes a value; -1 at the end, with optind at the first
- * operand.  Prints the help or the version and exits for those.
+ * operand.  Prints the help or the version and exits for those; stores
+ * the options of a kind other than OPTAB_CASE and goes on.
  */
 int	optab_next(struct optparse *p, int argc, char *argv[]);
 void	optab_free(struct optparse *p);

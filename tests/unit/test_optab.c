@@ -88,7 +88,7 @@ test_parse(void **state)
 
 	(void)state;
 	optind = 1;
-	optab_init(&op, &tool);
+	optab_init(&op, &tool, NULL);
 	assert_int_equal(optab_next(&op, argc, argv), OPT_ALPHA);
 	assert_string_equal(optarg, "2h");
 	assert_int_equal(optab_next(&op, argc, argv), 's');
@@ -120,7 +120,7 @@ child_status(char **argv, int argc)
 		    freopen("/dev/null", "w", stderr) == NULL)
 			_exit(99);
 		optind = 1;
-		optab_init(&op, &tool);
+		optab_init(&op, &tool, NULL);
 		while (optab_next(&op, argc, argv) != -1)
 			;
 		_exit(0);
@@ -155,6 +155,90 @@ test_exits(void **state)
 	assert_int_equal(child_status(flagval, 2), CW_EXIT_USAGE);
 }
 
+/* Options that store themselves: the value checked and put in place. */
+struct conf {
+	double x;
+	int n, flag;
+	cw_time gap;
+	const char *name;
+};
+
+static const struct optab stored_opts[] = {
+	{ "x", 0, "X", "a number", "1", OPTAB_LONG, OPTAB_NUM,
+	    offsetof(struct conf, x), 0, 10 },
+	{ "n", 'n', "N", "a count", "2", 0, OPTAB_INT,
+	    offsetof(struct conf, n), 1, 5 },
+	{ "flag", 0, NULL, "a flag", NULL, OPTAB_LONG + 1, OPTAB_FLAG,
+	    offsetof(struct conf, flag), 0, 0 },
+	{ "gap", 0, "DUR", "a duration", "15m", OPTAB_LONG + 2, OPTAB_DUR,
+	    offsetof(struct conf, gap), 0, 0 },
+	{ "name", 0, "S", "a name", NULL, OPTAB_LONG + 3, OPTAB_STR,
+	    offsetof(struct conf, name), 0, 0 },
+	{ "other", 'o', NULL, "handled by the caller", NULL, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool stored_tool = {
+	"cw-test", NULL, NULL, NULL, stored_opts
+};
+
+static void
+test_stored(void **state)
+{
+	char *argv[] = { "cw-test", "--x", "2.5", "-n3", "--flag", "--gap",
+	    "2h", "--name=EB-1", "-o", NULL };
+	struct optparse op;
+	struct conf c;
+
+	(void)state;
+	memset(&c, 0, sizeof(c));
+	optind = 1;
+	optab_init(&op, &stored_tool, &c);
+	/* Only the caller's own option comes back. */
+	assert_int_equal(optab_next(&op, 9, argv), 'o');
+	assert_int_equal(optab_next(&op, 9, argv), -1);
+	optab_free(&op);
+	assert_float_equal(c.x, 2.5, 0);
+	assert_int_equal(c.n, 3);
+	assert_int_equal(c.flag, 1);
+	assert_true(c.gap == 2 * 3600 * CW_US_PER_S);
+	assert_string_equal(c.name, "EB-1");
+}
+
+/* A stored value out of its range is a usage error, exit 2. */
+static void
+test_stored_bad(void **state)
+{
+	char *big[] = { "cw-test", "--x", "11", NULL };
+	char *zero[] = { "cw-test", "-n", "0", NULL };
+	char *dur[] = { "cw-test", "--gap", "soon", NULL };
+	char **cases[] = { big, zero, dur };
+	struct optparse op;
+	struct conf c;
+	size_t i;
+	pid_t pid;
+	int st;
+
+	(void)state;
+	for (i = 0; i < 3; i++) {
+		fflush(NULL);
+		pid = fork();
+		assert_true(pid >= 0);
+		if (pid == 0) {
+			if (freopen("/dev/null", "w", stderr) == NULL)
+				_exit(99);
+			optind = 1;
+			optab_init(&op, &stored_tool, &c);
+			while (optab_next(&op, 3, cases[i]) != -1)
+				;
+			_exit(0);
+		}
+		assert_int_equal(waitpid(pid, &st, 0), pid);
+		assert_true(WIFEXITED(st));
+		assert_int_equal(WEXITSTATUS(st), CW_EXIT_USAGE);
+	}
+}
+
 int
 main(void)
 {
@@ -162,6 +246,8 @@ main(void)
 		cmocka_unit_test(test_help),
 		cmocka_unit_test(test_parse),
 		cmocka_unit_test(test_exits),
+		cmocka_unit_test(test_stored),
+		cmocka_unit_test(test_stored_bad),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
