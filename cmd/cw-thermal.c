@@ -273,7 +273,7 @@ write_outside(struct tool *t, const struct thermal_ah *a)
 		csvout_empty(&t->out);
 }
 
-/* The header of the rows of --by: SPEC's columns first. */
+/* The header of the rows of --by: the columns cw-thermal(1) lists first. */
 static void
 write_by_header(struct tool *t)
 {

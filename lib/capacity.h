@@ -55,7 +55,7 @@ struct cap_conf {
 	cw_time ocv_span;	/* longest time between two points */
 };
 
-/* Defaults as SPEC.md and the manual page give them. */
+/* Defaults as cw-capacity(1) gives them. */
 void	cap_conf_default(struct cap_conf *c);
 
 /* What became of each segment: its end, or CAP_OK. */

@@ -1,7 +1,7 @@
 /*
  * csvout.h: the buffered CSV writer.  RFC 4180 quoting, '\n' line ends,
  * C-locale numbers with 10 significant digits at most and no trailing
- * zeros (at least 6 are kept, as SPEC.md asks), NaN and infinities as an
+ * zeros (at least 6 are kept, as cellwear(7) asks), NaN and infinities as an
  * empty field.
  */
 #ifndef CSVOUT_H

@@ -1,7 +1,7 @@
 /*
  * cw.h: what every cellwear tool shares: exit codes, messages, memory.
  *
- * Messages follow SPEC.md: "PROG: FILE:LINE: message" or "PROG: message",
+ * Messages follow cellwear(7): "PROG: FILE:LINE: message" or "PROG: message",
  * on stderr.  cw_die() runs the exit handlers, so an atomic output file
  * that was not committed is removed (see outf.h).
  */
@@ -11,7 +11,7 @@
 #include <stddef.h>
 #include <stdint.h>
 
-/* The one set of exit codes; SPEC.md "Exit status". */
+/* The one set of exit codes; cellwear(7), EXIT STATUS. */
 enum cw_exit {
 	CW_EXIT_OK = 0,		/* success */
 	CW_EXIT_DATA = 1,	/* data or I/O error */

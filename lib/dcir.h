@@ -42,7 +42,7 @@ struct dcir_conf {
 	double ea_kj;		/* activation energy, kJ/mol */
 };
 
-/* Defaults as SPEC.md and the manual page give them. */
+/* Defaults as cw-dcir(1) gives them. */
 void	dcir_conf_default(struct dcir_conf *c);
 
 struct dcir_pt {

@@ -3,7 +3,7 @@
  * idle hours among them (cw-wear --dwell), the table a storage policy or
  * a charge limit is audited with.
  *
- * SoC bands have the edges 0, 20, 40, 60, 80, 95 and 100 % (SPEC.md); a
+ * SoC bands have the edges 0, 20, 40, 60, 80, 95 and 100 % (cw-wear(1)); a
  * value on an edge belongs to the band above it, and 100 % to the top
  * band.  Temperature bands have the edges T1, T2, 25, 35 and T3 C (T1..T3
  * of --limits, sorted, a repeated edge once), with one open band below

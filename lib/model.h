@@ -4,7 +4,7 @@
  *
  * A model turns stress into damage f (dimensionless) and damage into fade
  * (fraction of capacity lost).  Each stress evaluation returns the damage
- * and its split by cause, which cw-wear's shares add up (SPEC.md,
+ * and its split by cause, which cw-wear's shares add up (cw-wear(1),
  * cw-wear).  For a term A * s * tau (A the depth or time stress, s the SoC
  * stress, tau the temperature stress, both 1 at the reference SoC and
  * temperature):

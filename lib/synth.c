@@ -25,7 +25,7 @@
 #define SUN_PARK_W 10.0
 #define SUN_RIDE_W 8.0
 
-/* The truth's event rules: SPEC.md's cw-thermal defaults. */
+/* The truth's event rules: cw-thermal(1)'s defaults. */
 #define EV_MIN_A 0.05
 #define EV_MIN_DUR (60 * CW_US_PER_S)
 #define EV_MERGE (120 * CW_US_PER_S)

@@ -72,7 +72,7 @@
 
 #include "cw.h"
 
-/* Defaults (SPEC.md, cw-topoff). */
+/* Defaults (cw-topoff(1)). */
 #define TOPOFF_FULL_PCT		95.0
 #define TOPOFF_MIN_DEPTH	0.5
 #define TOPOFF_MIN_CURRENT	0.05

@@ -65,9 +65,9 @@
 
 /* End of life: 20 % fade, 80 % state of health (common practice). */
 #define WEAR_EOL_FADE	0.20
-/* cold-charge dominates at this share of all charge (SPEC.md). */
+/* cold-charge dominates at this share of all charge (cw-wear(1)). */
 #define WEAR_COLD_SHARE	0.01
-/* The least share that makes a cause dominant (SPEC.md). */
+/* The least share that makes a cause dominant (cw-wear(1)). */
 #define WEAR_DOMINANT	0.25
 /* Runs of rows of the top-off prefix a state keeps for a join, at most. */
 #define WEAR_PRE_MAX	512
@@ -77,7 +77,7 @@
 enum { WEAR_FULL, WEAR_REF, WEAR_SOC, WEAR_TEMP, WEAR_NFORM };
 
 /*
- * What a pack had been through before its first row (SPEC.md, "Packs
+ * What a pack had been through before its first row (cw-wear(1), "Packs
  * already in service"), from the fleet file: a measured state of health,
  * or its time in service and its equivalent full cycles, taken at the
  * reference conditions.  Kept as the facts, not as damage, so that the

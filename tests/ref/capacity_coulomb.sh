@@ -4,7 +4,7 @@
 #
 # The rule (handbook definition of the ampere-hour): charge is the time
 # integral of the current, Q = integral of I dt.  The sample stream's
-# convention (lib/charge.h, SPEC.md) takes each row's current to hold over
+# convention (lib/charge.h, cellwear(7)) takes each row's current to hold over
 # the interval that ends at the row, so the integral is the rectangle sum
 # Q = sum of I_k (t_k - t_(k-1)); the trapezoid rule, sum of
 # (I_k + I_(k-1)) / 2 (t_k - t_(k-1)), is another reading of the same

@@ -1,6 +1,6 @@
 #!/bin/sh
 # Charge conservation of cw-clean --step 60.  Reference: the sample
-# stream's own convention for charge (lib/charge.h, SPEC.md): row k
+# stream's own convention for charge (lib/charge.h, cellwear(7)): row k
 # carries I_k * (t_k - t_{k-1}), an interval longer than 15 min carries
 # none; 1 Ah = 3600 A*s (SI).  Evaluated independently here with numpy
 # (Debian python3-numpy through /usr/bin/python3), on the raw rows and on

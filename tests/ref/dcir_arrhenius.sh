@@ -1,6 +1,6 @@
 #!/bin/sh
 # cw-dcir's temperature correction against the Arrhenius formula of
-# SPEC.md, R_ref = R * exp(-(Ea / Rg) * (1/T - 1/T_ref)), evaluated in
+# cw-dcir(1), R_ref = R * exp(-(Ea / Rg) * (1/T - 1/T_ref)), evaluated in
 # Debian's /usr/bin/python3 with the gas constant and 0 C in kelvin taken
 # from scipy.constants (R = 8.314462618 J/(mol K), CODATA 2018;
 # zero_Celsius = 273.15), not from cellwear.

@@ -36,7 +36,7 @@
 #    below 10 C only; 0.5 K below it for the gauge's noise, as above; the
 #    docks charge at 10 C and up, so at 10 C exactly the noise alone put
 #    1 % of the idle-dock packs' charge below it), cold-charge exactly for the packs that took at
-#    least 1 % of their charge below 10 C by the truth (SPEC.md's rule
+#    least 1 % of their charge below 10 C by the truth (cw-wear(1)'s rule
 #    applied to the truth, whose shares are 0 or above 80 % here); with
 #    the default T1 = 0 C only packs among those.  And
 #    the scenario's intent in summer, the model's verdict rather than a

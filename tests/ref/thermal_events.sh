@@ -6,7 +6,7 @@
 # as a list, then every column computed again from the rows of the span.
 # The outside references are the definitions it rests on: 1 Ah = 1 A for
 # 3600 s (each row's current over the interval since the previous row,
-# SPEC.md), the JEITA guideline's zone scheme (T1..T4, default 0, 10,
+# cw-thermal(1)), the JEITA guideline's zone scheme (T1..T4, default 0, 10,
 # 45, 60 C); the rest (hysteresis, merge, minimum duration, gaps) is
 # cw-thermal's own documented design, so this check shows that the
 # streaming engine does what the manual says, on data no one wrote by

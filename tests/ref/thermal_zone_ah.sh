@@ -4,7 +4,7 @@
 # from lib/thermal.c and by another method (whole arrays, np.bincount):
 #   charge: 1 Ah = 1 A for 3600 s (definition of the ampere-hour), each
 #     row's current over the interval since the previous row of its device
-#     (SPEC.md sample stream, lib/charge.h), no charge over an interval
+#     (cellwear(7) sample stream, lib/charge.h), no charge over an interval
 #     longer than --max-gap (default 15 min) or not positive;
 #   charging: current above --min-current (default 0.05 A);
 #   zones: the JEITA guideline's zone scheme, thresholds T1..T4

@@ -17,7 +17,7 @@
 #    6 fractional digits), milliseconds (up to 3) and microseconds:
 #    expected with Python's exact Fraction arithmetic.  ts_format of
 #    random instants 1900-2100: datetime's fields, the fraction only when
-#    not whole and without trailing zeros (SPEC.md), 'Z'; and each text
+#    not whole and without trailing zeros (cellwear(7)), 'Z'; and each text
 #    read back gives the same instant.
 # 2. GNU date (coreutils, `date -u -d TEXT +%s%N` and `date -u -d @S`)
 #    for a handful of fixed texts and instants.

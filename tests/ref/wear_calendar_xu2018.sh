@@ -10,12 +10,12 @@
 #   F25  100 % SoC, 25 C  (high SoC)
 #   F35  100 % SoC, 35 C  (both)
 #   C10   30 % SoC, 10 C  (emptier and cooler: negative shares)
-# The shares (SPEC.md, cw-wear): the calendar term A s tau split into A
+# The shares (cw-wear(1)): the calendar term A s tau split into A
 # (share_age) and the Shapley split of the excess, A (s-1) + A (s-1)
 # (tau-1) / 2 to share_high_soc and A (tau-1) + A (s-1) (tau-1) / 2 to
 # share_heat, each over f; checked to 1e-9 (the issue asks for 1e-3), and
 # that they add up to 1 to 1e-9.  dominant: the largest of the SoC and
-# heat shares when at least 0.25, else none (SPEC.md).
+# heat shares when at least 0.25, else none (cw-wear(1)).
 # Packs in service, through the fleet file, 365 days at 50 %, 25 C:
 #   S90   measured SoH 90 %: f0 from L(f0) = 0.10 (brentq), the year's
 #         fade L(f0 + f) - L(f0) in points, soh_pct 90 - that, and

@@ -90,7 +90,7 @@ cyc = 100 * S_d(0.5) * S_s(0.65) * S_T(40.0)
 check("unscaled", "HOT", "efc", 50.0)
 check("unscaled", "HOT", "damage", cyc + cal("HOT"))
 check("unscaled", "HOT", "share_cycling", 100 * S_d(0.5) / (cyc + cal("HOT")))
-# The Shapley split of SPEC.md: each term A s tau gives A (s-1) +
+# The Shapley split of cw-wear(1): each term A s tau gives A (s-1) +
 # A (s-1) (tau-1) / 2 to share_high_soc, A (tau-1) + the same half to
 # share_heat; the cycles' A is 100 S_d(0.5), the calendar's k_t dt.
 def parts(A, s, tau):

@@ -9,13 +9,13 @@
 #    days from 2026-01-12, seed 1, the default faults, cw-clean and
 #    cw-wear with the demo's options): on every row the four shares add
 #    up to 1, to 1e-9 plus the rounding of the printed values (10
-#    significant digits: 5e-10 of each share's size); SPEC.md's rule.
+#    significant digits: 5e-10 of each share's size); cw-wear(1)'s rule.
 # 2. Fleets built per stressor, 24 packs for 14 days in winter
 #    (2026-01-12) and in summer (2026-07-13), seed 5, no faults,
 #    --cycle-life 500 as the demo.  What each pack was built for (the
 #    scenario's intent, not a quantity the model was tuned on):
 #      - cold-charge: the truth's charge below T1 = 0 C (below-min) is
-#        at least 1 % of its charge (SPEC.md's rule applied to the
+#        at least 1 % of its charge (cw-wear(1)'s rule applied to the
 #        truth), whatever the profile;
 #      - deep-depot packs, cycled deep daily and stored indoors: cycling;
 #      - idle-dock packs, held full in a dock: high-soc, or in summer

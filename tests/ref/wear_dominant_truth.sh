@@ -10,11 +10,11 @@
 # fa the Arrhenius factor of 50 kJ/mol about 25 C, kf_cyc = 0.002 and
 # kf_cal = 0.025 / 30 days at their nominal values (cw-synth draws each
 # pack's within +-20 %, not written to the truth), summed over the rows of
-# the cleaned stream and split by SPEC.md's rule at 50 % SoC and 25 C (the
+# the cleaned stream and split by cw-wear(1)'s rule at 50 % SoC and 25 C (the
 # SoC stress 1 at 50 %: (0.3 + 0.7 s^2) / 0.475; the Shapley split of
 # the SoC and temperature excess; the same 0.25 floor).  Its charge below
-# 10 C (kf_cold) has no share in SPEC's split and is left out; packs
-# cw-wear calls cold-charge (SPEC's override, judged against the truth in
+# 10 C (kf_cold) has no share in cw-wear(1)'s split and is left out; packs
+# cw-wear calls cold-charge (cw-wear(1)'s override, judged against the truth in
 # synth_truth_wear.sh) are counted apart and not judged here.
 #
 # The packs: cw-synth's fleet in a winter and a summer fortnight (16

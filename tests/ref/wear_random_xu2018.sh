@@ -9,7 +9,7 @@
 #   count * S_d * S_s * S_T at each cycle's depth, mean SoC and mean
 #   temperature of its turning points, calendar damage by the trapezoid
 #   rule over k_t * S_s * S_T (numpy.trapz), fade through the SEI term;
-#   the shares as SPEC.md defines them;
+#   the shares as cw-wear(1) defines them;
 #   charge as lib/charge.h defines it (a row's current over the interval
 #   ending at it, none over a gap above 15 minutes), and the zones of
 #   cw-thermal (below 0 C cold, 0 to 10 C cool, above 45 C hot);
@@ -107,7 +107,7 @@ def above(a, b, th, dt):
     if a < th and b < th: return 0.0
     return dt * ((a - th) / (a - b) if a >= th else (b - th) / (b - a))
 def num(x): return float(x) if x != "" else None
-# The Shapley split of SPEC.md, per unit of A: the SoC and heat excess.
+# The Shapley split of cw-wear(1), per unit of A: the SoC and heat excess.
 def shap(s, tau):
     both = (s - 1) * (tau - 1) / 2
     return (s - 1) + both, (tau - 1) + both
@@ -174,7 +174,7 @@ for dev, rs in devs.items():
     w["share_heat"] = (cyc["temp"] + cal["temp"]) / f
     w["days_to_eol"] = max(f_eol - f, 0) / (f / (t[-1] - t[0])) / 86400
     if ch > 0 and cold >= 0.01 * ch:
-        w["days_to_eol"] = None     # cold-charge: no life told (SPEC.md)
+        w["days_to_eol"] = None     # cold-charge: no life told (cw-wear(1))
     w["days"] = (rs[-1][0] - rs[0][0]) / 86400
     want[dev] = w
 got = {r["device"]: r for r in csv.DictReader(open(sys.argv[2]))}

@@ -4,7 +4,7 @@
  * References:
  * - RFC 4180, section 2 (6, 7): a field holding a comma, a quote or a line
  *   break is enclosed in quotes and a quote inside is doubled.
- * - Numbers: the contract in lib/csvout.h and SPEC.md ("Numbers keep at
+ * - Numbers: the contract in lib/csvout.h and cellwear(7) ("Numbers keep at
  *   least 6 significant digits"; at most 10, no trailing zeros, NaN as an
  *   empty field).  The value written is checked against glibc strtod()
  *   (correctly rounded, ISO C11 7.22.1.3) reading it back, and against

@@ -1,7 +1,7 @@
 /*
  * test_dwell.c: hours by SoC band and temperature band (lib/dwell.c).
  * Expected values are worked out by hand from linear interpolation
- * between rows (dwell.h) and the band edges of SPEC.md (cw-wear --dwell).
+ * between rows (dwell.h) and the band edges of cw-wear(1) (--dwell).
  */
 #include <math.h>
 #include <setjmp.h>

@@ -6,7 +6,7 @@
  * - degree Fahrenheit: t/degC = (t/degF - 32) / 1.8 (NIST SP 811, 2008,
  *   B.8 and B.9);
  * - minute, hour, day: 60 s, 3600 s, 86400 s (SI Brochure, table 8).
- * The forms accepted are SPEC.md's: "10, 10C, 50F, 283.15K" and "90, 90s,
+ * The forms accepted are cellwear(7)'s: "10, 10C, 50F, 283.15K" and "90, 90s,
  * 15m, 2h, 1d".  The *_arg() forms exit 2 through cw_usage_error() on a
  * bad value: they run in a child process here, and the exit status and
  * the message are checked.
@@ -318,7 +318,7 @@ test_args_ok(void **st)
 	assert_string_equal(err, "");
 }
 
-/* SPEC.md: "a bad number is a usage error, never silently 0". */
+/* cellwear(7): "a bad number is a usage error, never silently 0". */
 static void
 test_args_bad(void **st)
 {

@@ -242,7 +242,7 @@ test_plateau(void **st)
 	}
 }
 
-/* Hysteresis: reversals smaller than H are ignored (SPEC.md). */
+/* Hysteresis: reversals smaller than H are ignored (cw-rainflow(1)). */
 static void
 test_hysteresis(void **st)
 {
@@ -329,7 +329,7 @@ test_residue_modes(void **st)
 }
 
 /*
- * The --residue words: half, full and repeat, exactly (SPEC.md and
+ * The --residue words: half, full and repeat, exactly (cw-rainflow(1) and
  * cw-rainflow(1)); "half" counts ASTM E1049-85 Fig. 6 as the standard
  * does, with ranges 3, 4, 6, 8, 9 at 0.5, 1.5, 0.5, 1.0, 0.5 cycles.
  */

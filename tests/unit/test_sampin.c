@@ -1,7 +1,7 @@
 /*
  * test_sampin.c: the sample stream reader (lib/sampin.c).
  *
- * The contract is SPEC.md, "The sample stream" and "Common to every
+ * The contract is cellwear(7), "The sample stream" and "Common to every
  * tool": columns found by header name in any order, unknown columns
  * ignored, time in ISO 8601 UTC or epoch seconds, any empty field a
  * missing value, time must not decrease within a device (rows that do are
@@ -162,7 +162,7 @@ teardown(void **st)
 #define NEED (SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) | \
 	SAMP_BIT(SAMP_CURRENT))
 
-/* SPEC.md's own example row, with the columns shuffled and two unknown
+/* cellwear(7)'s own example row, with the columns shuffled and two unknown
  * ones among them. */
 static void
 test_any_order(void **st)
@@ -189,7 +189,7 @@ test_any_order(void **st)
 	assert_true(isnan(g.s[0].x));	/* no extra column asked for */
 	assert_int_equal(g.s[0].line, 2);
 	assert_non_null(strstr(g.s[0].src, "s.csv"));
-	/* Epoch seconds in the time column (SPEC.md). */
+	/* Epoch seconds in the time column (cellwear(7)). */
 	assert_int_equal(g.s[1].t, T0 + 60 * CW_US_PER_S);
 	assert_true(g.s[1].i == 1.5);
 	assert_int_equal(g.s[1].line, 3);

@@ -352,7 +352,7 @@ test_side_switch(void **st)
 }
 
 /*
- * Sign convention (SPEC.md: current positive while charging): cold
+ * Sign convention (cellwear(7): current positive while charging): cold
  * discharge is no charge event; discharge below the use limit (-20 C) is
  * a use event with negative charge: -3 A x 120 s = -0.1 Ah.
  */

@@ -306,7 +306,7 @@ test_every_day(void **st)
 }
 
 /* Epoch numbers: seconds (fraction allowed), milliseconds, microseconds;
- * TS_AUTO takes a plain number as seconds (SPEC.md: "Readers also accept
+ * TS_AUTO takes a plain number as seconds (cellwear(7): "Readers also accept
  * epoch seconds in this column"). */
 static void
 test_epoch(void **st)

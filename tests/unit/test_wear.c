@@ -3,7 +3,7 @@
  * Expected values are worked out by hand from the definitions named in
  * each test: lib/charge.h for charge, linear interpolation for time at a
  * level, the Xu et al. 2018 equations (IEEE Trans. Smart Grid 9(2)) for
- * damage, SPEC.md for shares and dominant.
+ * damage, cw-wear(1) for shares and dominant.
  */
 #include <math.h>
 #include <setjmp.h>
@@ -141,7 +141,7 @@ test_charge_zones(void **st)
 }
 
 /*
- * The rules of SPEC.md at their edges: cold-charge at >= 1 % of all
+ * The rules of cw-wear(1) at their edges: cold-charge at >= 1 % of all
  * charge below T1 (charge from T1 to T2 does not count); a cause
  * dominates at a share >= 0.25.  The shares by hand: a day at the
  * reference, calendar k_t * 86400, is all age; adding an excess x to the
@@ -203,7 +203,7 @@ test_cold_share_edge(void **st)
 }
 
 /* --cycle-life N: N full cycles at 50 % and 25 C reach 20 % fade
- * (SPEC.md); --calendar-life DAYS likewise for rest there. */
+ * (cw-wear(1)); --calendar-life DAYS likewise for rest there. */
 static void
 test_life_scales(void **st)
 {
@@ -264,7 +264,7 @@ test_unknown_empty(void **st)
 }
 
 /*
- * Packs in service (SPEC.md): a measured SoH of 90 % is the damage f0
+ * Packs in service (cw-wear(1)): a measured SoH of 90 % is the damage f0
  * with L(f0) = 0.10 (Xu et al. 2018's L, inverted); the fade of the span
  * is L(f0 + f) - L(f0), the SoH at the end 90 less it, the end of life
  * where L = 0.20.  By age: 100 days at rest and 50 full cycles at the

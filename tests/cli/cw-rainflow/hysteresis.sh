@@ -1,4 +1,4 @@
-# Hysteresis: reversals smaller than X are ignored (SPEC.md).
+# Hysteresis: reversals smaller than X are ignored (cw-rainflow(1)).
 # EB-0101's gauge wobbles 60 -> 60.5 -> 55: a reversal of 0.5, ignored by
 # the default 1, a cycle of 0.5 (mean 60.25) with --hysteresis 0.1.
 # source: hand

@@ -1,4 +1,4 @@
-# Bad input and usage (SPEC exit codes: 1 data error, 2 usage error):
+# Bad input and usage (cellwear(7) exit codes: 1 data error, 2 usage error):
 # a value that is not a number or a time names FILE:LINE and the column;
 # a device twice in one kind of output; a row without a device; unknown
 # options and bad values.

@@ -1,4 +1,4 @@
-# A healthy fleet gets an empty report and exit 0 (SPEC "cw-report").
+# A healthy fleet gets an empty report and exit 0 (cw-report(1)).
 # 1. The invented fleet of cold-charged.sh without its dock-07 pack
 #    (cw-synth -n 3): every tool's output, nothing to act on.
 # 2. The healthy packs of testdata/report alone, by hand:

@@ -19,7 +19,7 @@ cw-report --csv thermal.csv
 echo "exit $?"
 cw-report --csv <dcir.csv
 echo "exit $?"
-# Gzip is told by its first bytes, not the name (SPEC): cw-wear's output
+# Gzip is told by its first bytes, not the name (cellwear(7)): cw-wear's output
 # gzipped under a plain name gives the same two short-life rows.
 gzip -c wear.csv >"$TMPDIR_CASE/wear.csv"
 cw-report --csv "$TMPDIR_CASE/wear.csv" | cut -d, -f1,2,4

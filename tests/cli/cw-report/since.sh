@@ -1,5 +1,5 @@
 # --since FILE: new is 1 for a (device, reason) the earlier --csv report
-# did not hold (SPEC "cw-report").  Same inputs as the night before: every
+# did not hold (cw-report(1)).  Same inputs as the night before: every
 # row new=0 and no [new] in the text.  A changed night: EB-11's
 # under-voltage is gone from tonight's volt.csv and EB-18 now has one
 # (v_cell_min 2.40 V, 2 events, 1.5 h), so only EB-18's reason is new;

@@ -1,4 +1,4 @@
-# Sign convention (SPEC.md): current_a is positive while charging.
+# Sign convention (cellwear(7)): current_a is positive while charging.
 # +1 A at 5 C is a charge event; -1 A at 5 C is discharge inside the use
 # window, nothing; -1 A at -25 C is a use event with negative charge;
 # +1 A at -25 C is a below-min charge event.  Each 2 intervals of 60 s:

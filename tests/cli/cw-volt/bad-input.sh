@@ -1,4 +1,4 @@
-# Bad input (SPEC.md exit codes: 1 data error, 2 usage error).
+# Bad input (cellwear(7) exit codes: 1 data error, 2 usage error).
 # source: spec
 cd "$TMPDIR_CASE" || exit 1
 # No voltage_v, no current_a: exit 1, named in the message.

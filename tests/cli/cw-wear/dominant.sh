@@ -1,4 +1,4 @@
-# dominant for packs built to be dominated by each stressor (SPEC.md
+# dominant for packs built to be dominated by each stressor (cw-wear(1)
 # cw-wear): 30 days, a row every 10 minutes.
 #   CYC   full cycles 0-100 % every 4 h at 25 C        -> cycling
 #   FULL  at rest at 100 % SoC, 25 C                  -> high-soc
@@ -17,7 +17,7 @@
 #   EDGE0 the same with 101 rows, 0.99 % cold          -> not cold-charge
 # The shares of the packs at rest are derived here by hand (the check
 # below recomputes them from Xu et al. 2018's stresses and the Shapley
-# split of SPEC.md and prints "derived ok" when all agree to 1e-6): the
+# split of cw-wear(1) and prints "derived ok" when all agree to 1e-6): the
 # calendar term is A s tau with s = exp(1.04 (soc - 0.5)) and tau =
 # exp(0.0693 (T - 298.15) 298.15 / T); share_age = 1 / (s tau),
 # share_high_soc = ((s-1) + (s-1)(tau-1)/2) / (s tau), share_heat =

@@ -1,4 +1,4 @@
-# The prior from the fleet file travels in the state (SPEC.md: nightly
+# The prior from the fleet file travels in the state (cw-wear(1): nightly
 # runs need the file once): day 1 with --fleet, day 2 without, gives byte
 # for byte the report of one pass over both with --fleet; so does a merge
 # of --state-out states made with --fleet, the earlier state's prior kept

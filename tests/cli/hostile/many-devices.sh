@@ -1,5 +1,5 @@
 # 100,000 distinct devices, two rows each, interleaved: memory grows with
-# devices (SPEC.md), every device gets its row, per-device rows come in
+# devices (cellwear(7)), every device gets its row, per-device rows come in
 # name order.  Line counts and order only.  Too slow for memcheck (ASan
 # covers it in make check SANITIZE=1):
 # cli: no-valgrind

@@ -1,4 +1,4 @@
-# -o FILE never leaves a partial file (SPEC.md: written atomically): a
+# -o FILE never leaves a partial file (cellwear(7): written atomically): a
 # run that fails on a data error (a truncated gzip input), an input that
 # cannot be opened, or a required column missing keeps the old FILE
 # byte for byte, and its temporary (.FILE.tmpXXXXXX beside it) is gone.

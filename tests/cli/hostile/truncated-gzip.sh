@@ -1,5 +1,5 @@
 # A gzip log cut short in the middle of its deflate data, as a device
-# that lost power while uploading leaves it.  SPEC.md: exit 1, the
+# that lost power while uploading leaves it.  cellwear(7): exit 1, the
 # message names the file, and the rows before the damage are kept (the
 # CSV written so far stays whole).  cw-clean, which streams, must have
 # written every complete row of the good part.
