@@ -111,6 +111,18 @@ thermal_protocol_name(int protocol)
 	return protocol_names[protocol];
 }
 
+/*
+ * X above the limit LIM, beyond rounding: 41.2 V over 10 cells is 4.12 V
+ * per cell and at a limit of 4.10 + 0.02, not over it, although in
+ * binary floating point 41.2 / 10 > 4.10 + 0.02.  The slack, a part in
+ * 1e9, is far below what any gauge resolves.
+ */
+static int
+above(double x, double lim)
+{
+	return x > lim + 1e-9 * fabs(lim);
+}
+
 int
 thermal_protocol(const struct thermal_conf *c, const struct thermal_event *ev,
     double cap_ah, int cells)
@@ -122,13 +134,13 @@ thermal_protocol(const struct thermal_conf *c, const struct thermal_event *ev,
 	case THERMAL_COOL:
 		if (!(cap_ah > 0) || !cw_isnum(ev->i_max))
 			return THERMAL_P_UNKNOWN;
-		return ev->i_max > c->cool_rate * cap_ah *
-		    (1.0 + c->cool_margin / 100.0) ? THERMAL_P_OVER_CURRENT :
+		return above(ev->i_max, c->cool_rate * cap_ah *
+		    (1.0 + c->cool_margin / 100.0)) ? THERMAL_P_OVER_CURRENT :
 		    THERMAL_P_WITHIN;
 	case THERMAL_WARM:
 		if (cells < 1 || !cw_isnum(ev->v_max))
 			return THERMAL_P_UNKNOWN;
-		return ev->v_max / cells > c->warm_v + c->warm_margin ?
+		return above(ev->v_max / cells, c->warm_v + c->warm_margin) ?
 		    THERMAL_P_OVER_VOLTAGE : THERMAL_P_WITHIN;
 	default:
 		return THERMAL_P_WITHIN;
