@@ -3,8 +3,8 @@
  *
  * Each harness is one fuzz_<name>.c with LLVMFuzzerTestOneInput().  The
  * input is split into a few leading configuration bytes (struct fz) and a
- * body.  Bodies that the library reads from a file are written to one
- * temporary file, made once per process and rewritten for every input.
+ * body.  Bodies that the library reads from a file are read from memory
+ * through a path bound to them (fz_file()): no file is written or read.
  * An analysis engine gets its samples either through sampin_run() over
  * that file (the body is CSV: the path the tools take) or decoded from
  * the body's bytes (fz_sample()), which reaches values and time steps a
@@ -25,6 +25,7 @@
 #include <unistd.h>
 
 #include "cw.h"
+#include "gzsrc.h"
 
 #define FZ_CHECK(cond) do {						\
 	if (!(cond)) {							\
@@ -73,7 +74,12 @@ fz_unlink(void)
 		unlink(fz_path);
 }
 
-/* Write BODY[0..N) to the harness's temporary file; return its path. */
+/*
+ * Give BODY[0..N) a path; return it.  Nothing is written: the path, an
+ * empty file made once per process (so that stat() sees a regular file),
+ * is bound to the bytes in memory (gzsrc_bind_mem()), and every reader
+ * that opens it reads them.  BODY must stay until the next call.
+ */
 static inline const char *
 fz_file(const void *body, size_t n)
 {
@@ -89,11 +95,7 @@ fz_file(const void *body, size_t n)
 		}
 		atexit(fz_unlink);
 	}
-	if (ftruncate(fz_fd, 0) != 0 || (n > 0 &&
-	    pwrite(fz_fd, body, n, 0) != (ssize_t)n)) {
-		perror("fuzz: write");
-		abort();
-	}
+	gzsrc_bind_mem(fz_path, body, n);
 	return fz_path;
 }
 
