@@ -163,6 +163,40 @@ fz_sample(struct fz *f, unsigned ndev, struct fz_sample *s)
 	return 1;
 }
 
+/*
+ * A state reader's round trip.  PASS reads TEXT[0..N) (STRICT or not),
+ * writes back what it accepted to a malloc'ed *BUF of *LEN bytes and
+ * counts its devices; ROUND is 0 for the input, then 1 and 2.  When the
+ * input is accepted, what it wrote must read again strictly to as many
+ * devices and write back to the same bytes.
+ */
+typedef int fz_pass_fn(void *arg, int round, const void *text, size_t n,
+    int strict, char **buf, size_t *len, unsigned long *devs);
+
+static inline void
+fz_round_trip(fz_pass_fn *pass, void *arg, const void *text, size_t n,
+    int strict)
+{
+	char *a = NULL, *b = NULL, *c = NULL;
+	size_t alen = 0, blen = 0, clen = 0;
+	unsigned long na, nb, nc;
+
+	if (pass(arg, 0, text, n, strict, &a, &alen, &na) == 0) {
+		FZ_CHECK(pass(arg, 1, a, alen, 1, &b, &blen, &nb) == 0);
+		FZ_CHECK(nb == na);
+		FZ_CHECK(pass(arg, 2, b, blen, 1, &c, &clen, &nc) == 0);
+		if (clen != blen || memcmp(b, c, blen) != 0) {
+			fprintf(stderr, "state changed by a read and a write:"
+			    "\n%.*s\n--- became\n%.*s\n", (int)blen, b,
+			    (int)clen, c);
+			abort();
+		}
+	}
+	free(a);
+	free(b);
+	free(c);
+}
+
 /* True when X is a number no larger than what the tools are built for. */
 static inline int
 fz_tame(double x)

@@ -36,13 +36,15 @@ on_dev(void *cp, const char *src, unsigned long line, const char *name,
 
 /* Read TEXT[0..N) named by fz_file(); write what it holds to *BUF. */
 static int
-pass(const void *text, size_t n, const struct dstate_conf *sc, int strict,
+pass(void *ap, int round, const void *text, size_t n, int strict,
     char **buf, size_t *len, unsigned long *devs)
 {
+	const struct dstate_conf *sc = ap;
 	struct dstate_read r;
 	struct ctx c;
 	int rc;
 
+	(void)round;
 	memset(&r, 0, sizeof(r));
 	memset(&c, 0, sizeof(c));
 	FZ_CHECK((c.out = open_memstream(buf, len)) != NULL);
@@ -67,28 +69,12 @@ LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 	struct fz f = { data, size };
 	struct dcir_conf dc;
 	struct dstate_conf sc;
-	char *a = NULL, *b = NULL, *c = NULL;
-	size_t alen = 0, blen = 0, clen = 0;
-	unsigned long na, nb, nc;
 	unsigned b0;
 
 	b0 = fz_byte(&f);
 	dcir_conf_default(&dc);
 	sc.c = &dc;
 	sc.max_points = maxpts[(b0 >> 1) & 3];
-	if (pass(f.p, f.n, &sc, b0 & 1, &a, &alen, &na) == 0) {
-		FZ_CHECK(pass(a, alen, &sc, 1, &b, &blen, &nb) == 0);
-		FZ_CHECK(nb == na);
-		FZ_CHECK(pass(b, blen, &sc, 1, &c, &clen, &nc) == 0);
-		if (clen != blen || memcmp(b, c, blen) != 0) {
-			fprintf(stderr, "state changed by a read and a write:"
-			    "\n%.*s\n--- became\n%.*s\n", (int)blen, b,
-			    (int)clen, c);
-			abort();
-		}
-	}
-	free(a);
-	free(b);
-	free(c);
+	fz_round_trip(pass, &sc, f.p, f.n, b0 & 1);
 	return 0;
 }

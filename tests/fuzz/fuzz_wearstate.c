@@ -36,22 +36,32 @@ on_dev(void *cp, const char *src, unsigned long line, const char *name,
 	return 0;
 }
 
+/* The settings of the passes: the input's, then those it adopted. */
+struct arg {
+	struct wear_conf conf, adopted;
+	unsigned fixed;
+};
+
 /* Read TEXT[0..N) named by fz_file(); write what it holds to *BUF. */
 static int
-pass(const void *text, size_t n, struct wear_conf *conf, unsigned fixed,
-    int strict, char **buf, size_t *len, unsigned long *devs)
+pass(void *ap, int round, const void *text, size_t n, int strict,
+    char **buf, size_t *len, unsigned long *devs)
 {
+	struct arg *a = ap;
+	struct wear_conf *conf = round == 0 ? &a->conf : &a->adopted;
 	struct wstate_read r;
 	struct ctx c;
 	int rc;
 
+	if (round == 1)
+		a->adopted = a->conf;
 	memset(&r, 0, sizeof(r));
 	memset(&c, 0, sizeof(c));
 	FZ_CHECK((c.out = open_memstream(buf, len)) != NULL);
 	FZ_CHECK(wstate_write_header(c.out) == 0);
 	c.conf = conf;
 	r.conf = conf;
-	r.fixed = fixed;
+	r.fixed = a->fixed;
 	r.dev = on_dev;
 	r.ctx = &c;
 	rc = wstate_read(&r, fz_file(text, n), strict);
@@ -67,32 +77,12 @@ int
 LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 {
 	struct fz f = { data, size };
-	struct wear_conf conf, conf2;
-	char *a = NULL, *b = NULL, *c = NULL;
-	size_t alen = 0, blen = 0, clen = 0;
-	unsigned long na, nb, nc;
-	unsigned b0, fixed;
-	int strict;
+	struct arg a;
+	unsigned b0;
 
 	b0 = fz_byte(&f);
-	fixed = fz_byte(&f);
-	strict = b0 & 1;
-	wear_conf_default(&conf);
-	if (pass(f.p, f.n, &conf, fixed, strict, &a, &alen, &na) == 0) {
-		/* Read back with the settings the first pass adopted. */
-		conf2 = conf;
-		FZ_CHECK(pass(a, alen, &conf2, fixed, 1, &b, &blen, &nb) == 0);
-		FZ_CHECK(nb == na);
-		FZ_CHECK(pass(b, blen, &conf2, fixed, 1, &c, &clen, &nc) == 0);
-		if (clen != blen || memcmp(b, c, blen) != 0) {
-			fprintf(stderr, "state changed by a read and a write:"
-			    "\n%.*s\n--- became\n%.*s\n", (int)blen, b,
-			    (int)clen, c);
-			abort();
-		}
-	}
-	free(a);
-	free(b);
-	free(c);
+	a.fixed = fz_byte(&f);
+	wear_conf_default(&a.conf);
+	fz_round_trip(pass, &a, f.p, f.n, b0 & 1);
 	return 0;
 }
