@@ -57,13 +57,17 @@ build/tests/replay_%: tests/fuzz/fuzz_%.c tests/fuzz/replay.c \
 	    tests/fuzz/fuzz.h tests/fuzz/fuzz_engine.h build/libcw.a \
 	    $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
-	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< tests/fuzz/replay.c \
-	    build/libcw.a $(LDLIBS)
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) $(FZLINK) -o $@ $< \
+	    tests/fuzz/replay.c build/libcw.a $(LDLIBS)
 
-# make fuzz: the libFuzzer harnesses of tests/fuzz/, FUZZ_SECONDS each.
+# make fuzz: the libFuzzer harnesses of tests/fuzz/, one at a time, each
+# for FUZZ_SECONDS or FUZZ_RUNS inputs (0: no limit), whichever ends
+# first; prints inputs per second per harness and a summary table
+# (tests/fuzz/run, docs/FUZZING.md).
 # Built apart in build/fuzz/, so the flags of the other targets do not
 # matter here.
 FUZZ_SECONDS ?= 60
+FUZZ_RUNS ?= 0
 FUZZCC    = clang
 FUZZFLAGS = -g -O1 -fno-omit-frame-pointer -fsanitize=address,undefined \
 	    -fno-sanitize-recover=all
@@ -77,11 +81,18 @@ build/fuzz/lib/%.o: lib/%.c $(LIBHDR) config.mk
 
 build/fuzz/%: tests/fuzz/%.c tests/fuzz/fuzz.h tests/fuzz/fuzz_engine.h \
 	    $(FUZZOBJ) $(LIBHDR)
-	$(FUZZCC) $(CWFLAGS) $(FUZZFLAGS) -fsanitize=fuzzer -o $@ $< \
-	    $(FUZZOBJ) $(LDLIBS)
+	$(FUZZCC) $(CWFLAGS) $(FUZZFLAGS) $(FZLINK) -fsanitize=fuzzer -o $@ \
+	    $< $(FUZZOBJ) $(LDLIBS)
+
+# fuzz_fleet catches the reader's cw_die() (see the harness).
+build/fuzz/fuzz_fleet build/tests/replay_fleet: FZLINK = -Wl,--wrap=cw_die \
+	    -Wl,--wrap=cw_malloc,--wrap=cw_calloc,--wrap=cw_realloc \
+	    -Wl,--wrap=free,--wrap=gzsrc_read,--wrap=gzsrc_close \
+	    -Wl,--wrap=csvin_new,--wrap=csvin_free
 
 fuzz: deps $(FUZZBIN)
-	@FUZZ_SECONDS=$(FUZZ_SECONDS) tests/fuzz/run $(FUZZBIN)
+	@FUZZ_SECONDS=$(FUZZ_SECONDS) FUZZ_RUNS=$(FUZZ_RUNS) tests/fuzz/run \
+	    $(FUZZBIN)
 
 deps:
 	@scripts/deps

@@ -223,7 +223,8 @@ judge(const struct cap_conf *c, struct cap_dev *d, enum cap_reason end,
 	out->charge_ah = q;
 	if (!d->has_a || fabs(ds) < c->min_swing)
 		out->reason = end;
-	else if (ds * d->dir <= 0 || q * d->dir <= 0)
+	else if (!(ds * d->dir > 0 && q * d->dir > 0))
+		/* A charge that overflowed to NaN is no estimate either. */
 		out->reason = CAP_SIGN;
 	else {
 		out->reason = CAP_OK;
@@ -360,7 +361,7 @@ ocv_commit(const struct cap_conf *c, struct cap_ocvdev *d,
 	out->rows = p->rows - a->rows;
 	out->resolution_pct = CW_MISSING;
 	out->capacity_ah = CW_MISSING;
-	if (ds * q <= 0)
+	if (!(ds * q > 0))
 		out->reason = CAP_SIGN;
 	else {
 		out->reason = CAP_OK;

@@ -20,6 +20,7 @@
 #include "cw.h"
 
 #define CSVIN_MAXREC (64u * 1024 * 1024)	/* longest record accepted */
+#define CSVIN_MEMCHUNK 4096	/* read size from a memory source */
 
 struct csvin {
 	char delim;
@@ -51,6 +52,7 @@ static void row_cb(int, void *);
 static int record(struct csvin *, const char *, size_t, unsigned long, int);
 static void split_plain(struct csvin *, const char *, size_t);
 static char guess_delim(const char *, size_t);
+static int read_src(struct csvin *, struct gzsrc *);
 static int term_fn(unsigned char);
 static int scan_quoted(const struct csvin *, const char *, const char *, int,
     const char **, unsigned long *);
@@ -77,8 +79,7 @@ csvin_new(char delim, const struct csvin_ops *ops, void *ctx)
 		cw_die(CW_EXIT_DATA, "cannot start the CSV parser");
 	csv_set_delim(&r->p, (unsigned char)delim);
 	csv_set_term_func(&r->p, term_fn);
-	r->cap = 2 * GZSRC_BUFSZ;
-	r->buf = cw_malloc(r->cap);
+	/* The input buffer is made by the first read (read_src()). */
 	r->acap = 4096;
 	r->arena = cw_malloc(r->acap);
 	r->fcap = 64;
@@ -354,11 +355,34 @@ int
 csvin_file(struct csvin *r, const char *path)
 {
 	struct gzsrc src;
-	int rc = 0, eof = 0, skipping = 0;
 
 	if (gzsrc_open(&src, path) < 0)
 		return CW_EXIT_DATA;
-	r->src = src.name;
+	return read_src(r, &src);
+}
+
+int
+csvin_mem(struct csvin *r, const char *name, const void *buf, size_t n)
+{
+	struct gzsrc src;
+
+	gzsrc_open_mem(&src, name, buf, n);
+	return read_src(r, &src);
+}
+
+/*
+ * Read the source SRC through and close it.  The buffer grows by the
+ * source's chunk: GZSRC_BUFSZ from a file, less from memory, where a
+ * large read saves no system call (and a large buffer costs a fuzz
+ * harness more than its input).
+ */
+static int
+read_src(struct csvin *r, struct gzsrc *src)
+{
+	size_t chunk = src->mem != NULL ? CSVIN_MEMCHUNK : GZSRC_BUFSZ;
+	int rc = 0, eof = 0, skipping = 0;
+
+	r->src = src->name;
 	r->line = 1;
 	r->need_header = 1;
 	r->len = r->pos = 0;
@@ -374,8 +398,8 @@ csvin_file(struct csvin *r, const char *path)
 				r->len -= r->pos;
 				r->pos = 0;
 			}
-			if (r->cap - r->len < GZSRC_BUFSZ) {
-				if (r->cap >= CSVIN_MAXREC + GZSRC_BUFSZ) {
+			if (r->cap - r->len < chunk) {
+				if (r->cap >= CSVIN_MAXREC + chunk) {
 					/* Nothing fits: drop the record. */
 					cw_warn_at(r->src, r->line, "record "
 					    "longer than %u bytes skipped",
@@ -384,11 +408,12 @@ csvin_file(struct csvin *r, const char *path)
 					r->len = r->pos = 0;
 					skipping = 1;
 				} else {
-					r->cap *= 2;
+					r->cap = r->cap > 0 ? 2 * r->cap :
+					    2 * chunk;
 					r->buf = cw_realloc(r->buf, r->cap);
 				}
 			}
-			got = gzsrc_read(&src, r->buf + r->len,
+			got = gzsrc_read(src, r->buf + r->len,
 			    r->cap - r->len);
 			if (got < 0) {
 				rc = CW_EXIT_DATA;
@@ -453,7 +478,7 @@ csvin_file(struct csvin *r, const char *path)
 		if (eof && r->pos >= r->len)
 			break;
 	}
-	gzsrc_close(&src);
+	gzsrc_close(src);
 	return rc;
 }
 

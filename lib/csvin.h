@@ -56,6 +56,10 @@ struct csvin *csvin_new(char delim, const struct csvin_ops *ops, void *ctx);
  * error (reported), or the first non-zero value a callback returned.
  */
 int	csvin_file(struct csvin *r, const char *path);
+/* As csvin_file(), from BUF[0..N) (gzip or plain) named NAME in
+ * messages (gzsrc_open_mem()). */
+int	csvin_mem(struct csvin *r, const char *name, const void *buf,
+	    size_t n);
 /* Read every file of FILES[0..N), or standard input when N is 0. */
 int	csvin_files(struct csvin *r, char **files, int n);
 const struct csvin_stats *csvin_stats(const struct csvin *r);

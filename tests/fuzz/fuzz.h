@@ -3,8 +3,8 @@
  *
  * Each harness is one fuzz_<name>.c with LLVMFuzzerTestOneInput().  The
  * input is split into a few leading configuration bytes (struct fz) and a
- * body.  Bodies that the library reads from a file are written to one
- * temporary file, made once per process and rewritten for every input.
+ * body.  Bodies that the library reads from a file are read from memory
+ * through a path bound to them (fz_file()): no file is written or read.
  * An analysis engine gets its samples either through sampin_run() over
  * that file (the body is CSV: the path the tools take) or decoded from
  * the body's bytes (fz_sample()), which reaches values and time steps a
@@ -25,6 +25,7 @@
 #include <unistd.h>
 
 #include "cw.h"
+#include "gzsrc.h"
 
 #define FZ_CHECK(cond) do {						\
 	if (!(cond)) {							\
@@ -73,7 +74,12 @@ fz_unlink(void)
 		unlink(fz_path);
 }
 
-/* Write BODY[0..N) to the harness's temporary file; return its path. */
+/*
+ * Give BODY[0..N) a path; return it.  Nothing is written: the path, an
+ * empty file made once per process (so that stat() sees a regular file),
+ * is bound to the bytes in memory (gzsrc_bind_mem()), and every reader
+ * that opens it reads them.  BODY must stay until the next call.
+ */
 static inline const char *
 fz_file(const void *body, size_t n)
 {
@@ -89,11 +95,7 @@ fz_file(const void *body, size_t n)
 		}
 		atexit(fz_unlink);
 	}
-	if (ftruncate(fz_fd, 0) != 0 || (n > 0 &&
-	    pwrite(fz_fd, body, n, 0) != (ssize_t)n)) {
-		perror("fuzz: write");
-		abort();
-	}
+	gzsrc_bind_mem(fz_path, body, n);
 	return fz_path;
 }
 
@@ -159,6 +161,40 @@ fz_sample(struct fz *f, unsigned ndev, struct fz_sample *s)
 	s->soc = fz_value(f, 1e-2);
 	s->x = s->soc;
 	return 1;
+}
+
+/*
+ * A state reader's round trip.  PASS reads TEXT[0..N) (STRICT or not),
+ * writes back what it accepted to a malloc'ed *BUF of *LEN bytes and
+ * counts its devices; ROUND is 0 for the input, then 1 and 2.  When the
+ * input is accepted, what it wrote must read again strictly to as many
+ * devices and write back to the same bytes.
+ */
+typedef int fz_pass_fn(void *arg, int round, const void *text, size_t n,
+    int strict, char **buf, size_t *len, unsigned long *devs);
+
+static inline void
+fz_round_trip(fz_pass_fn *pass, void *arg, const void *text, size_t n,
+    int strict)
+{
+	char *a = NULL, *b = NULL, *c = NULL;
+	size_t alen = 0, blen = 0, clen = 0;
+	unsigned long na, nb, nc;
+
+	if (pass(arg, 0, text, n, strict, &a, &alen, &na) == 0) {
+		FZ_CHECK(pass(arg, 1, a, alen, 1, &b, &blen, &nb) == 0);
+		FZ_CHECK(nb == na);
+		FZ_CHECK(pass(arg, 2, b, blen, 1, &c, &clen, &nc) == 0);
+		if (clen != blen || memcmp(b, c, blen) != 0) {
+			fprintf(stderr, "state changed by a read and a write:"
+			    "\n%.*s\n--- became\n%.*s\n", (int)blen, b,
+			    (int)clen, c);
+			abort();
+		}
+	}
+	free(a);
+	free(b);
+	free(c);
 }
 
 /* True when X is a number no larger than what the tools are built for. */

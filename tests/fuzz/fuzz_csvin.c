@@ -1,6 +1,7 @@
 /*
  * fuzz_csvin.c: the CSV reader (lib/csvin.c) and header resolution
- * (lib/colmap.c) on arbitrary files, plain or gzip.
+ * (lib/colmap.c) on arbitrary files, plain or gzip, read from memory
+ * (csvin_mem()).
  *
  * The first byte picks the delimiter and which fields are required; the
  * rest is the file.  Oracles: every field is NUL-terminated at its length
@@ -181,7 +182,6 @@ LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 	const struct csvin_stats *st;
 	struct csvin *r;
 	struct ctx c;
-	const char *path;
 	unsigned b;
 	int rc;
 
@@ -189,9 +189,8 @@ LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 	memset(&c, 0, sizeof(c));
 	c.delim = delims[b & 3];
 	c.required = (b >> 2) & 0x3f;
-	path = fz_file(f.p, f.n);
 	r = csvin_new(c.delim, &ops, &c);
-	rc = csvin_file(r, path);
+	rc = csvin_mem(r, "fuzz.csv", f.p, f.n);
 	FZ_CHECK(rc == 0 || rc == CW_EXIT_DATA);
 	st = csvin_stats(r);
 	FZ_CHECK(st->records == st->headers + st->header_repeats + st->rows +

@@ -240,15 +240,21 @@ run(char delim, const char *path, struct log *l, int *rc)
 	return r;
 }
 
-/* Read TEXT (as a file) with DELIM and compare the log with WANT. */
+/*
+ * Read TEXT (as a file) with DELIM and compare the log with WANT; then
+ * the same from memory (csvin_mem(), under the file's name), which must
+ * log the same.
+ */
 static void
 expect(const char delim, const char *text, const char *want)
 {
-	struct log l = { 0 };
+	struct log l = { 0 }, m = { 0 };
 	struct csvin *r;
+	const char *path;
 	int rc;
 
-	r = run(delim, put("in.csv", text, strlen(text)), &l, &rc);
+	path = put("in.csv", text, strlen(text));
+	r = run(delim, path, &l, &rc);
 	assert_int_equal(rc, 0);
 	if (l.s == NULL || strcmp(l.s, want) != 0) {
 		print_error("got:\n%swant:\n%s", l.s ? l.s : "(nothing)\n",
@@ -256,7 +262,13 @@ expect(const char delim, const char *text, const char *want)
 		fail();
 	}
 	csvin_free(r);
+	r = csvin_new(delim, &ops, &m);
+	assert_int_equal(csvin_mem(r, path, text, strlen(text)), 0);
+	assert_non_null(m.s);
+	assert_string_equal(m.s, l.s);
+	csvin_free(r);
 	free(l.s);
+	free(m.s);
 }
 
 static int

@@ -7,7 +7,9 @@
  * the concatenation (RFC 1952 2.2); a stream that ends before the trailer
  * is truncated; a wrong CRC-32 or ISIZE is corrupt.  The test writes its
  * gzip files with zlib's gzwrite() and checks the bytes read back against
- * the original text.
+ * the original text.  The memory source (gzsrc_open_mem()) is held to
+ * what zlib's own gz* layer makes of the same bytes in a file: the same
+ * text, the same end and the same message, over cut and damaged streams.
  */
 #include <fcntl.h>
 #include <setjmp.h>
@@ -425,6 +427,119 @@ test_unreadable(void **st)
 	assert_non_null(strstr(msg, tmpdir));
 }
 
+/* As slurp(), from memory: DATA[0..N) named PATH. */
+static ssize_t
+slurp_mem(const char *path, const void *data, size_t len, char *buf,
+    size_t cap, size_t chunk, int *last)
+{
+	struct gzsrc s;
+	size_t n = 0;
+	ssize_t got;
+
+	assert_int_equal(gzsrc_open_mem(&s, path, data, len), 0);
+	for (;;) {
+		size_t want = chunk < cap - n ? chunk : cap - n;
+
+		assert_true(want > 0);
+		got = gzsrc_read(&s, buf + n, want);
+		if (got <= 0)
+			break;
+		n += (size_t)got;
+	}
+	*last = (int)got;
+	gzsrc_close(&s);
+	return (ssize_t)n;
+}
+
+/* DATA[0..N) read from a file and from memory give the same. */
+static void
+same_as_file(const void *data, size_t n)
+{
+	static const size_t chunks[] = { 1, 7, 65536 };
+	static char a[65536], b[65536];
+	char ea[4096];
+	const char *p = path_of("mem.gz");
+	ssize_t na, nb;
+	int la, lb;
+	size_t k;
+
+	put("mem.gz", data, n);
+	for (k = 0; k < sizeof(chunks) / sizeof(chunks[0]); k++) {
+		err_begin();
+		na = slurp(p, a, sizeof(a), chunks[k], &la);
+		snprintf(ea, sizeof(ea), "%s", err_end());
+		err_begin();
+		nb = slurp_mem(p, data, n, b, sizeof(b), chunks[k], &lb);
+		assert_int_equal(lb, la);
+		assert_string_equal(err_end(), ea);
+		/*
+		 * Before an error, each gives what it had decoded: the gz*
+		 * layer inflates ahead into its own buffer and drops that
+		 * buffer's bytes, so one text is a prefix of the other.
+		 */
+		if (la == 0)
+			assert_int_equal(nb, na);
+		assert_memory_equal(b, a, (size_t)(na < nb ? na : nb));
+	}
+}
+
+static void
+test_mem(void **st)
+{
+	static const unsigned char one[] = { 0x1f }, magic[] = { 0x1f, 0x8b };
+	unsigned char *m, *two, *buf;
+	char *t = text(3000);
+	size_t ml, i, cut;
+	const char *p;
+	char got[64];
+	struct gzsrc s;
+
+	(void)st;
+	same_as_file("", 0);
+	same_as_file(one, 1);
+	same_as_file(magic, 2);
+	same_as_file(t, 3000);
+	m = gz(t, 3000, &ml);
+	two = malloc(2 * ml + 3);
+	assert_non_null(two);
+	memcpy(two, m, ml);
+	memcpy(two + ml, m, ml);
+	same_as_file(two, 2 * ml);
+	/* Trailing garbage after a member, one byte of magic, text. */
+	memcpy(two + ml, "x,y\n", 4);
+	same_as_file(two, ml + 4);
+	same_as_file(two, ml + 1);
+	two[ml] = 0x1f;
+	same_as_file(two, ml + 1);
+	/* Every cut of two members, and damage at every byte of one. */
+	memcpy(two + ml, m, ml);
+	for (cut = 0; cut < 2 * ml; cut += cut < 40 ? 1 : 17)
+		same_as_file(two, cut);
+	buf = malloc(ml);
+	assert_non_null(buf);
+	for (i = 0; i < ml; i++) {
+		memcpy(buf, m, ml);
+		buf[i] ^= 0x55;
+		same_as_file(buf, ml);
+	}
+	/* A bound name is read from memory, not from its file. */
+	put("bound.csv", "on disk\n", 8);
+	p = path_of("bound.csv");
+	gzsrc_bind_mem(p, "in memory\n", 10);
+	assert_int_equal(gzsrc_open(&s, p), 0);
+	assert_int_equal(gzsrc_read(&s, got, sizeof(got)), 10);
+	assert_memory_equal(got, "in memory\n", 10);
+	gzsrc_close(&s);
+	gzsrc_bind_mem(NULL, NULL, 0);
+	assert_int_equal(gzsrc_open(&s, p), 0);
+	assert_int_equal(gzsrc_read(&s, got, sizeof(got)), 8);
+	gzsrc_close(&s);
+	free(buf);
+	free(two);
+	free(m);
+	free(t);
+}
+
 int
 main(void)
 {
@@ -436,6 +551,7 @@ main(void)
 		cmocka_unit_test(test_corrupt),
 		cmocka_unit_test(test_stdin),
 		cmocka_unit_test(test_unreadable),
+		cmocka_unit_test(test_mem),
 	};
 
 	return cmocka_run_group_tests(tests, setup, teardown);
