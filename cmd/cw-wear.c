@@ -15,6 +15,7 @@
 #include "devtab.h"
 #include "dwell.h"
 #include "fleet.h"
+#include "lock.h"
 #include "model.h"
 #include "opt.h"
 #include "outf.h"
@@ -75,7 +76,7 @@ struct run {
 enum {
 	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
 	OPT_FLEET, OPT_FULL,
-	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
+	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_LOCK_WAIT, OPT_MAX_GAP, OPT_MERGE,
 	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
 };
@@ -91,6 +92,7 @@ static const struct option longopts[] = {
 	{ "help", no_argument, NULL, 'h' },
 	{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
 	{ "limits", required_argument, NULL, OPT_LIMITS },
+	{ "lock-wait", required_argument, NULL, OPT_LOCK_WAIT },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
 	{ "merge", no_argument, NULL, OPT_MERGE },
 	{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
@@ -132,12 +134,11 @@ usage(FILE *fp)
 	    "               [--dwell] [--fleet FILE] [--full PCT] "
 	    "[--full-voltage V]\n"
 	    "               [--hysteresis PCT] [--limits T1,T2,T3,T4] "
-	    "[--max-gap DUR]\n"
-	    "               [--merge] [--min-current A] [--min-depth PCT] "
-	    "[--model NAME]\n"
-	    "               [-o FILE] [--residue half|full|repeat] "
-	    "[--state FILE]\n"
-	    "               [--state-out] [--version] [file ...]\n"
+	    "[--lock-wait DUR]\n"
+	    "               [--max-gap DUR] [--merge] [--min-current A] "
+	    "[--min-depth PCT]\n"
+	    "               [--model NAME] [-o FILE] [--residue half|full|repeat]\n"
+	    "               [--state FILE] [--state-out] [--version] [file ...]\n"
 	    "\n"
 	    "Wear stress, modelled fade and its causes per pack, from the "
 	    "sample stream.\n"
@@ -163,6 +164,9 @@ usage(FILE *fp)
 	    "(default 1)\n"
 	    "      --limits T1,T2,T3,T4  the zone thresholds "
 	    "(default 0,10,45,60)\n"
+	    "      --lock-wait DUR       wait so long for another run on the "
+	    "--state FILE\n"
+	    "                            (default 1h; 0: refuse at once)\n"
 	    "      --max-gap DUR         a longer interval carries no charge "
 	    "(default 15m)\n"
 	    "      --merge               the operands are states: join and "
@@ -603,6 +607,7 @@ main(int argc, char *argv[])
 	size_t n, k;
 	unsigned fixed = 0;
 	int ch, rc, merge = 0, state_out = 0, dwell = 0;
+	cw_time lock_wait = LOCK_WAIT_DEFAULT;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -654,6 +659,9 @@ main(int argc, char *argv[])
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, r.conf.lim.t, 4, 1, 1);
 			fixed |= WSTATE_SET_LIMITS;
+			break;
+		case OPT_LOCK_WAIT:
+			lock_wait = opt_dur_arg("--lock-wait", optarg, 1);
 			break;
 		case OPT_MAX_GAP:
 			r.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
@@ -727,6 +735,9 @@ main(int argc, char *argv[])
 	rd.fixed = fixed;
 	rd.dev = on_state;
 	rd.ctx = &r;
+	/* One run at a time on a state, from its read to its rename. */
+	if (state != NULL)
+		lock_state(state, lock_wait);
 	if (state != NULL && exists(state)) {
 		if ((rc = wstate_read(&rd, state, 1)) != 0 ||
 		    (rc = flush(&r)) != 0)
