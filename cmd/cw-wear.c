@@ -402,8 +402,8 @@ write_states(struct outf *o, const char *path, struct run *r,
 	if (bad == 0)
 		bad = wstate_write_end(fp, (unsigned long)n);
 	if (bad != 0)
-		cw_die(CW_EXIT_DATA, "%s: write error", path != NULL ? path :
-		    "standard output");
+		cw_die(CW_EXIT_DATA, "%s: write error: %s", path != NULL ?
+		    path : "standard output", strerror(errno));
 }
 
 /* With -v: what was left out of which term, over all devices. */

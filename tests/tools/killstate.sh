@@ -29,20 +29,7 @@ fi
 trap 'rm -rf "$d"' EXIT
 cd "$d" || exit 1
 
-# Night DAY of N packs, H hourly rows each: SoC swings, charge and use.
-gen() {
-	awk -v day="$1" -v nh="$2" -v n="$n" 'BEGIN {
-		print "device,time,voltage_v,current_a,temp_c,soc_pct"
-		for (k = 0; k < n; k++)
-			for (h = 0; h < nh; h++) {
-				soc = 50 + 40 * sin(h * 0.9 + k + day)
-				printf "PACK-%04d,2026-03-%02dT%02d:00:00Z," \
-				    "%.3f,%.2f,%.1f,%.1f\n", k, day, h,
-				    3.6 + soc / 200, h % 3 == 0 ? 2.5 : -1.5,
-				    20 + k % 20, soc
-			}
-	}'
-}
+. "$top/tests/tools/nights.sh"
 gen 2 24 >night1.csv
 gen 3 3 >night2.csv
 "$tool" --state s.state night1.csv >/dev/null || echo "night 1 failed"
