@@ -473,7 +473,10 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	if (strcmp(tag, DSTATE_TAG) != 0) {
 		if (strncmp(tag, "cw-dcir-state-", 14) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
-			    "%.40s; this cw-dcir reads %s", tag, DSTATE_TAG);
+			    "%.40s, which this cw-dcir (it reads %s) does not "
+			    "know: read it with the cw-dcir that wrote it, or "
+			    "make the state again from the logs (cw-dcir "
+			    "--state FILE over them)", tag, DSTATE_TAG);
 		else
 			cw_warn_at(rec->src, rec->line, "not a cw-dcir state "
 			    "(no %s in column 4)", DSTATE_TAG);

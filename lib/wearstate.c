@@ -682,7 +682,10 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 			    "that wrote it", tag, WSTATE_TAG);
 		else if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
-			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
+			    "%.40s, which this cw-wear (it reads %s) does not "
+			    "know: read it with the cw-wear that wrote it, or "
+			    "make the state again from the logs", tag,
+			    WSTATE_TAG);
 		else if (rec->nf <= 3)
 			cw_warn_at(rec->src, rec->line, "a row of %zu fields: "
 			    "a state cut short, or not a cw-wear state",
