@@ -293,6 +293,13 @@ check(const struct dstate_dev *d, const struct dstate_conf *sc)
 			return "first samples out of order";
 	if (d->npre > 0 && d->pre[0].t != d->first)
 		return "first samples do not start at the first row";
+	/* The last samples: rows of the state, in order (oldest first). */
+	for (i = 0; i < d->det.n; i++)
+		if (d->det.hist[i].t < d->first || d->det.hist[i].t > d->last ||
+		    (i > 0 && d->det.hist[i].t < d->det.hist[i - 1].t))
+			return "last samples out of order";
+	if (s->steps > d->rows)
+		return "more steps than rows";
 	if (d->det.n > 0 && d->det.hist[(d->det.head + DCIR_HIST_MAX - 1) %
 	    DCIR_HIST_MAX].t != d->last)
 		return "last samples do not end at the last row";
