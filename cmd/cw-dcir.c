@@ -15,6 +15,7 @@
 #include "cw.h"
 #include "dcir.h"
 #include "dcirstate.h"
+#include "lock.h"
 #include "devtab.h"
 #include "opt.h"
 #include "outf.h"
@@ -64,7 +65,8 @@ struct tool {
 };
 
 enum {
-	OPT_ALLOW_NO_SOC = 256, OPT_CONFIDENCE, OPT_EA, OPT_EOL, OPT_MAX_DT,
+	OPT_ALLOW_NO_SOC = 256, OPT_CONFIDENCE, OPT_EA, OPT_EOL, OPT_LOCK_WAIT,
+	OPT_MAX_DT,
 	OPT_MAX_POINTS, OPT_MERGE, OPT_MIN_SPAN, OPT_MIN_STEP, OPT_MIN_STEPS,
 	OPT_REF_TEMP, OPT_SOC, OPT_STATE, OPT_STATE_OUT, OPT_STEADY,
 	OPT_STEADY_TOL, OPT_TEMP, OPT_VERSION
@@ -89,14 +91,15 @@ usage(FILE *fp)
 	fprintf(fp,
 	    "usage: cw-dcir [-htv] [--allow-no-soc] [--confidence P] "
 	    "[--ea KJ] [--eol PCT]\n"
-	    "               [--max-dt DUR] [--max-points N] [--merge] "
-	    "[--min-span DUR]\n"
-	    "               [--min-step A] [--min-steps N] [-o FILE] "
-	    "[--ref-temp T]\n"
-	    "               [--soc LO,HI|auto] [--state FILE] [--state-out] "
-	    "[--steady N]\n"
-	    "               [--steady-tol FRAC] [--temp LO,HI] [--version] "
-	    "[FILE ...]\n");
+	    "               [--lock-wait DUR] [--max-dt DUR] [--max-points N] "
+	    "[--merge]\n"
+	    "               [--min-span DUR] [--min-step A] [--min-steps N] "
+	    "[-o FILE]\n"
+	    "               [--ref-temp T] [--soc LO,HI|auto] [--state FILE] "
+	    "[--state-out]\n"
+	    "               [--steady N] [--steady-tol FRAC] [--temp LO,HI] "
+	    "[--version]\n"
+	    "               [FILE ...]\n");
 	fputs(
 "\n"
 "DC internal resistance from current steps, and its growth per device.\n"
@@ -108,6 +111,8 @@ usage(FILE *fp)
 "      --eol PCT           end of life at PCT percent of r_start_ohm\n"
 "                          (default 200)\n"
 "  -h, --help              print this help and exit\n"
+"      --lock-wait DUR     wait so long for another run on the --state FILE\n"
+"                          (default 1h; 0: refuse at once)\n"
 "      --max-dt DUR        longest time between the samples of a step\n"
 "                          (default 15s)\n"
 "      --max-points N      points kept per device for the trend\n"
@@ -422,6 +427,7 @@ main(int argc, char *argv[])
 		{ "ea", required_argument, NULL, OPT_EA },
 		{ "eol", required_argument, NULL, OPT_EOL },
 		{ "help", no_argument, NULL, 'h' },
+		{ "lock-wait", required_argument, NULL, OPT_LOCK_WAIT },
 		{ "max-dt", required_argument, NULL, OPT_MAX_DT },
 		{ "max-points", required_argument, NULL, OPT_MAX_POINTS },
 		{ "merge", no_argument, NULL, OPT_MERGE },
@@ -449,6 +455,7 @@ main(int argc, char *argv[])
 	struct dstate_read rd;
 	const char *outpath = NULL, *state = NULL;
 	int merge = 0, state_out = 0;
+	cw_time lock_wait = LOCK_WAIT_DEFAULT;
 	double w[2];
 	void **sorted;
 	size_t i, n;
@@ -504,6 +511,9 @@ main(int argc, char *argv[])
 			break;
 		case OPT_MERGE:
 			merge = 1;
+			break;
+		case OPT_LOCK_WAIT:
+			lock_wait = opt_dur_arg("--lock-wait", optarg, 1);
 			break;
 		case OPT_STATE:
 			if (optarg[0] == '\0')
@@ -587,6 +597,9 @@ main(int argc, char *argv[])
 	rd.sc = &t.sconf;
 	rd.dev = on_state;
 	rd.ctx = &t;
+	/* One run at a time on a state, from its read to its rename. */
+	if (state != NULL)
+		lock_state(state, lock_wait);
 	if (state != NULL && exists(state)) {
 		if ((rc = dstate_read(&rd, state, 1)) != 0 ||
 		    (rc = flush(&t)) != 0)

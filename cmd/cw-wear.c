@@ -16,6 +16,7 @@
 #include "dwell.h"
 #include "fleet.h"
 #include "measured.h"
+#include "lock.h"
 #include "model.h"
 #include "opt.h"
 #include "outf.h"
@@ -80,8 +81,9 @@ struct run {
 enum {
 	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
 	OPT_FIT_SCALES, OPT_FLEET, OPT_FULL,
-	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
-	OPT_MEASURED, OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
+	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_LOCK_WAIT,
+	OPT_MAX_GAP, OPT_MERGE, OPT_MEASURED, OPT_MIN_CURRENT, OPT_MIN_DEPTH,
+	OPT_MODEL, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
 };
 
@@ -97,6 +99,7 @@ static const struct option longopts[] = {
 	{ "help", no_argument, NULL, 'h' },
 	{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
 	{ "limits", required_argument, NULL, OPT_LIMITS },
+	{ "lock-wait", required_argument, NULL, OPT_LOCK_WAIT },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
 	{ "measured", required_argument, NULL, OPT_MEASURED },
 	{ "merge", no_argument, NULL, OPT_MERGE },
@@ -142,9 +145,10 @@ usage(FILE *fp)
 	    "[--full PCT]\n"
 	    "               [--full-voltage V] [--hysteresis PCT] "
 	    "[--limits T1,T2,T3,T4]\n"
-	    "               [--max-gap DUR] [--measured FILE] [--merge] "
-	    "[--min-current A]\n"
-	    "               [--min-depth PCT] [--model NAME]\n"
+	    "               [--lock-wait DUR] [--max-gap DUR] "
+	    "[--measured FILE] [--merge]\n"
+	    "               [--min-current A] [--min-depth PCT] "
+	    "[--model NAME]\n"
 	    "               [-o FILE] [--residue half|full|repeat] "
 	    "[--state FILE]\n"
 	    "               [--state-out] [--version] [file ...]\n"
@@ -177,6 +181,9 @@ usage(FILE *fp)
 	    "(default 1)\n"
 	    "      --limits T1,T2,T3,T4  the zone thresholds "
 	    "(default 0,10,45,60)\n"
+	    "      --lock-wait DUR       wait so long for another run on the "
+	    "--state FILE\n"
+	    "                            (default 1h; 0: refuse at once)\n"
 	    "      --max-gap DUR         a longer interval carries no charge "
 	    "(default 15m)\n"
 	    "      --measured FILE       add measured_fade_pct and "
@@ -424,8 +431,8 @@ write_states(struct outf *o, const char *path, struct run *r,
 	if (bad == 0)
 		bad = wstate_write_end(fp, (unsigned long)n);
 	if (bad != 0)
-		cw_die(CW_EXIT_DATA, "%s: write error", path != NULL ? path :
-		    "standard output");
+		cw_die(CW_EXIT_DATA, "%s: write error: %s", path != NULL ?
+		    path : "standard output", strerror(errno));
 }
 
 /* With -v: what was left out of which term, over all devices. */
@@ -719,6 +726,7 @@ main(int argc, char *argv[])
 	unsigned fixed = 0;
 	const char *measured = NULL;
 	int ch, rc, merge = 0, state_out = 0, dwell = 0, fitting = 0;
+	cw_time lock_wait = LOCK_WAIT_DEFAULT;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -773,6 +781,9 @@ main(int argc, char *argv[])
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, r.conf.lim.t, 4, 1, 1);
 			fixed |= WSTATE_SET_LIMITS;
+			break;
+		case OPT_LOCK_WAIT:
+			lock_wait = opt_dur_arg("--lock-wait", optarg, 1);
 			break;
 		case OPT_MAX_GAP:
 			r.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
@@ -856,6 +867,9 @@ main(int argc, char *argv[])
 	rd.fixed = fixed;
 	rd.dev = on_state;
 	rd.ctx = &r;
+	/* One run at a time on a state, from its read to its rename. */
+	if (state != NULL)
+		lock_state(state, lock_wait);
 	if (state != NULL && exists(state)) {
 		if ((rc = wstate_read(&rd, state, 1)) != 0 ||
 		    (rc = flush(&r)) != 0)

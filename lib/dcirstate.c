@@ -293,6 +293,13 @@ check(const struct dstate_dev *d, const struct dstate_conf *sc)
 			return "first samples out of order";
 	if (d->npre > 0 && d->pre[0].t != d->first)
 		return "first samples do not start at the first row";
+	/* The last samples: rows of the state, in order (oldest first). */
+	for (i = 0; i < d->det.n; i++)
+		if (d->det.hist[i].t < d->first || d->det.hist[i].t > d->last ||
+		    (i > 0 && d->det.hist[i].t < d->det.hist[i - 1].t))
+			return "last samples out of order";
+	if (s->steps > d->rows)
+		return "more steps than rows";
 	if (d->det.n > 0 && d->det.hist[(d->det.head + DCIR_HIST_MAX - 1) %
 	    DCIR_HIST_MAX].t != d->last)
 		return "last samples do not end at the last row";
@@ -473,7 +480,10 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	if (strcmp(tag, DSTATE_TAG) != 0) {
 		if (strncmp(tag, "cw-dcir-state-", 14) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
-			    "%.40s; this cw-dcir reads %s", tag, DSTATE_TAG);
+			    "%.40s, which this cw-dcir (it reads %s) does not "
+			    "know: read it with the cw-dcir that wrote it, or "
+			    "make the state again from the logs (cw-dcir "
+			    "--state FILE over them)", tag, DSTATE_TAG);
 		else
 			cw_warn_at(rec->src, rec->line, "not a cw-dcir state "
 			    "(no %s in column 4)", DSTATE_TAG);

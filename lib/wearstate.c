@@ -19,29 +19,42 @@
 enum { FIRST_DEV, FIRST_HEADER, FIRST_END };
 
 
+/*
+ * What a field read back must hold besides its kind, as the engine that
+ * made it guarantees (check_dev): nothing more; a sum or an extreme of
+ * charge, depth or damage, never below 0; seconds of the rows' span; a
+ * count of rows, or of what rows make (turning points, cycles), at most
+ * the rows; a time of a row, 0 while unset.
+ */
+enum { R_ANY, R_NONNEG, R_SPAN_S, R_ROWS, R_TIME };
+
 struct field {
 	const char *name;
 	int kind;
 	size_t off;
 	int lo, hi;
+	int rule;		/* R_* */
 };
 
-#define FD(n, m)	{ n, SFMT_DBL, offsetof(struct wear_dev, m), 0, 0 }
-#define FN(n, m)	{ n, SFMT_DBLN, offsetof(struct wear_dev, m), 0, 0 }
-#define FT(n, m)	{ n, SFMT_TIME, offsetof(struct wear_dev, m), 0, 0 }
-#define FU(n, m)	{ n, SFMT_UL, offsetof(struct wear_dev, m), 0, 0 }
-#define FZ(n, m)	{ n, SFMT_SIZE, offsetof(struct wear_dev, m), 0, 0 }
-#define FI(n, m, lo, hi) { n, SFMT_INT, offsetof(struct wear_dev, m), lo, hi }
+#define F_(n, k, m, lo, hi, r) { n, k, offsetof(struct wear_dev, m), lo, hi, r }
+#define FD(n, m)	F_(n, SFMT_DBL, m, 0, 0, R_NONNEG)
+#define FX(n, m)	F_(n, SFMT_DBL, m, 0, 0, R_ANY)
+#define FS(n, m)	F_(n, SFMT_DBL, m, 0, 0, R_SPAN_S)
+#define FN(n, m)	F_(n, SFMT_DBLN, m, 0, 0, R_ANY)
+#define FT(n, m)	F_(n, SFMT_TIME, m, 0, 0, R_TIME)
+#define FU(n, m)	F_(n, SFMT_UL, m, 0, 0, R_ROWS)
+#define FZ(n, m)	F_(n, SFMT_SIZE, m, 0, 0, R_ANY)
+#define FI(n, m, lo, hi) F_(n, SFMT_INT, m, lo, hi, R_ANY)
 
 /* The device's fields, in the order of the row. */
 static const struct field devf[] = {
-	FU("rows", acc.rows),
+	F_("rows", SFMT_UL, acc.rows, 0, 0, R_ANY),
 	FU("rows_no_current", acc.rows_no_current),
 	FU("rows_no_soc", acc.rows_no_soc),
 	FU("rows_no_temp", acc.rows_no_temp),
 	FU("rows_model", acc.rows_model),
 	FD("charge_ah", acc.charge_ah),
-	FD("charge_s", acc.charge_s),
+	FS("charge_s", acc.charge_s),
 	FD("max_charge_a", acc.max_charge_a),
 	FD("ah_below_min", acc.zone_ah.zone[THERMAL_BELOW_MIN]),
 	FD("ah_cool", acc.zone_ah.zone[THERMAL_COOL]),
@@ -49,12 +62,12 @@ static const struct field devf[] = {
 	FD("ah_warm", acc.zone_ah.zone[THERMAL_WARM]),
 	FD("ah_above_max", acc.zone_ah.zone[THERMAL_ABOVE_MAX]),
 	FD("ah_no_temp", acc.zone_ah.no_temp),
-	FD("soc_s", acc.soc_s),
-	FD("soc_high_s", acc.soc_high_s),
-	FD("temp_s", acc.temp_s),
-	FD("temp_high_s", acc.temp_high_s),
-	FD("model_s", acc.model_s),
-	FD("gap_s", acc.gap_s),
+	FS("soc_s", acc.soc_s),
+	FS("soc_high_s", acc.soc_high_s),
+	FS("temp_s", acc.temp_s),
+	FS("temp_high_s", acc.temp_high_s),
+	FS("model_s", acc.model_s),
+	FS("gap_s", acc.gap_s),
 	FU("gaps", acc.gaps),
 	FD("rf_cycles", acc.rf.cycles),
 	FD("rf_range_sum", acc.rf.range_sum),
@@ -67,48 +80,48 @@ static const struct field devf[] = {
 	FU("topoff_cut", acc.topoff_cut),
 	FD("cyc_full", acc.cyc[WEAR_FULL]),
 	FD("cyc_ref", acc.cyc[WEAR_REF]),
-	FD("cyc_soc", acc.cyc[WEAR_SOC]),
-	FD("cyc_temp", acc.cyc[WEAR_TEMP]),
+	FX("cyc_soc", acc.cyc[WEAR_SOC]),
+	FX("cyc_temp", acc.cyc[WEAR_TEMP]),
 	FD("cal_full", acc.cal[WEAR_FULL]),
 	FD("cal_ref", acc.cal[WEAR_REF]),
-	FD("cal_soc", acc.cal[WEAR_SOC]),
-	FD("cal_temp", acc.cal[WEAR_TEMP]),
+	FX("cal_soc", acc.cal[WEAR_SOC]),
+	FX("cal_temp", acc.cal[WEAR_TEMP]),
 	FN("head_i", head_i),
 	FN("head_temp", head_temp),
 	FI("have_soc0", have_soc0, 0, 1),
 	FT("soc0_t", soc0_t),
-	FD("soc0", soc0),
+	FX("soc0", soc0),
 	FI("have_temp0", have_temp0, 0, 1),
 	FT("temp0_t", temp0_t),
-	FD("temp0", temp0),
+	FX("temp0", temp0),
 	FI("have_model0", have_model0, 0, 1),
 	FT("model0_t", model0_t),
 	FD("rate0_full", rate0.full),
 	FD("rate0_ref", rate0.ref),
-	FD("rate0_soc", rate0.soc),
-	FD("rate0_temp", rate0.temp),
+	FX("rate0_soc", rate0.soc),
+	FX("rate0_temp", rate0.temp),
 	FI("have_soc", have_soc, 0, 1),
 	FT("soc_t", soc_t),
-	FD("soc", soc),
+	FX("soc", soc),
 	FI("have_temp", have_temp, 0, 1),
 	FT("temp_t", temp_t),
-	FD("temp", temp),
+	FX("temp", temp),
 	FI("have_model", have_model, 0, 1),
 	FT("model_t", model_t),
 	FD("rate_full", rate.full),
 	FD("rate_ref", rate.ref),
-	FD("rate_soc", rate.soc),
-	FD("rate_temp", rate.temp),
+	FX("rate_soc", rate.soc),
+	FX("rate_temp", rate.temp),
 	FI("rf_raw", rf.raw_start, 0, 1),
 	FI("rf_dir", rf.dir, 0, 3),
 	FT("rf_lo_t", rf.lo.t),
-	FD("rf_lo_x", rf.lo.x),
+	FX("rf_lo_x", rf.lo.x),
 	FN("rf_lo_aux", rf.lo.aux),
 	FT("rf_hi_t", rf.hi.t),
-	FD("rf_hi_x", rf.hi.x),
+	FX("rf_hi_x", rf.hi.x),
 	FN("rf_hi_aux", rf.hi.aux),
 	FT("rf_cand_t", rf.cand.t),
-	FD("rf_cand_x", rf.cand.x),
+	FX("rf_cand_x", rf.cand.x),
 	FN("rf_cand_aux", rf.cand.aux),
 	FZ("rf_start", rf.start),
 	FU("rf_nturn", rf.nturn),
@@ -116,7 +129,7 @@ static const struct field devf[] = {
 	FI("top_have_row", top.have_row, 0, 1),
 	FT("top_row_t", top.row_t),
 	FT("top_lvl_t", top.lvl_t),
-	FD("top_lvl", top.lvl),
+	FX("top_lvl", top.lvl),
 	FI("top_lvl_top", top.lvl_top, 0, 1),
 	FI("top_have_soc", top.have_soc, 0, 1),
 	FT("top_soc_t", top.soc_t),
@@ -130,14 +143,14 @@ static const struct field devf[] = {
 	FD("top_hold_depth_sum", top.hold.depth_sum),
 	FD("top_hold_depth_max", top.hold.depth_max),
 	FD("top_hold_topoff_ah", top.hold.topoff_ah),
-	FT("top_hold_at_top2", top.hold.at_top2),
-	FD("top_peak", top.peak),
-	FD("top_trough", top.trough),
+	F_("top_hold_at_top2", SFMT_TIME, top.hold.at_top2, 0, 0, R_ANY),
+	FX("top_peak", top.peak),
+	FX("top_trough", top.trough),
 	FT("top_peak_t", top.peak_t),
 	FI("top_idle", top.idle, 0, 1),
 	FI("top_dropped", top.dropped, 0, 1),
 	FI("top_recharged", top.recharged, 0, 1),
-	FD("top_rise", top.rise),
+	FX("top_rise", top.rise),
 	FT("top_rise_t", top.rise_t),
 	FT("top_chg_t", top.chg_t),
 	FD("top_cyc_ah", top.cyc_ah),
@@ -150,8 +163,8 @@ static const struct field devf[] = {
 	/* ... and the damage before the log (packs in service). */
 	FI("prior", prior.kind, 0, WEAR_PRIOR_NKIND - 1),
 	FN("prior_soh_pct", prior.soh_pct),
-	FD("prior_age_s", prior.age_s),
-	FD("prior_efc", prior.efc)
+	FX("prior_age_s", prior.age_s),
+	FX("prior_efc", prior.efc)
 };
 #define NDEVF (sizeof(devf) / sizeof(devf[0]))
 /*
@@ -161,31 +174,44 @@ static const struct field devf[] = {
  */
 #define NDEVF_V(v)	((void)(v), NDEVF)
 
-/* The settings, over struct wear_conf, with the option that sets each. */
+/*
+ * The settings, over struct wear_conf, with the option that sets each
+ * and the range that option takes (cmd/cw-wear.c; a duration in
+ * microseconds, as opt_dur_arg() takes it): a state's value outside it
+ * is refused as the option's would be.  --limits must also not decrease.
+ */
 struct setting {
 	const char *name;
 	int kind;
 	size_t off;
 	unsigned bit;
 	const char *opt;
+	double lo, hi;
 };
 
-#define SET(n, k, m, b, o) { n, k, offsetof(struct wear_conf, m), b, o }
+#define SET(n, k, m, b, o, lo, hi) \
+	{ n, k, offsetof(struct wear_conf, m), b, o, lo, hi }
 static const struct setting setf[] = {
 	SET("hysteresis", SFMT_DBL, hysteresis, WSTATE_SET_HYSTERESIS,
-	    "--hysteresis"),
+	    "--hysteresis", 0, 100),
 	SET("min_current", SFMT_DBL, min_current, WSTATE_SET_MIN_CURRENT,
-	    "--min-current"),
-	SET("max_gap_us", SFMT_TIME, max_gap, WSTATE_SET_MAX_GAP, "--max-gap"),
-	SET("t1", SFMT_DBL, lim.t[0], WSTATE_SET_LIMITS, "--limits"),
-	SET("t2", SFMT_DBL, lim.t[1], WSTATE_SET_LIMITS, "--limits"),
-	SET("t3", SFMT_DBL, lim.t[2], WSTATE_SET_LIMITS, "--limits"),
-	SET("t4", SFMT_DBL, lim.t[3], WSTATE_SET_LIMITS, "--limits"),
-	SET("full_pct", SFMT_DBL, topoff.full_pct, WSTATE_SET_FULL, "--full"),
+	    "--min-current", 0, 1e6),
+	SET("max_gap_us", SFMT_TIME, max_gap, WSTATE_SET_MAX_GAP, "--max-gap",
+	    1, 1e17),
+	SET("t1", SFMT_DBL, lim.t[0], WSTATE_SET_LIMITS, "--limits", -273.15,
+	    HUGE_VAL),
+	SET("t2", SFMT_DBL, lim.t[1], WSTATE_SET_LIMITS, "--limits", -273.15,
+	    HUGE_VAL),
+	SET("t3", SFMT_DBL, lim.t[2], WSTATE_SET_LIMITS, "--limits", -273.15,
+	    HUGE_VAL),
+	SET("t4", SFMT_DBL, lim.t[3], WSTATE_SET_LIMITS, "--limits", -273.15,
+	    HUGE_VAL),
+	SET("full_pct", SFMT_DBL, topoff.full_pct, WSTATE_SET_FULL, "--full",
+	    0, 100),
 	SET("full_v", SFMT_DBLN, topoff.full_v, WSTATE_SET_FULL_VOLTAGE,
-	    "--full-voltage"),
+	    "--full-voltage", 1e-3, 1e6),
 	SET("min_depth", SFMT_DBL, topoff.min_depth, WSTATE_SET_MIN_DEPTH,
-	    "--min-depth")
+	    "--min-depth", 1e-6, 100)
 };
 #define NSETF (sizeof(setf) / sizeof(setf[0]))
 
@@ -354,6 +380,7 @@ settings(struct rd *d, const struct csvin_rec *rec)
 	char have[128], want[128];
 	unsigned char v[sizeof(double) > sizeof(cw_time) ? sizeof(double) :
 	    sizeof(cw_time)];
+	double x, prev_lim = -HUGE_VAL;
 	size_t k;
 
 	m = model_find(rec->f[4]);
@@ -382,6 +409,28 @@ settings(struct rd *d, const struct csvin_rec *rec)
 			    "column %s: the state is corrupt",
 			    rec->f[COL_SET + k], s->name);
 			return CW_EXIT_DATA;
+		}
+		/* In the option's range; limits in its order. */
+		if (s->kind == SFMT_TIME)
+			x = (double)*(cw_time *)(void *)v;
+		else
+			memcpy(&x, v, sizeof(x));
+		if (cw_isnum(x) && (x < s->lo || x > s->hi)) {
+			cw_warn_at(rec->src, rec->line, "%s %.40s is outside "
+			    "what %s takes: the state is corrupt", s->name,
+			    rec->f[COL_SET + k], s->opt);
+			return CW_EXIT_DATA;
+		}
+		if (s->bit == WSTATE_SET_LIMITS) {
+			if (x < prev_lim) {
+				cw_warn_at(rec->src, rec->line, "limits %.24s,"
+				    "%.24s,%.24s,%.24s decrease, which --limits "
+				    "refuses: the state is corrupt",
+				    rec->f[COL_SET + 3], rec->f[COL_SET + 4],
+				    rec->f[COL_SET + 5], rec->f[COL_SET + 6]);
+				return CW_EXIT_DATA;
+			}
+			prev_lim = x;
 		}
 		if (!r->adopted && !(r->fixed & s->bit)) {
 			memcpy(p, v, s->kind == SFMT_TIME ? sizeof(cw_time) :
@@ -511,12 +560,51 @@ get_pre(struct wear_dev *d, const char *s, size_t n)
 static const char *
 check_dev(const struct wear_dev *d, const struct wear_conf *c)
 {
+	static char why[160];
 	const struct wear_acc *a = &d->acc;
+	double span_s;
 	unsigned long n;
 	size_t k;
 
 	if (a->rows == 0 || a->first > a->last)
 		return "no rows, or first after last";
+	/* Every field by its rule (struct field); times bounded by the rows'. */
+	span_s = (double)(a->last - a->first) / CW_US_PER_S;
+	for (k = 0; k < NDEVF; k++) {
+		const void *p = (const char *)d + devf[k].off;
+		const char *bad = NULL;
+
+		switch (devf[k].rule) {
+		case R_NONNEG:
+			if (!(*(const double *)p >= 0))
+				bad = "is below 0";
+			break;
+		case R_SPAN_S:
+			if (!(*(const double *)p >= 0) || *(const double *)p >
+			    span_s * (1 + 1e-9) + 1e-6)
+				bad = "is not within the seconds from first to "
+				    "last";
+			break;
+		case R_ROWS:
+			if (*(const unsigned long *)p > a->rows)
+				bad = "is more than the rows";
+			break;
+		case R_TIME:
+			if (*(const cw_time *)p != 0 && (*(const cw_time *)p <
+			    a->first || *(const cw_time *)p > a->last))
+				bad = "is a time outside first to last";
+			break;
+		}
+		if (bad != NULL) {
+			snprintf(why, sizeof(why), "%s %s", devf[k].name, bad);
+			return why;
+		}
+	}
+	if (d->top.hold.at_top2 < 0 || d->top.hold.start > d->top.hold.end ||
+	    d->top.hold.at_top2 / 2 > d->top.hold.end - d->top.hold.start)
+		return "top_hold_at_top2 is not within its hold";
+	if (d->rf.n > a->rows)
+		return "rf_pts holds more turning points than the rows";
 	if (a->rows_no_current > a->rows || a->rows_no_soc > a->rows ||
 	    a->rows_no_temp > a->rows || a->rows_model > a->rows ||
 	    a->topoff_judged > a->rows)
@@ -682,7 +770,10 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 			    "that wrote it", tag, WSTATE_TAG);
 		else if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
-			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
+			    "%.40s, which this cw-wear (it reads %s) does not "
+			    "know: read it with the cw-wear that wrote it, or "
+			    "make the state again from the logs", tag,
+			    WSTATE_TAG);
 		else if (rec->nf <= 3)
 			cw_warn_at(rec->src, rec->line, "a row of %zu fields: "
 			    "a state cut short, or not a cw-wear state",
