@@ -13,4 +13,4 @@ LDFLAGS =
 # Always applied, whatever CFLAGS says: the language level and the
 # include path are part of the source, not a tuning choice.
 CWFLAGS = -std=c11 -D_POSIX_C_SOURCE=200809L -Ilib -DCW_VERSION=\"$(VERSION)\"
-LDLIBS = -lcsv -lz -lm
+LDLIBS = -lcsv -lz -lm -lpthread
