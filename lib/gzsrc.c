@@ -63,6 +63,7 @@ static int fail(struct gzsrc *, const char *, ...)
     __attribute__((format(printf, 2, 3)));
 static void *reader(void *);
 static void ring_start(struct gzsrc *);
+static void ring_free(struct gzsrc_ring *);
 static ssize_t ring_read(struct gzsrc *, void *, size_t);
 static ssize_t finish(struct gzsrc *, int);
 
@@ -368,13 +369,21 @@ ring_start(struct gzsrc *s)
 	pthread_sigmask(SIG_SETMASK, &old, NULL);
 	if (rc != 0) {
 		/* No thread: read on this one, as for a pipe. */
-		pthread_mutex_destroy(&g->mu);
-		pthread_cond_destroy(&g->cv);
-		for (k = 0; k < GZSRC_NRING; k++)
-			free(g->buf[k]);
-		free(g);
+		ring_free(g);
 		s->ring = NULL;
 	}
+}
+
+static void
+ring_free(struct gzsrc_ring *g)
+{
+	int k;
+
+	pthread_mutex_destroy(&g->mu);
+	pthread_cond_destroy(&g->cv);
+	for (k = 0; k < GZSRC_NRING; k++)
+		free(g->buf[k]);
+	free(g);
 }
 
 static ssize_t
@@ -446,7 +455,6 @@ void
 gzsrc_close(struct gzsrc *s)
 {
 	struct gzsrc_ring *g = s->ring;
-	int k;
 
 	if (g != NULL) {
 		pthread_mutex_lock(&g->mu);
@@ -454,11 +462,7 @@ gzsrc_close(struct gzsrc *s)
 		pthread_cond_broadcast(&g->cv);
 		pthread_mutex_unlock(&g->mu);
 		pthread_join(g->th, NULL);
-		pthread_mutex_destroy(&g->mu);
-		pthread_cond_destroy(&g->cv);
-		for (k = 0; k < GZSRC_NRING; k++)
-			free(g->buf[k]);
-		free(g);
+		ring_free(g);
 		s->ring = NULL;
 	}
 	if (s->zinit)

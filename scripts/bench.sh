@@ -48,6 +48,28 @@ t() {
 ratio() { awk -v a="$1" -v b="$2" 'BEGIN { printf "%.2f", (b > 0 ? a / b : 0) }'; }
 row() { printf '| %s | %s | %s | %s | %s |\n' "$1" "$2" "$3" "$4" "$5"; }
 
+# rounds FILE NAME CMD [NAME CMD ...]: REPS rounds, each running every
+# CMD once in turn, so that drift in the machine's speed hits them all
+# alike; FILE gets "NAME SECONDS KIB LOAD" per run (LOAD: the 1-minute
+# load average after it).
+rounds() {
+	rfile=$1
+	shift
+	: >"$rfile"
+	r=0
+	while [ $r -lt "$reps" ]; do
+		n=1
+		while [ $n -lt $# ]; do
+			eval "name=\${$n}; cmd=\${$((n + 1))}"
+			res=$(reps=1 t "$cmd")
+			load=$(awk '{ print $1 }' /proc/loadavg 2>/dev/null)
+			echo "$name $res ${load:-?}" >>"$rfile"
+			n=$((n + 2))
+		done
+		r=$((r + 1))
+	done
+}
+
 gen() {	# gen DIR DEVICES DAYS PERIOD
 	rm -rf "$1"
 	cw-synth -n "$2" -d "$3" -p "$4" -s 7 -o "$1" >/dev/null
@@ -86,19 +108,7 @@ daybench() {
 	    "dclean1" "CW_THREADS=0 $DAY60" \
 	    "dpipe" "$DAY60 | cw-wear"
 	dres="$work/dresults"
-	: >"$dres"
-	r=0
-	while [ $r -lt "$reps" ]; do
-		n=1
-		while [ $n -lt $# ]; do
-			eval "name=\${$n}; cmd=\${$((n + 1))}"
-			res=$(reps=1 t "$cmd")
-			load=$(awk '{ print $1 }' /proc/loadavg 2>/dev/null)
-			echo "$name $res ${load:-?}" >>"$dres"
-			n=$((n + 2))
-		done
-		r=$((r + 1))
-	done
+	rounds "$dres" "$@"
 	dmed() {	# dmed NAME: "SECONDS KIB LOADS" (the loads of every round)
 		awk -v k="$1" '$1 == k { print $2, $3, $4 }' "$dres" | sort -n |
 		    awk '{ t[NR] = $1; if ($2 > m) m = $2; l = l (NR > 1 ? "/" : "") $3 }
@@ -160,18 +170,7 @@ set -- \
     "capacity" "cw-capacity --trend $work/stream.csv" \
     "wear" "cw-wear $work/stream.csv"
 results="$work/results"
-: >"$results"
-r=0
-while [ $r -lt "$reps" ]; do
-	n=1
-	while [ $n -lt $# ]; do
-		eval "name=\${$n}; cmd=\${$((n + 1))}"
-		res=$(reps=1 t "$cmd")
-		echo "$name $res" >>"$results"
-		n=$((n + 2))
-	done
-	r=$((r + 1))
-done
+rounds "$results" "$@"
 med() {	# med NAME: "SECONDS KIB" median over rounds, max memory
 	awk -v k="$1" '$1 == k { print $2, $3 }' "$results" | sort -n |
 	    awk '{ t[NR] = $1; if ($2 > m) m = $2 }
