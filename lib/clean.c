@@ -25,8 +25,11 @@ const char *const clean_reason_name[CR_NREASON] = {
  * devtab.c), then the resampler's, then those only --soc-from-charge
  * uses.  A row touches these, the reorder window's last pending row (a
  * row in order goes after it, no search) and its first (the one
- * released).
+ * released), which are in the entry too while the window holds at most
+ * CLEAN_QINLINE rows (6 at 10 s with the default 60 s window).
  */
+#define CLEAN_QINLINE	8
+
 struct cdev {
 	struct devent e;
 	cw_time max_seen;	/* latest time accepted */
@@ -37,6 +40,9 @@ struct cdev {
 				 * this device's last time: a guess, see
 				 * guess_next() */
 	struct rs_state rs;
+	/* The window's first CLEAN_QINLINE rows live here, in the entry
+	 * (fetched with it), more on the heap. */
+	struct rs_point qin[CLEAN_QINLINE];
 	double soc;		/* coulomb-counted SoC */
 	cw_time soc_t;
 	int soc_known;
@@ -408,8 +414,18 @@ on_row(void *ctx, const struct csvin_rec *rec)
 				cw_die(CW_EXIT_DATA, "%s: reorder window of "
 				    "more than %lu rows", d->e.name,
 				    (unsigned long)d->qcap);
-			d->qcap = d->qcap ? 2 * d->qcap : 16;
-			d->q = cw_realloc(d->q, d->qcap * sizeof(*d->q));
+			if (d->qcap == 0) {
+				d->q = d->qin;
+				d->qcap = CLEAN_QINLINE;
+			} else if (d->q == d->qin) {
+				d->q = cw_malloc(2 * d->qcap * sizeof(*d->q));
+				memcpy(d->q, d->qin, d->qn * sizeof(*d->q));
+				d->qcap *= 2;
+			} else {
+				d->qcap *= 2;
+				d->q = cw_realloc(d->q, d->qcap *
+				    sizeof(*d->q));
+			}
 		}
 	}
 	memmove(d->q + lo + 1, d->q + lo, (d->qn - lo) * sizeof(*d->q));
@@ -444,7 +460,7 @@ guess_next(const struct cdev *d)
 
 	if (n == NULL)
 		return;
-	if (n->qn > n->qh) {
+	if (n->q != n->qin && n->qn > n->qh) {
 		DEVTAB_PREFETCH(n->q + n->qh);
 		DEVTAB_PREFETCH(n->q + n->qn - 1);
 	}
@@ -737,7 +753,8 @@ clean_run(const struct clean_conf *c, char **files, int n,
 			r.cur = d;
 			rs_flush(&d->rs, c->step, emit, &r);
 		}
-		free(d->q);
+		if (d->q != d->qin)
+			free(d->q);
 	}
 	devtab_free(r.devs);
 	return rc;
