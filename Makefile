@@ -94,13 +94,26 @@ fuzz: deps $(FUZZBIN)
 	@FUZZ_SECONDS=$(FUZZ_SECONDS) FUZZ_RUNS=$(FUZZ_RUNS) tests/fuzz/run \
 	    $(FUZZBIN)
 
+# make tsan: the threaded gzip reader of lib/gzsrc.c under ThreadSanitizer
+# (clang), built apart in build/tsan/; make check runs it (tests/tsan/run).
+TSANCC    = clang
+TSANFLAGS = -g -O1 -fno-omit-frame-pointer -fsanitize=thread
+TSANSRC   = lib/gzsrc.c lib/cw.c
+
+build/tsan/gzsrc_ring: tests/tsan/gzsrc_ring.c $(TSANSRC) $(LIBHDR) config.mk
+	@mkdir -p build/tsan
+	$(TSANCC) $(CWFLAGS) $(TSANFLAGS) -o $@ tests/tsan/gzsrc_ring.c \
+	    $(TSANSRC) -lz -lpthread
+
+tsan: build/tsan/gzsrc_ring
+
 deps:
 	@scripts/deps
 
 tests: $(BIN) $(UNIT) $(TOOLS) $(REPLAY)
 
 check: deps
-	@$(MAKE) -s tests
+	@$(MAKE) -s tests tsan
 	@tests/run
 
 # make mutate: the mutations of tests/mutate/list, each alone against
@@ -137,5 +150,5 @@ clean:
 
 FORCE:
 
-.PHONY: all bench demo deps mutate tests check fuzz lint install uninstall clean FORCE
+.PHONY: all bench demo deps mutate tests tsan check fuzz lint install uninstall clean FORCE
 .SECONDARY: $(LIBOBJ) $(FUZZOBJ)

@@ -16,4 +16,4 @@ LDFLAGS =
 # handles itself at zero, which -Wextra would flag in every table.
 CWFLAGS = -std=c11 -D_POSIX_C_SOURCE=200809L -Ilib -DCW_VERSION=\"$(VERSION)\" \
 	-Wno-missing-field-initializers
-LDLIBS = -lcsv -lz -lm
+LDLIBS = -lcsv -lz -lm -lpthread

@@ -9,6 +9,7 @@
 #include "clean.h"
 #include "csvout.h"
 #include "cw.h"
+#include "gzsrc.h"
 #include "opt.h"
 #include "outf.h"
 #include "ts.h"
@@ -17,8 +18,8 @@ enum {
 	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_CHARGE_SIGN,
 	OPT_DECIMAL_COMMA,
 	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_KEEP, OPT_MAX_GAP, OPT_MAX_REJECT,
-	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SOC_FROM_CHARGE, OPT_STEP,
-	OPT_TZ,
+	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SKIP_JUNK,
+	OPT_SOC_FROM_CHARGE, OPT_STEP, OPT_TZ,
 	OPT_VERSION
 };
 
@@ -40,6 +41,7 @@ static const struct option longopts[] = {
 	{ "rejects", required_argument, NULL, OPT_REJECTS },
 	{ "reorder", required_argument, NULL, OPT_REORDER },
 	{ "sentinel", required_argument, NULL, OPT_SENTINEL },
+	{ "skip-junk", no_argument, NULL, OPT_SKIP_JUNK },
 	{ "soc-from-charge", required_argument, NULL, OPT_SOC_FROM_CHARGE },
 	{ "step", required_argument, NULL, OPT_STEP },
 	{ "tz", required_argument, NULL, OPT_TZ },
@@ -65,7 +67,8 @@ usage(FILE *fp, int status)
 "                [--keep col[,col...]]\n"
 "                [--max-gap duration] [--max-reject fraction]\n"
 "                [--rejects file] [--reorder duration] [--sentinel list]\n"
-"                [--soc-from-charge ah] [--step duration] [--tz +hh:mm]\n"
+"                [--skip-junk] [--soc-from-charge ah] [--step duration]\n"
+"                [--tz +hh:mm]\n"
 "                [file ...]\n"
 "\n"
 "Clean raw battery gauge logs (plain or gzip) into the sample stream\n"
@@ -93,6 +96,8 @@ usage(FILE *fp, int status)
 "      --reorder duration  put back rows late by up to this (default 60s)\n"
 "      --sentinel list     raw values meaning no reading, rejected as\n"
 "                          out-of-range (default -32768,65535; or none)\n"
+"      --skip-junk         skip bytes after a gzip member that are not one\n"
+"                          (counted on stderr; without it: exit 1)\n"
 "      --step duration     resample each device onto this grid\n"
 "      --max-gap duration  never interpolate across a longer gap (default 15m)\n"
 "      --soc-from-charge ah  derive SoC by coulomb counting for a pack of ah\n"
@@ -287,6 +292,9 @@ main(int argc, char *argv[])
 			break;
 		case OPT_SENTINEL:
 			sentinel_arg(&c, optarg);
+			break;
+		case OPT_SKIP_JUNK:
+			gzsrc_skip_junk = 1;
 			break;
 		case OPT_SOC_FROM_CHARGE:
 			c.soc_ah = opt_num_arg("--soc-from-charge", optarg,

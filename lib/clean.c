@@ -1,5 +1,6 @@
 /* clean.c: see clean.h. */
 #include <math.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -19,15 +20,27 @@ const char *const clean_reason_name[CR_NREASON] = {
 	"out-of-range", "duplicate", "out-of-order", "empty"
 };
 
+/*
+ * A device's state, laid out for a stream that cycles through thousands
+ * of devices (every row a cache miss): the fields every row reads come
+ * first, next to the devent (whose line also holds a short name, see
+ * devtab.c), then the resampler's, then those only --soc-from-charge
+ * uses.  A row touches these, the reorder window's last pending row (a
+ * row in order goes after it, no search) and its first (the one
+ * released), which are in the entry too while the window holds at most
+ * CLEAN_QINLINE rows (6 at 10 s with the default 60 s window).
+ */
+#define CLEAN_QINLINE	8
+
 struct cdev {
 	struct devent e;
-	struct rs_point *q;	/* pending rows, sorted by time, [qh, qn) */
-	size_t qh, qn, qcap;
 	cw_time max_seen;	/* latest time accepted */
 	cw_time last_out;	/* latest time released */
-	double soc;		/* coulomb-counted SoC */
-	int soc_known;
-	cw_time soc_t;
+	struct rs_point *q;	/* pending rows, sorted by time, [qh, qn) */
+	uint32_t qh, qn, qcap;
+	struct cdev *next;	/* the device whose row came after one of
+				 * this device's last time: a guess, see
+				 * guess_next() */
 	struct rs_state rs;
 	/*
 	 * --keep: the values of the pending rows, beside q (a slot of
@@ -38,6 +51,12 @@ struct cdev {
 	char *qk;
 	char *kv;
 	unsigned long nrel;
+	/* The window's first CLEAN_QINLINE rows live here, in the entry
+	 * (fetched with it), more on the heap. */
+	struct rs_point qin[CLEAN_QINLINE];
+	double soc;		/* coulomb-counted SoC */
+	cw_time soc_t;
+	int soc_known;
 };
 
 struct run {
@@ -108,6 +127,8 @@ static double pct(double *, int, double);
 static void keep_row(struct run *, const struct csvin_rec *);
 static void emit(void *, const struct rs_point *);
 static void drain(struct run *, struct cdev *, cw_time);
+static int same_name(const struct cdev *, const char *, size_t);
+static void guess_next(const struct cdev *);
 
 void
 clean_conf_default(struct clean_conf *c)
@@ -646,18 +667,25 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		keep_row(r, rec);
 
 	d = r->last;
-	if (d == NULL || d->e.namelen != namelen ||
-	    memcmp(d->e.name, name, namelen) != 0) {
+	if (d == NULL || !same_name(d, name, namelen)) {
 		int isnew;
 
-		d = devtab_get(r->devs, name, namelen, &isnew);
-		if (isnew) {
-			d->max_seen = d->last_out = INT64_MIN;
-			r->st->devices++;
-			if (c->nkeep > 0)
-				d->kv = cw_calloc(2, r->kstride);
+		if (d != NULL && d->next != NULL &&
+		    same_name(d->next, name, namelen))
+			d = d->next;
+		else {
+			d = devtab_get(r->devs, name, namelen, &isnew);
+			if (isnew) {
+				d->max_seen = d->last_out = INT64_MIN;
+				r->st->devices++;
+				if (c->nkeep > 0)
+					d->kv = cw_calloc(2, r->kstride);
+			}
+			if (r->last != NULL)
+				r->last->next = d;
 		}
 		r->last = d;
+		guess_next(d);
 	}
 	/* Too late for the window, or a time already seen. */
 	if (p.t <= d->last_out)
@@ -667,6 +695,8 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		return reject(r, rec, CR_ORDER);
 	lo = d->qh;
 	hi = d->qn;
+	if (lo == hi || d->q[hi - 1].t < p.t)
+		lo = hi;	/* in order: after the last pending row */
 	while (lo < hi) {	/* first pending row not before p.t */
 		size_t mid = lo + (hi - lo) / 2;
 
@@ -695,10 +725,25 @@ on_row(void *ctx, const struct csvin_rec *rec)
 			d->qh = 0;
 		}
 		if (d->qn == d->qcap) {
-			d->qcap = d->qcap ? 2 * d->qcap : 16;
-			d->q = cw_realloc(d->q, d->qcap * sizeof(*d->q));
+			if (d->qcap >= UINT32_MAX / 2)
+				cw_die(CW_EXIT_DATA, "%s: reorder window of "
+				    "more than %lu rows", d->e.name,
+				    (unsigned long)d->qcap);
+			if (d->qcap == 0) {
+				d->q = d->qin;
+				d->qcap = CLEAN_QINLINE;
+			} else if (d->q == d->qin) {
+				d->q = cw_malloc(2 * d->qcap * sizeof(*d->q));
+				memcpy(d->q, d->qin, d->qn * sizeof(*d->q));
+				d->qcap *= 2;
+			} else {
+				d->qcap *= 2;
+				d->q = cw_realloc(d->q, d->qcap *
+				    sizeof(*d->q));
+			}
 			if (r->kstride > 0)
-				d->qk = cw_realloc(d->qk, d->qcap * r->kstride);
+				d->qk = cw_realloc(d->qk, (size_t)d->qcap *
+				    r->kstride);
 		}
 	}
 	memmove(d->q + lo + 1, d->q + lo, (d->qn - lo) * sizeof(*d->q));
@@ -713,6 +758,38 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		d->max_seen = p.t;
 	drain(r, d, d->max_seen - c->reorder);
 	return 0;
+}
+
+static int
+same_name(const struct cdev *d, const char *name, size_t n)
+{
+	return d->e.namelen == n && memcmp(d->e.name, name, n) == 0;
+}
+
+/*
+ * Logs of many devices merged by time repeat the devices in much the same
+ * order, and each row's state is a cache miss at thousands of devices.
+ * The device that followed D last time is likely to come next: its name
+ * is tried before the table (on_row), and the memory the next two rows
+ * are likely to touch is fetched now, while this row is worked on: the
+ * state of the one after next (its entry, name included) and the reorder
+ * window ends of the next, whose state a previous row fetched.  A wrong
+ * guess costs a few loads, never a wrong answer.
+ */
+static void
+guess_next(const struct cdev *d)
+{
+	const struct cdev *n = d->next;
+
+	if (n == NULL)
+		return;
+	if (n->q != n->qin && n->qn > n->qh) {
+		DEVTAB_PREFETCH(n->q + n->qh);
+		DEVTAB_PREFETCH(n->q + n->qn - 1);
+	}
+	if (n->next != NULL)
+		devtab_prefetch(n->next, (int)((DEVTAB_INLINE +
+		    sizeof(struct cdev) + DEVTAB_LINE - 1) / DEVTAB_LINE));
 }
 
 /* Release pending rows of D up to time UPTO. */
@@ -1022,7 +1099,8 @@ clean_run(const struct clean_conf *c, char **files, int n,
 			r.cur = d;
 			rs_flush(&d->rs, c->step, emit, &r);
 		}
-		free(d->q);
+		if (d->q != d->qin)
+			free(d->q);
 		free(d->qk);
 		free(d->kv);
 	}

@@ -379,7 +379,7 @@ csvin_mem(struct csvin *r, const char *name, const void *buf, size_t n)
 static int
 read_src(struct csvin *r, struct gzsrc *src)
 {
-	size_t chunk = src->mem != NULL ? CSVIN_MEMCHUNK : GZSRC_BUFSZ;
+	size_t chunk = src->is_mem ? CSVIN_MEMCHUNK : GZSRC_BUFSZ;
 	int rc = 0, eof = 0, skipping = 0;
 
 	r->src = src->name;

@@ -2,6 +2,13 @@
  * devtab.c: device name -> state, open addressing with linear probing and
  * FNV-1a hashes, kept at most half full.  States live in blocks that never
  * move; names live in an arena of blocks.
+ *
+ * Laid out for a row stream that cycles through thousands of devices,
+ * where every lookup misses the cache: a slot holds the hash and the
+ * state number side by side (one line per probe), and each entry is
+ * aligned to a cache line with a name of up to DEVTAB_INLINE - 1 bytes
+ * stored in front of its state, so that the name compared and the
+ * state's first fields share one line.
  */
 #include <stdint.h>
 #include <stdlib.h>
@@ -12,12 +19,17 @@
 #define DEVTAB_BLOCK 256	/* states per block */
 #define DEVTAB_NAMEBLK 65536	/* bytes per name block */
 
+/* A hash slot: state number + 1 (0 is empty) and the name's hash. */
+struct dslot {
+	uint32_t idx;
+	uint32_t hash;
+};
+
 struct devtab {
-	size_t statesz;
+	size_t statesz;		/* the tool's state, rounded up */
+	size_t stride;		/* an entry: inline name, then the state */
 	size_t count;
-	/* Hash slots hold index + 1, 0 is empty. */
-	size_t *slot;
-	uint32_t *hash;
+	struct dslot *slot;
 	size_t nslot;
 	/* States: blocks of DEVTAB_BLOCK. */
 	char **blocks;
@@ -30,6 +42,18 @@ struct devtab {
 static uint32_t fnv1a(const char *, size_t);
 static void grow(struct devtab *);
 static const char *keep_name(struct devtab *, const char *, size_t);
+static char *block_new(const struct devtab *);
+
+/* A block of DEVTAB_BLOCK entries, aligned to a cache line. */
+static char *
+block_new(const struct devtab *t)
+{
+	void *p;
+
+	if (posix_memalign(&p, DEVTAB_LINE, DEVTAB_BLOCK * t->stride) != 0)
+		cw_die(CW_EXIT_DATA, "out of memory");
+	return p;
+}
 
 static uint32_t
 fnv1a(const char *s, size_t n)
@@ -53,16 +77,18 @@ devtab_new(size_t statesz)
 		statesz = sizeof(struct devent);
 	/* Keep every state aligned for any member type. */
 	t->statesz = (statesz + 15) & ~(size_t)15;
+	t->stride = (DEVTAB_INLINE + t->statesz + DEVTAB_LINE - 1) &
+	    ~(size_t)(DEVTAB_LINE - 1);
 	t->nslot = 64;
 	t->slot = cw_calloc(t->nslot, sizeof(*t->slot));
-	t->hash = cw_calloc(t->nslot, sizeof(*t->hash));
 	return t;
 }
 
 void *
 devtab_at(const struct devtab *t, size_t i)
 {
-	return t->blocks[i / DEVTAB_BLOCK] + (i % DEVTAB_BLOCK) * t->statesz;
+	return t->blocks[i / DEVTAB_BLOCK] + (i % DEVTAB_BLOCK) * t->stride +
+	    DEVTAB_INLINE;
 }
 
 size_t
@@ -75,22 +101,18 @@ static void
 grow(struct devtab *t)
 {
 	size_t n = t->nslot * 2, i, j;
-	size_t *slot = cw_calloc(n, sizeof(*slot));
-	uint32_t *hash = cw_calloc(n, sizeof(*hash));
+	struct dslot *slot = cw_calloc(n, sizeof(*slot));
 
 	for (i = 0; i < t->nslot; i++) {
-		if (t->slot[i] == 0)
+		if (t->slot[i].idx == 0)
 			continue;
-		for (j = t->hash[i] & (n - 1); slot[j] != 0; j = (j + 1) &
-		    (n - 1))
+		for (j = t->slot[i].hash & (n - 1); slot[j].idx != 0;
+		    j = (j + 1) & (n - 1))
 			;
 		slot[j] = t->slot[i];
-		hash[j] = t->hash[i];
 	}
 	free(t->slot);
-	free(t->hash);
 	t->slot = slot;
-	t->hash = hash;
 	t->nslot = n;
 }
 
@@ -134,13 +156,13 @@ devtab_find(struct devtab *t, const char *name, size_t len)
 	uint32_t h = fnv1a(name, len);
 	size_t j;
 
-	for (j = h & (t->nslot - 1); t->slot[j] != 0; j = (j + 1) &
+	for (j = h & (t->nslot - 1); t->slot[j].idx != 0; j = (j + 1) &
 	    (t->nslot - 1)) {
 		struct devent *d;
 
-		if (t->hash[j] != h)
+		if (t->slot[j].hash != h)
 			continue;
-		d = devtab_at(t, t->slot[j] - 1);
+		d = devtab_at(t, t->slot[j].idx - 1);
 		if (d->namelen == len && memcmp(d->name, name, len) == 0)
 			return d;
 	}
@@ -154,30 +176,39 @@ devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
 	struct devent *d;
 	size_t j;
 
-	for (j = h & (t->nslot - 1); t->slot[j] != 0; j = (j + 1) &
+	for (j = h & (t->nslot - 1); t->slot[j].idx != 0; j = (j + 1) &
 	    (t->nslot - 1)) {
-		if (t->hash[j] != h)
+		if (t->slot[j].hash != h)
 			continue;
-		d = devtab_at(t, t->slot[j] - 1);
+		d = devtab_at(t, t->slot[j].idx - 1);
 		if (d->namelen == len && memcmp(d->name, name, len) == 0) {
 			if (isnew != NULL)
 				*isnew = 0;
 			return d;
 		}
 	}
+	if (t->count >= UINT32_MAX - 1)
+		cw_die(CW_EXIT_DATA, "more than %lu devices",
+		    (unsigned long)UINT32_MAX - 2);
 	if (t->count % DEVTAB_BLOCK == 0) {
 		t->blocks = cw_realloc(t->blocks, (t->nblocks + 1) *
 		    sizeof(*t->blocks));
-		t->blocks[t->nblocks++] = cw_calloc(DEVTAB_BLOCK, t->statesz);
+		t->blocks[t->nblocks++] = block_new(t);
 	}
 	d = devtab_at(t, t->count);
-	memset(d, 0, t->statesz);
-	d->name = keep_name(t, name, len);
+	memset((char *)d - DEVTAB_INLINE, 0, t->stride);
+	if (len < DEVTAB_INLINE) {
+		char *p = (char *)d - DEVTAB_INLINE;
+
+		memcpy(p, name, len);
+		d->name = p;
+	} else
+		d->name = keep_name(t, name, len);
 	d->namelen = len;
 	d->index = t->count;
 	d->last_t = INT64_MIN;
-	t->slot[j] = ++t->count;
-	t->hash[j] = h;
+	t->slot[j].idx = (uint32_t)++t->count;
+	t->slot[j].hash = h;
 	if (2 * t->count > t->nslot)
 		grow(t);
 	if (isnew != NULL)
@@ -223,6 +254,5 @@ devtab_free(struct devtab *t)
 	free(t->blocks);
 	free(t->nameblk);
 	free(t->slot);
-	free(t->hash);
 	free(t);
 }

@@ -20,6 +20,35 @@ struct devent {
 
 struct devtab;
 
+/*
+ * Each state is aligned to a cache line less DEVTAB_INLINE bytes, which
+ * hold its name when shorter than that (the name and the state's first
+ * fields share a line).
+ */
+#define DEVTAB_INLINE	32
+#define DEVTAB_LINE	64
+
+#if defined(__GNUC__) || defined(__clang__)
+#define DEVTAB_PREFETCH(p)	__builtin_prefetch(p)
+#else
+#define DEVTAB_PREFETCH(p)	((void)(p))
+#endif
+
+/*
+ * Ask for the first LINES cache lines of the entry of STATE (its inline
+ * name included) without waiting for them: a hint, no load.
+ */
+static inline void
+devtab_prefetch(const void *state, int lines)
+{
+	const char *e = (const char *)state - DEVTAB_INLINE;
+
+	while (lines-- > 0) {
+		DEVTAB_PREFETCH(e);
+		e += DEVTAB_LINE;
+	}
+}
+
 /* STATESZ: size of the tool's state struct, which starts with a devent. */
 struct devtab *devtab_new(size_t statesz);
 /* The state of NAME[0..LEN), created zeroed (but for its devent) if new;

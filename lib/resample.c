@@ -30,7 +30,7 @@ restart(struct rs_state *s, const struct rs_point *p, cw_time step,
 	s->have = 1;
 	s->prev = *p;
 	s->g_next = q + step;
-	s->acc_start = s->acc_pos = p->t;
+	s->acc_pos = p->t;
 	s->acc = 0;
 	g.t = q;
 	emit(ctx, &g);
@@ -64,7 +64,6 @@ rs_push(struct rs_state *s, const struct rs_point *p, cw_time step,
 		g.key = g.t == p->t ? p->key : a->key;
 		emit(ctx, &g);
 		s->acc = 0;
-		s->acc_start = s->g_next;
 		s->g_next += step;
 	}
 	if (cw_isnum(p->i))

@@ -30,13 +30,14 @@ struct rs_point {
 	unsigned long key;
 };
 
+/* What a row reads first comes first: the prev sample, read whole, last. */
 struct rs_state {
 	int have;		/* prev holds a sample */
-	struct rs_point prev;
 	cw_time g_next;		/* next grid point to emit */
-	cw_time acc_start;	/* start of the current grid interval */
 	cw_time acc_pos;	/* charge accumulated up to here */
-	double acc;		/* integral of current, A*us, since acc_start */
+	double acc;		/* integral of current, A*us, since the
+				 * current grid interval began */
+	struct rs_point prev;
 };
 
 typedef void (*rs_emit_fn)(void *ctx, const struct rs_point *p);

@@ -22,6 +22,11 @@ mk() {
 	cp "$top/tests/run" "$t/tests/run"
 	printf '#!/bin/sh\necho "cli: 5 passed, 0 failed"\n' >"$t/tests/cli/run"
 	chmod +x "$t/tests/cli/run"
+	# The ThreadSanitizer stage, present and counting nothing.
+	mkdir -p "$t/tests/tsan"
+	printf '#!/bin/sh\necho "tsan: 0 passed, 0 failed"\n' \
+	    >"$t/tests/tsan/run"
+	chmod +x "$t/tests/tsan/run"
 }
 
 # expect NAME RC LAST [ENV...]: run the tree's tests/run; its exit status

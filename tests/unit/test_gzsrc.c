@@ -364,6 +364,72 @@ test_corrupt(void **st)
 	free(buf);
 }
 
+/*
+ * RFC 1952 2.2 knows only members: bytes after one that start no other
+ * (zeros, then a member; text to the end) are an error after every byte
+ * of the member before them, naming their offset (the member's size) and
+ * length; with gzsrc_skip_junk, skipped to the next member and counted.
+ * On the reader thread and, with CW_THREADS=0, without it: the same.
+ */
+static void
+test_junk(void **st)
+{
+	size_t n1 = 500000, n2 = 300000, z1, z2, zn, k;
+	char *t = text(n1 + n2), *buf = malloc(n1 + n2 + 16), *msg, want[64];
+	unsigned char *a = gz(t, n1, &z1), *b = gz(t + n1, n2, &z2), *f;
+	int last, threads, skip;
+
+	(void)st;
+	f = calloc(z1 + 5000 + z2, 1);
+	assert_non_null(f);
+	memcpy(f, a, z1);
+	memcpy(f + z1 + 5000, b, z2);	/* 5000 zeros between */
+	zn = z1 + 5000 + z2;
+	put("junk.gz", f, zn);
+	put("text.gz", a, z1);
+	for (k = 0; k < 2; k++) {
+		threads = k == 0;
+		setenv("CW_THREADS", threads ? "1" : "0", 1);
+		for (skip = 0; skip < 2; skip++) {
+			gzsrc_skip_junk = skip;
+			err_begin();
+			assert_int_equal(slurp(path_of("junk.gz"), buf, n1 + n2 +
+			    16, 65536, &last), (ssize_t)(skip ? n1 + n2 : n1));
+			msg = err_end();
+			assert_int_equal(last, skip ? 0 : -1);
+			assert_memory_equal(buf, t, skip ? n1 + n2 : n1);
+			snprintf(want, sizeof(want), skip ? "5000 bytes after "
+			    "gzip members skipped" : "5000 bytes at offset %zu ",
+			    z1);
+			assert_non_null(strstr(msg, want));
+			snprintf(want, sizeof(want), "offset %zu", z1);
+			assert_non_null(strstr(msg, want));
+		}
+	}
+	/* Text after the last member: to the end. */
+	gzsrc_skip_junk = 0;
+	{
+		FILE *fp = fopen(path_of("text.gz"), "ab");
+
+		assert_non_null(fp);
+		fputs("garbage\n", fp);
+		fclose(fp);
+	}
+	err_begin();
+	assert_int_equal(slurp(path_of("text.gz"), buf, n1 + 16, 4096, &last),
+	    (ssize_t)n1);
+	msg = err_end();
+	assert_int_equal(last, -1);
+	assert_non_null(strstr(msg, "8 bytes at offset"));
+	assert_non_null(strstr(msg, "up to the end"));
+	unsetenv("CW_THREADS");
+	free(f);
+	free(a);
+	free(b);
+	free(t);
+	free(buf);
+}
+
 /* Standard input for NULL and "-", shown as "stdin"; gzip there too. */
 static void
 test_stdin(void **st)
@@ -549,6 +615,7 @@ main(void)
 		cmocka_unit_test(test_members),
 		cmocka_unit_test(test_truncated),
 		cmocka_unit_test(test_corrupt),
+		cmocka_unit_test(test_junk),
 		cmocka_unit_test(test_stdin),
 		cmocka_unit_test(test_unreadable),
 		cmocka_unit_test(test_mem),
