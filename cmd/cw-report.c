@@ -5,6 +5,7 @@
  * any.  The engine is lib/report.c; this file holds the options.
  */
 #include <errno.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -23,7 +24,7 @@
 
 enum {
 	OPT_BY = OPTAB_LONG, OPT_CSV, OPT_FLEET, OPT_GROWTH, OPT_HORIZON,
-	OPT_LIFE, OPT_LIMITS, OPT_SINCE, OPT_SOH, OPT_TOPOFF, OPT_TZ
+	OPT_LIFE, OPT_LIMITS, OPT_MIN_DAYS, OPT_SINCE, OPT_SOH, OPT_TOPOFF, OPT_TZ
 };
 
 static const struct optab opts[] = {
@@ -39,6 +40,9 @@ static const struct optab opts[] = {
 	    "within DAYS needs attention", "90", OPT_HORIZON },
 	{ "life", 0, "DAYS", "modelled days to end of life below DAYS need "
 	    "attention", "365", OPT_LIFE },
+	{ "min-days", 0, "DAYS", "a modelled life from fewer DAYS of log is "
+	    "not a reason", "7", OPT_MIN_DAYS, OPTAB_NUM,
+	    offsetof(struct report_conf, min_days), 0, 36500 },
 	{ "limits", 0, "T1,T2,T3,T4", "the zones cw-thermal was run with, for "
 	    "the text", "0,10,45,60 C", OPT_LIMITS },
 	{ "top", 'n', "N", "list the N most urgent packs (or groups) only",
@@ -86,7 +90,7 @@ main(int argc, char *argv[])
 
 	cw_setprog("cw-report");
 	report_conf_default(&conf);
-	optab_init(&op, &tool, NULL);
+	optab_init(&op, &tool, &conf);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'n':

@@ -210,6 +210,7 @@ report_conf_default(struct report_conf *c)
 	c->growth_max = 100;
 	c->horizon_d = 90;
 	c->life_d = 365;
+	c->min_days = 7;
 	c->topoff_day = 10;
 }
 
@@ -646,9 +647,13 @@ find_pack(struct report *r, const struct rdev *d)
 				    lim[th[k].lo], lim[th[k].hi]);
 			/* No charging allowed: by Ah; the protocol: by events. */
 			f = add(r, d, th[k].reason, k < 2 ? ah : n);
+			/* The summary holds the zone's Ah, not the events':
+			 * say so where some events may be within. */
 			snprintf(f->detail, sizeof(f->detail), "%.0f charge "
 			    "event%s %s (%s); %.3g Ah charged in the zone in "
-			    "all, %s to %s", n, plural(n), zone, th[k].what, ah, a, b);
+			    "all%s, %s to %s", n, plural(n), zone, th[k].what,
+			    ah, k < 2 ? "" : " (events within the protocol "
+			    "included)", a, b);
 		}
 	} else if ((d->have & (1u << K_WEAR)) && d->cold_dominant) {
 		/* No cw-thermal summary: cw-wear's count of cold charge. */
@@ -680,8 +685,9 @@ find_pack(struct report *r, const struct rdev *d)
 			    count_of(x[V_H_UNDER]));
 		}
 	}
+	/* A pace taken from less than --min-days of log is not a life. */
 	if ((d->have & (1u << K_WEAR)) && cw_isnum(x[W_EOL]) &&
-	    x[W_EOL] < r->c.life_d) {
+	    x[W_EOL] < r->c.life_d && x[W_DAYS] >= r->c.min_days) {
 		field_date(r, d, W_LAST, x[W_EOL], a);
 		f = add(r, d, REPORT_SHORT_LIFE, -x[W_EOL]);
 		snprintf(f->detail, sizeof(f->detail), "modelled end of life "

@@ -48,6 +48,7 @@ struct report_conf {
 	double growth_max;	/* --growth: resistance growth, percent */
 	double horizon_d;	/* --horizon: days ahead for a projection */
 	double life_d;		/* --life: modelled days to end of life */
+	double min_days;	/* --min-days: log span a life needs */
 	double topoff_day;	/* --topoff: micro-cycles a day shown */
 	long tz_s;		/* --tz: offset of the dates, seconds east */
 	int by;			/* REPORT_BY_ */
