@@ -33,7 +33,11 @@ struct dev {
 	struct devent e;
 	int started;
 	int loaded;		/* from a --state file, up to UPTO */
+	int past;		/* a row after UPTO came */
+	int seen_end;		/* a row at UPTO came: the state's last */
 	cw_time upto;
+	cw_time stale_first, stale_last;	/* rows up to UPTO */
+	unsigned long nstale;
 	struct wear_dev w;
 };
 
@@ -97,6 +101,7 @@ static void straddle(struct run *, const struct piece *,
     const struct dev *, const char *);
 static int flush(struct run *);
 static int exists(const char *);
+static void stale_check(struct run *, const char *);
 static void write_row(struct csvout *, const struct run *,
     const struct dev *, const struct wear_result *);
 static void write_states(struct outf *, const char *, struct run *,
@@ -131,16 +136,20 @@ on_row(void *ctx, void *state, const struct cw_sample *s)
 		d->started = 1;
 	}
 	if (d->loaded) {
-		/* Rows up to the end of the state are in it already. */
+		/*
+		 * Rows up to the end of the state are in it already when
+		 * they come with its last row (the same day again); see
+		 * stale_check() for the others.
+		 */
 		if (s->t <= d->upto) {
-			r->stale++;
-			if (d->loaded == 1) {
-				r->stale_devs++;
-				d->loaded = 2;
-			}
+			if (d->nstale++ == 0)
+				d->stale_first = s->t;
+			d->stale_last = s->t;
+			d->seen_end |= s->t == d->upto;
 			return 0;
 		}
 		d->loaded = 0;
+		d->past = 1;
 	}
 	wear_push(&d->w, &r->conf, s->t, s->v, s->i, s->temp, s->soc);
 	return 0;
@@ -365,6 +374,65 @@ report(const struct run *r, struct dev **devs, size_t n)
 		    t.topoff_cut, WEAR_PRE_MAX);
 }
 
+/*
+ * Rows of a device at or before the end of its state STATE: the same rows
+ * again when its last row is among them (skipped, counted); a clock gone
+ * back across the boundary when they are within --max-gap of the end and
+ * newer rows follow (skipped, counted apart); otherwise rows the state does
+ * not hold (a day that came late): an error, nothing written.
+ */
+static void
+stale_check(struct run *r, const char *state)
+{
+	char t[3][TS_FMTMAX];
+	unsigned long late = 0, late_devs = 0, back = 0, back_devs = 0;
+	size_t k;
+
+	for (k = 0; k < devtab_count(r->devs); k++) {
+		struct dev *d = devtab_at(r->devs, k);
+
+		if (d->nstale == 0)
+			continue;
+		if (d->seen_end) {
+			r->stale += d->nstale;
+			r->stale_devs++;
+			continue;
+		}
+		if (d->past && d->stale_first >= d->upto - r->conf.max_gap) {
+			back += d->nstale;
+			back_devs++;
+			continue;
+		}
+		late += d->nstale;
+		if (late_devs++ >= MAXWARN)
+			continue;
+		ts_format(d->stale_first, t[0]);
+		ts_format(d->stale_last, t[1]);
+		ts_format(d->upto, t[2]);
+		cw_warn("%s: %.*s: %lu rows from %s to %s come before the end "
+		    "of its state (%s) but not with its last row: not in the "
+		    "state", state, (int)d->e.namelen, d->e.name, d->nstale,
+		    t[0], t[1], t[2]);
+	}
+	if (late > 0)
+		cw_die(CW_EXIT_DATA, "%s: %lu rows of %lu devices are older "
+		    "than the state and not in it (a day that came late?); "
+		    "nothing written, the state is as it was.  To fold them "
+		    "in, rebuild the state from every day in time order, with "
+		    "each day's cw-wear --state-out and one cw-wear --merge "
+		    "(README, \"A day that comes late\")", state, late,
+		    late_devs);
+	if (back > 0)
+		cw_warn("%s: %lu rows of %lu devices within --max-gap before "
+		    "the end of their state, followed by newer rows (a clock "
+		    "gone back across the boundary?): not in the state, "
+		    "skipped", state, back, back_devs);
+	if (r->stale > 0)
+		cw_warn("%s: %lu rows of %lu devices up to the end of their "
+		    "state came again, its last row among them: already in "
+		    "it, skipped", state, r->stale, r->stale_devs);
+}
+
 /* Whether PATH names something that exists (a state to load). */
 static int
 exists(const char *path)
@@ -487,7 +555,8 @@ main(int argc, char *argv[])
 	}
 	argc -= optind;
 	argv += optind;
-	if (state != NULL && out != NULL && strcmp(state, out) == 0)
+	if (state != NULL && out != NULL && strcmp(out, "-") != 0 &&
+	    outf_same(state, out))
 		cw_usage_error("--state and -o name the same file");
 
 	/*
@@ -501,7 +570,12 @@ main(int argc, char *argv[])
 	rd.fixed = fixed;
 	rd.dev = on_state;
 	rd.ctx = &r;
-	if (state != NULL && exists(state)) {
+	if (state != NULL)
+		outf_check_state(state);
+	if (state != NULL && !exists(state))
+		cw_warn("%s: no such state: a new history starts (as on the "
+		    "first night)", state);
+	else if (state != NULL) {
 		if ((rc = wstate_read(&rd, state, 1)) != 0 ||
 		    (rc = flush(&r)) != 0)
 			exit(rc);
@@ -515,8 +589,8 @@ main(int argc, char *argv[])
 		}
 	}
 	if (state != NULL)
-		sf = outf_open(state);
-	of = outf_open(out);
+		sf = outf_open_state(state);
+	of = state_out ? outf_open_state(out) : outf_open(out);
 	if (merge) {
 		/* File operands are whole states; a stream may be sorted. */
 		for (k = 0; k < (size_t)argc; k++) {
@@ -549,10 +623,8 @@ main(int argc, char *argv[])
 			sampin_report(&st, NULL);
 		if (rc != 0)
 			exit(rc);
-		if (r.stale > 0)
-			cw_warn("%lu rows of %lu devices not after the end of "
-			    "their state in %s skipped (already in it)",
-			    r.stale, r.stale_devs, state);
+		if (state != NULL)
+			stale_check(&r, state);
 	}
 	/* The scales depend on the model, which a state may have set. */
 	if (cycle_life > 0)
