@@ -19,6 +19,9 @@ UNITSRC = $(wildcard tests/unit/test_*.c)
 UNIT    = $(patsubst tests/unit/%.c,build/tests/%,$(UNITSRC))
 TOOLSRC = $(wildcard tests/tools/*.c)
 TOOLS   = $(patsubst tests/tools/%.c,build/tests/%,$(TOOLSRC))
+# Every harness also as a plain program that replays saved inputs (make
+# check runs tests/fuzz/regress/ through them).
+REPLAY  = $(patsubst tests/fuzz/fuzz_%.c,build/tests/replay_%,$(wildcard tests/fuzz/fuzz_*.c))
 
 all: $(BIN)
 
@@ -49,6 +52,13 @@ build/tests/%: tests/tools/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
 	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
 
+build/tests/replay_%: tests/fuzz/fuzz_%.c tests/fuzz/replay.c \
+	    tests/fuzz/fuzz.h tests/fuzz/fuzz_engine.h build/libcw.a \
+	    $(LIBHDR) $(FLAGSTAMP)
+	@mkdir -p build/tests
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< tests/fuzz/replay.c \
+	    build/libcw.a $(LDLIBS)
+
 # make fuzz: the libFuzzer harnesses of tests/fuzz/, FUZZ_SECONDS each.
 # Built apart in build/fuzz/, so the flags of the other targets do not
 # matter here.
@@ -75,11 +85,16 @@ fuzz: deps $(FUZZBIN)
 deps:
 	@scripts/deps
 
-tests: $(BIN) $(UNIT) $(TOOLS)
+tests: $(BIN) $(UNIT) $(TOOLS) $(REPLAY)
 
 check: deps
 	@$(MAKE) -s tests
 	@tests/run
+
+# make mutate: the mutations of tests/mutate/list, each alone against
+# the fast part of make check (scripts/mutate.sh); fails when one survives.
+mutate: deps
+	@scripts/mutate.sh
 
 bench: all
 	scripts/bench.sh
@@ -95,6 +110,8 @@ install: $(BIN)
 	mkdir -p $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(MANPREFIX)/man1
 	cp -f $(BIN) $(DESTDIR)$(PREFIX)/bin/
 	cp -f $(MAN) $(DESTDIR)$(MANPREFIX)/man1/
+	mkdir -p $(DESTDIR)$(PREFIX)/share/cellwear
+	cp -f scripts/slurm-day.sh scripts/slurm-merge.sh $(DESTDIR)$(PREFIX)/share/cellwear/
 
 uninstall:
 	for f in $(BIN); do rm -f $(DESTDIR)$(PREFIX)/$$f; done
@@ -105,5 +122,5 @@ clean:
 
 FORCE:
 
-.PHONY: all bench demo deps tests check fuzz lint install uninstall clean FORCE
+.PHONY: all bench demo deps mutate tests check fuzz lint install uninstall clean FORCE
 .SECONDARY: $(LIBOBJ) $(FUZZOBJ)

@@ -14,16 +14,19 @@
 #include "csvout.h"
 #include "cw.h"
 #include "dcir.h"
+#include "dcirstate.h"
 #include "devtab.h"
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
+#include "ts.h"
 
 #define STEP_HEADER "device,time,soc_pct,temp_c,delta_i_a,delta_v_v," \
 	"r_ohm,r_ref_ohm,dt_s,i_pre_a"
 #define TREND_HEADER "device,steps,first,last,r_start_ohm,r_end_ohm," \
 	"growth_pct,growth_pct_per_30d,eol_date,fit_steps," \
-	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day"
+	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day," \
+	"soc_gate,growth_lo_pct_per_30d,growth_hi_pct_per_30d"
 
 /* Points kept per device for the trend before thinning sets in. */
 #define MAX_POINTS_DEFAULT 2048
@@ -31,8 +34,17 @@
 /* The per-device state: the devent first, as devtab wants. */
 struct dev {
 	struct devent e;
-	struct dcir_dev det;
-	struct dcir_series ser;
+	struct dstate_dev ds;	/* detector, steps, first rows */
+	int loaded;		/* from --state, up to UPTO */
+	cw_time upto;
+};
+
+/* A state read back, with where it came from. */
+struct piece {
+	struct dev *dev;
+	struct dstate_dev w;
+	char src[256];
+	unsigned long line;
 };
 
 struct tool {
@@ -42,13 +54,20 @@ struct tool {
 	struct csvout out;
 	size_t max_points;
 	int trend;
+	int keep;		/* steps go to the series */
+	int state_out;		/* the output is the state */
+	struct dstate_conf sconf;
+	struct devtab *devs;
+	struct piece *piece;
+	size_t npiece, piececap;
+	unsigned long stale, joined;	/* rows skipped, steps across joins */
 };
 
 enum {
 	OPT_ALLOW_NO_SOC = 256, OPT_CONFIDENCE, OPT_EA, OPT_EOL, OPT_MAX_DT,
-	OPT_MAX_POINTS, OPT_MIN_SPAN, OPT_MIN_STEP, OPT_MIN_STEPS,
-	OPT_REF_TEMP, OPT_SOC, OPT_STEADY, OPT_STEADY_TOL, OPT_TEMP,
-	OPT_VERSION
+	OPT_MAX_POINTS, OPT_MERGE, OPT_MIN_SPAN, OPT_MIN_STEP, OPT_MIN_STEPS,
+	OPT_REF_TEMP, OPT_SOC, OPT_STATE, OPT_STATE_OUT, OPT_STEADY,
+	OPT_STEADY_TOL, OPT_TEMP, OPT_VERSION
 };
 
 static void	usage(FILE *fp);
@@ -56,6 +75,11 @@ static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	write_step(struct tool *t, const struct dev *d,
 		    const struct dcir_step *st);
 static void	write_trend(struct tool *t, struct dev *d);
+static int	on_state(void *ctx, const char *src, unsigned long line,
+		    const char *name, size_t len, struct dstate_dev *w);
+static int	flush(struct tool *t);
+static void	write_states(struct outf *o, const char *path, struct tool *t,
+		    void **devs, size_t n);
 static void	report(const struct tool *t, const struct devtab *devs,
 		    const struct sampin_stats *st);
 
@@ -65,13 +89,14 @@ usage(FILE *fp)
 	fprintf(fp,
 	    "usage: cw-dcir [-htv] [--allow-no-soc] [--confidence P] "
 	    "[--ea KJ] [--eol PCT]\n"
-	    "               [--max-dt DUR] [--max-points N] "
-	    "[--min-span DUR] [--min-step A]\n"
-	    "               [--min-steps N] [-o FILE] [--ref-temp T] "
-	    "[--soc LO,HI]\n"
-	    "               [--steady N] [--steady-tol FRAC] "
-	    "[--temp LO,HI] [--version]\n"
-	    "               [FILE ...]\n");
+	    "               [--max-dt DUR] [--max-points N] [--merge] "
+	    "[--min-span DUR]\n"
+	    "               [--min-step A] [--min-steps N] [-o FILE] "
+	    "[--ref-temp T]\n"
+	    "               [--soc LO,HI|auto] [--state FILE] [--state-out] "
+	    "[--steady N]\n"
+	    "               [--steady-tol FRAC] [--temp LO,HI] [--version] "
+	    "[FILE ...]\n");
 	fputs(
 "\n"
 "DC internal resistance from current steps, and its growth per device.\n"
@@ -87,13 +112,18 @@ usage(FILE *fp)
 "                          (default 15s)\n"
 "      --max-points N      points kept per device for the trend\n"
 "                          (default 2048)\n"
+"      --merge             the files are states (--state-out): join them\n"
 "      --min-span DUR      shortest first-to-last span for a trend\n"
 "                          (default 7d)\n"
 "      --min-step A        smallest current step in amperes (default 0.5)\n"
 "      --min-steps N       fewest steps for a trend (default 10)\n"
 "  -o, --output FILE       write to FILE atomically, not standard output\n"
 "      --ref-temp T        reference temperature (default 25C)\n"
-"      --soc LO,HI         SoC window in percent (default 20,80)\n"
+"      --soc LO,HI|auto    SoC window in percent (default 20,80); auto: per\n"
+"                          device, the 30-point window with most steps\n"
+"      --state FILE        go on from the state in FILE (if it exists) and\n"
+"                          save it back there\n"
+"      --state-out         write the state instead of steps or trend\n"
 "      --steady N          steady samples before a step (default 3)\n"
 "      --steady-tol FRAC   largest spread of those currents, as a fraction\n"
 "                          of the step (default 0.1)\n"
@@ -114,16 +144,25 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 	struct dcir_step st;
 	struct dcir_pt p;
 
+	if (d->loaded) {
+		/* Rows up to the end of the state are in it already. */
+		if (s->t <= d->upto) {
+			t->stale++;
+			return 0;
+		}
+		d->loaded = 0;
+	}
 	p.t = s->t;
 	p.v = s->v;
 	p.i = s->i;
 	p.temp = s->temp;
 	p.soc = s->soc;
-	if (dcir_feed(&t->conf, &d->det, &p, &t->cnt, &st) != 1)
+	if (dstate_feed(&d->ds, &t->conf, &p, &t->cnt, &st) != 1)
 		return 0;
-	if (t->trend)
-		dcir_series_add(&d->ser, st.t, st.r_ref, t->max_points);
-	else
+	if (t->keep)
+		dcir_series_add(&d->ds.ser, st.t, st.r_ref, st.soc,
+		    t->max_points);
+	if (!t->trend && !t->state_out)
 		write_step(t, d, &st);
 	if (t->out.err) {
 		/* Say so here: sampin_run() only passes the exit code on. */
@@ -154,13 +193,20 @@ write_trend(struct tool *t, struct dev *d)
 {
 	struct dcir_trend tr;
 	struct csvout *w = &t->out;
+	char gate[64];
+	int lo = -1;
 
-	dcir_trend_fit(&d->ser, &t->tconf, &tr);
+	if (t->conf.soc_auto) {
+		lo = dcir_series_window(&d->ds.ser);
+		if (lo < 0 && d->ds.ser.steps > 0)
+			lo = DCIR_NBIN;	/* unknown SoC only: no bin */
+	}
+	dcir_trend_fit_window(&d->ds.ser, &t->tconf, lo, &tr);
 	csvout_strn(w, d->e.name, d->e.namelen);
-	csvout_int(w, (long long)d->ser.steps);
-	if (d->ser.steps > 0) {
-		csvout_time(w, d->ser.first);
-		csvout_time(w, d->ser.last);
+	csvout_int(w, (long long)tr.steps);
+	if (tr.steps > 0) {
+		csvout_time(w, tr.first);
+		csvout_time(w, tr.last);
 	} else {
 		csvout_empty(w);
 		csvout_empty(w);
@@ -180,8 +226,152 @@ write_trend(struct tool *t, struct dev *d)
 	csvout_num(w, tr.slope);
 	csvout_num(w, tr.slope_lo);
 	csvout_num(w, tr.slope_hi);
+	if (!t->conf.soc_auto)
+		snprintf(gate, sizeof gate, "%g-%g", t->conf.soc_lo,
+		    t->conf.soc_hi);
+	else if (lo >= 0 && lo < DCIR_NBIN)
+		snprintf(gate, sizeof gate, "%d-%d", lo, lo + DCIR_WINDOW);
+	else
+		gate[0] = '\0';
+	csvout_str(w, gate);
+	csvout_num(w, tr.growth_lo_30d);
+	csvout_num(w, tr.growth_hi_30d);
 	csvout_endrow(w);
-	dcir_series_free(&d->ser);
+}
+
+/*
+ * A state read back.  Every state read is gathered, then those of each
+ * device joined in time order at the end (flush), so that files and
+ * streams may come in any order; the pieces of a device must not
+ * overlap in time.
+ */
+static int
+on_state(void *ctx, const char *src, unsigned long line, const char *name,
+    size_t len, struct dstate_dev *w)
+{
+	struct tool *t = ctx;
+	struct dev *d;
+	struct piece *p;
+	d = devtab_get(t->devs, name, len, NULL);
+	if (t->npiece == t->piececap) {
+		t->piececap = t->piececap ? 2 * t->piececap : 16;
+		t->piece = cw_realloc(t->piece, t->piececap *
+		    sizeof(*t->piece));
+	}
+	p = &t->piece[t->npiece++];
+	p->dev = d;
+	p->w = *w;
+	p->line = line;
+	snprintf(p->src, sizeof(p->src), "%s", src);
+	return 0;
+}
+
+static int
+piece_cmp(const void *pa, const void *pb)
+{
+	const struct piece *a = pa, *b = pb;
+	int c;
+
+	if (a->dev != b->dev) {
+		/* By name, as devtab_sorted(). */
+		c = memcmp(a->dev->e.name, b->dev->e.name,
+		    a->dev->e.namelen < b->dev->e.namelen ?
+		    a->dev->e.namelen : b->dev->e.namelen);
+		if (c == 0)
+			c = a->dev->e.namelen < b->dev->e.namelen ? -1 : 1;
+		return c;
+	}
+	if (a->w.first != b->w.first)
+		return a->w.first < b->w.first ? -1 : 1;
+	return a->line < b->line ? -1 : a->line > b->line;
+}
+
+/* Join the gathered states into their devices, in time order. */
+static int
+flush(struct tool *t)
+{
+	struct dev *d;
+	struct dstate_dev *w;
+	char a[4][TS_FMTMAX];
+	size_t k;
+
+	if (t->npiece == 0)
+		return 0;
+	qsort(t->piece, t->npiece, sizeof(*t->piece), piece_cmp);
+	for (k = 0; k < t->npiece; k++) {
+		w = &t->piece[k].w;
+		d = t->piece[k].dev;
+		if (d->ds.rows == 0) {
+			dstate_free(&d->ds);
+			d->ds = *w;
+		} else if (w->first > d->ds.last)
+			t->joined += dstate_join(&d->ds, w, &t->sconf);
+		else if (w->last < d->ds.first) {
+			t->joined += dstate_join(w, &d->ds, &t->sconf);
+			d->ds = *w;
+		} else {
+			ts_format(w->first, a[0]);
+			ts_format(w->last, a[1]);
+			ts_format(d->ds.first, a[2]);
+			ts_format(d->ds.last, a[3]);
+			cw_warn_at(t->piece[k].src, t->piece[k].line, "the "
+			    "state of %s from %s to %s overlaps the one joined "
+			    "so far, from %s to %s: the same rows twice, or a "
+			    "state that falls between two joined before it",
+			    d->e.name, a[0], a[1], a[2], a[3]);
+			for (; k < t->npiece; k++)
+				dstate_free(&t->piece[k].w);
+			t->npiece = 0;
+			return CW_EXIT_DATA;
+		}
+		d->e.last_t = d->ds.last;
+	}
+	t->npiece = 0;
+	return 0;
+}
+
+/*
+ * The states of N devices, sorted, with the header and end rows, to O;
+ * PATH names it in messages.  Exits 1 on a write error.
+ */
+static void
+write_states(struct outf *o, const char *path, struct tool *t, void **devs,
+    size_t n)
+{
+	FILE *fp = outf_fp(o);
+	size_t k;
+	int bad;
+
+	bad = dstate_write_header(fp, &t->sconf);
+	for (k = 0; k < n && !bad; k++) {
+		struct dev *d = devs[k];
+
+		if (d->ds.rows > 0)
+			bad = dstate_write_dev(fp, d->e.name, d->e.namelen,
+			    &d->ds, &t->sconf);
+	}
+	if (!bad) {
+		size_t m = 0;
+
+		for (k = 0; k < n; k++)
+			m += ((struct dev *)devs[k])->ds.rows > 0;
+		bad = dstate_write_end(fp, (unsigned long)m);
+	}
+	if (bad || fflush(fp) != 0)
+		cw_die(CW_EXIT_DATA, "%s: write error: %s", path != NULL ?
+		    path : "standard output", strerror(errno));
+}
+
+/* Whether PATH names something that exists (a state to load). */
+static int
+exists(const char *path)
+{
+	FILE *fp = fopen(path, "r");
+
+	if (fp == NULL)
+		return 0;
+	fclose(fp);
+	return 1;
 }
 
 static void
@@ -212,10 +402,10 @@ report(const struct tool *t, const struct devtab *devs,
 	for (i = 0; i < nd; i++) {
 		const struct dev *d = devtab_at(devs, i);
 
-		if (d->ser.stride > 1)
+		if (d->ds.ser.level > 0)
 			thinned++;
-		if (d->ser.steps < t->tconf.min_steps ||
-		    d->ser.last - d->ser.first < t->tconf.min_span)
+		if (d->ds.ser.steps < t->tconf.min_steps ||
+		    d->ds.ser.last - d->ds.ser.first < t->tconf.min_span)
 			few++;
 	}
 	cw_warn("trend: %lu device%s without an estimate (too few steps or "
@@ -234,12 +424,15 @@ main(int argc, char *argv[])
 		{ "help", no_argument, NULL, 'h' },
 		{ "max-dt", required_argument, NULL, OPT_MAX_DT },
 		{ "max-points", required_argument, NULL, OPT_MAX_POINTS },
+		{ "merge", no_argument, NULL, OPT_MERGE },
 		{ "min-span", required_argument, NULL, OPT_MIN_SPAN },
 		{ "min-step", required_argument, NULL, OPT_MIN_STEP },
 		{ "min-steps", required_argument, NULL, OPT_MIN_STEPS },
 		{ "output", required_argument, NULL, 'o' },
 		{ "ref-temp", required_argument, NULL, OPT_REF_TEMP },
 		{ "soc", required_argument, NULL, OPT_SOC },
+		{ "state", required_argument, NULL, OPT_STATE },
+		{ "state-out", no_argument, NULL, OPT_STATE_OUT },
 		{ "steady", required_argument, NULL, OPT_STEADY },
 		{ "steady-tol", required_argument, NULL, OPT_STEADY_TOL },
 		{ "temp", required_argument, NULL, OPT_TEMP },
@@ -252,8 +445,10 @@ main(int argc, char *argv[])
 	struct sampin_conf sc;
 	struct sampin_stats st;
 	struct devtab *devs;
-	struct outf *of;
-	const char *outpath = NULL;
+	struct outf *of, *sf = NULL;
+	struct dstate_read rd;
+	const char *outpath = NULL, *state = NULL;
+	int merge = 0, state_out = 0;
 	double w[2];
 	void **sorted;
 	size_t i, n;
@@ -307,6 +502,17 @@ main(int argc, char *argv[])
 			t.max_points = (size_t)opt_long_arg("--max-points",
 			    optarg, 16, 1L << 24);
 			break;
+		case OPT_MERGE:
+			merge = 1;
+			break;
+		case OPT_STATE:
+			if (optarg[0] == '\0')
+				cw_usage_error("--state needs a file name");
+			state = optarg;
+			break;
+		case OPT_STATE_OUT:
+			state_out = t.state_out = 1;
+			break;
 		case OPT_MIN_SPAN:
 			t.tconf.min_span = opt_dur_arg("--min-span", optarg,
 			    1);
@@ -329,6 +535,11 @@ main(int argc, char *argv[])
 				    "absolute zero", optarg);
 			break;
 		case OPT_SOC:
+			if (strcmp(optarg, "auto") == 0) {
+				t.conf.soc_auto = 1;
+				break;
+			}
+			t.conf.soc_auto = 0;
 			opt_list_arg("--soc", optarg, w, 2, 0, 1);
 			if (w[0] < 0 || w[1] > 100)
 				cw_usage_error("--soc: %s is not within "
@@ -361,10 +572,57 @@ main(int argc, char *argv[])
 	argc -= optind;
 	argv += optind;
 
+	if (state != NULL && outpath != NULL && strcmp(state, outpath) == 0)
+		cw_usage_error("--state and -o name the same file");
+	/* --merge has no steps to list: the trend, or the state. */
+	if (merge && !state_out)
+		t.trend = 1;
+	t.keep = t.trend || state != NULL || state_out;
+	t.sconf.c = &t.conf;
+	t.sconf.max_points = t.max_points;
+
 	devs = devtab_new(sizeof(struct dev));
+	t.devs = devs;
+	memset(&rd, 0, sizeof(rd));
+	rd.sc = &t.sconf;
+	rd.dev = on_state;
+	rd.ctx = &t;
+	if (state != NULL && exists(state)) {
+		if ((rc = dstate_read(&rd, state, 1)) != 0 ||
+		    (rc = flush(&t)) != 0)
+			exit(rc);
+		/* Rows go on from each state, in order from there. */
+		for (i = 0; !merge && i < devtab_count(devs); i++) {
+			struct dev *d = devtab_at(devs, i);
+
+			d->loaded = 1;
+			d->upto = d->ds.last;
+			d->e.last_t = INT64_MIN;
+		}
+	}
+	if (state != NULL)
+		sf = outf_open(state);
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, t.trend ? TREND_HEADER : STEP_HEADER);
+	if (!state_out)
+		csvout_header(&t.out, t.trend ? TREND_HEADER : STEP_HEADER);
+
+	if (merge) {
+		/* File operands are whole states; a stream may be sorted. */
+		for (i = 0; i < (size_t)argc; i++)
+			if ((rc = dstate_read(&rd, argv[i],
+			    strcmp(argv[i], "-") != 0)) != 0)
+				exit(rc);
+		if ((argc == 0 && (rc = dstate_read(&rd, "-", 0)) != 0) ||
+		    (rc = flush(&t)) != 0)
+			exit(rc);
+		if (cw_verbose)
+			cw_warn("%lu state rows read (%lu header, %lu end "
+			    "rows), %zu devices, %lu steps found across joins",
+			    rd.rows, rd.headers, rd.ends, devtab_count(devs),
+			    t.joined);
+		goto out;
+	}
 
 	memset(&sc, 0, sizeof(sc));
 	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
@@ -381,28 +639,38 @@ main(int argc, char *argv[])
 			report(&t, devs, &st);
 		n = devtab_count(devs);
 		for (i = 0; i < n; i++)
-			dcir_series_free(&((struct dev *)devtab_at(devs,
-			    i))->ser);
+			dstate_free(&((struct dev *)devtab_at(devs, i))->ds);
 		csvout_free(&t.out);
 		devtab_free(devs);
 		return rc;
 	}
 	if (cw_verbose)
 		report(&t, devs, &st);
+	if (t.stale > 0)
+		cw_warn("%lu rows not after the end of their device's state in "
+		    "%s skipped (already in it)", t.stale, state);
 
-	if (t.trend) {
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
+out:
+	sorted = devtab_sorted(devs);
+	n = devtab_count(devs);
+	if (t.trend && !state_out)
 		for (i = 0; i < n; i++)
 			write_trend(&t, sorted[i]);
-		free(sorted);
-	}
 	if (csvout_flush(&t.out) != 0) {
 		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
 		    "standard output", strerror(errno));
 		return CW_EXIT_DATA;
 	}
-	if (outf_commit(of) != 0)
+	if (state_out)
+		write_states(of, outpath, &t, sorted, n);
+	if (state != NULL)
+		write_states(sf, state, &t, sorted, n);
+	for (i = 0; i < n; i++)
+		dstate_free(&((struct dev *)sorted[i])->ds);
+	free(sorted);
+	free(t.piece);
+	/* The state moves on last, once the output is out. */
+	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
 		return CW_EXIT_DATA;
 	csvout_free(&t.out);
 	devtab_free(devs);

@@ -68,7 +68,7 @@ usage(FILE *fp, int status)
 "                      day), header (per file); 0 disables one\n"
 "      --mix w,w,w,w   weights of the profiles deep-depot, topup-dock,\n"
 "                      idle-dock, topup-nocutoff (default 3,3,3,1)\n"
-"      --aging x       multiply every resistance growth rate (default 1)\n"
+"      --aging x       multiply every growth and fade rate (default 1)\n"
 "  -o, --outdir dir    write the files there (default .; made if missing)\n"
 "  -z, --level n       gzip level 0..9 (default 1)\n"
 "  -v, --verbose       print what was written to stderr\n"
@@ -234,8 +234,8 @@ main(int argc, char *argv[])
 	if (optind < argc)
 		cw_usage_error("unexpected argument '%s'", argv[optind]);
 	outdir_prepare(c.outdir);
-	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 45)
-		cw_warn("late rows need a period of 45 s or less; none are "
+	if (cw_verbose && c.rate[SYNTH_F_LATE] > 0 && c.period_s > 60)
+		cw_warn("late rows need a period of 60 s or less; none are "
 		    "injected");
 	synth_write(&c, &st);
 	if (cw_verbose)

@@ -13,18 +13,21 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "fleet.h"
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
 #include "thermal.h"
 
 #define EVENT_HEADER "device,kind,zone,start,end,duration_s,temp_min_c," \
-	"temp_max_c,charge_ah,soc_start_pct,soc_end_pct"
+	"temp_max_c,charge_ah,soc_start_pct,soc_end_pct,i_max_a,v_cell_max," \
+	"protocol"
 #define SUMMARY_HEADER "device,first,last,charge_ah,ah_below_min,ah_cool," \
 	"ah_normal,ah_warm,ah_above_max,ah_no_temp,outside_pct," \
 	"charge_events,below_min_events,cool_events,warm_events," \
 	"above_max_events,use_events,use_cold_events,use_hot_events," \
-	"unjudged_rows"
+	"unjudged_rows,events_within,events_over_current," \
+	"events_over_voltage,events_no_charge_allowed,events_unknown_protocol"
 
 /* The per-device state: the devent first, as devtab wants. */
 struct dev {
@@ -35,12 +38,17 @@ struct dev {
 struct tool {
 	struct thermal_conf conf;
 	struct csvout out;
+	const struct fleet *fleet;
+	double cap_ah;		/* --capacity; NaN: unknown */
+	int cells;		/* --cells; 0: unknown */
 	int summary;
 };
 
 enum {
-	OPT_HYST = 256, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE, OPT_MIN_CURRENT,
-	OPT_MIN_DURATION, OPT_USE_LIMITS, OPT_VERSION
+	OPT_CAPACITY = 256, OPT_CELLS, OPT_COOL_MARGIN, OPT_COOL_RATE,
+	OPT_FLEET, OPT_HYST, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
+	OPT_MIN_CURRENT, OPT_MIN_DURATION, OPT_USE_LIMITS, OPT_VERSION,
+	OPT_WARM_MARGIN, OPT_WARM_VOLTAGE
 };
 
 static void	usage(FILE *fp);
@@ -55,17 +63,31 @@ static void
 usage(FILE *fp)
 {
 	fprintf(fp,
-	    "usage: cw-thermal [-hsv] [--hysteresis DT] "
-	    "[--limits T1,T2,T3,T4]\n"
-	    "                  [--max-gap DUR] [--merge DUR] "
-	    "[--min-current A]\n"
-	    "                  [--min-duration DUR] [-o FILE] "
-	    "[--use-limits LO,HI]\n"
-	    "                  [--version] [FILE ...]\n");
+	    "usage: cw-thermal [-hsv] [--capacity AH] [--cells N] "
+	    "[--cool-margin PCT]\n"
+	    "                  [--cool-rate C] [--fleet FILE] "
+	    "[--hysteresis DT]\n"
+	    "                  [--limits T1,T2,T3,T4] [--max-gap DUR] "
+	    "[--merge DUR]\n"
+	    "                  [--min-current A] [--min-duration DUR] "
+	    "[-o FILE]\n"
+	    "                  [--use-limits LO,HI] [--version] "
+	    "[--warm-margin V]\n"
+	    "                  [--warm-voltage V] [FILE ...]\n");
 	fputs(
 "\n"
-"Charging outside the safe temperature window, as events per device.\n"
+"Charging outside the safe temperature window, as events per device,\n"
+"judged by the charge protocol of the JEITA scheme.\n"
 "\n"
+"      --capacity AH         rated capacity, for the cool-zone current\n"
+"                            (unset: unknown)\n"
+"      --cells N             cells in series, for the warm-zone voltage\n"
+"                            (unset: unknown)\n"
+"      --cool-margin PCT     current allowed above the cool rate\n"
+"                            (default 5)\n"
+"      --cool-rate C         C-rate allowed in the cool zone (default 0.5)\n"
+"      --fleet FILE          the fleet file; its capacity_ah and cells\n"
+"                            override --capacity and --cells per pack\n"
 "  -h, --help                print this help and exit 0\n"
 "      --hysteresis DT       come back inside by DT to end an event\n"
 "                            (default 0.5)\n"
@@ -80,7 +102,13 @@ usage(FILE *fp)
 "      --use-limits LO,HI    the window for discharge (default -20,60)\n"
 "  -v, --verbose             report counts on standard error\n"
 "      --version             print the version and exit 0\n"
+"      --warm-margin V       voltage per cell allowed above the warm\n"
+"                            voltage (default 0.02)\n"
+"      --warm-voltage V      charge voltage per cell allowed in the warm\n"
+"                            zone (default 4.10)\n"
 "\n"
+"The protocol's defaults are from memory of the JEITA guideline; the cell\n"
+"maker's data sheet rules.\n"
 "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one);\n"
 "DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
 "Durations take 90, 90s, 15m, 2h, 1d.\n"
@@ -93,9 +121,14 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 	struct tool *t = ctx;
 	struct dev *d = dev;
 
-	if (d->e.nrows == 1)
+	if (d->e.nrows == 1) {
 		thermal_init(&d->th);
-	thermal_push(&d->th, &t->conf, s->t, s->i, s->temp, s->soc);
+		d->th.cap_ah = fleet_capacity(t->fleet, d->e.name,
+		    d->e.namelen, t->cap_ah);
+		d->th.cells = fleet_cells(t->fleet, d->e.name, d->e.namelen,
+		    t->cells);
+	}
+	thermal_push_v(&d->th, &t->conf, s->t, s->i, s->temp, s->soc, s->v);
 	return t->out.err ? CW_EXIT_DATA : 0;
 }
 
@@ -120,6 +153,18 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	csvout_num(&t->out, ev->charge_ah);
 	csvout_num(&t->out, ev->soc_start);
 	csvout_num(&t->out, ev->soc_end);
+	if (ev->kind == THERMAL_CHARGE) {
+		csvout_num(&t->out, ev->i_max);
+		if (d->th.cells > 0)
+			csvout_num(&t->out, ev->v_max / d->th.cells);
+		else
+			csvout_empty(&t->out);
+		csvout_str(&t->out, thermal_protocol_name(ev->protocol));
+	} else {
+		csvout_empty(&t->out);
+		csvout_empty(&t->out);
+		csvout_empty(&t->out);
+	}
 	csvout_endrow(&t->out);
 }
 
@@ -158,6 +203,8 @@ write_summary(struct tool *t, const struct dev *d)
 	csvout_int(&t->out, (long long)ue[THERMAL_BELOW_MIN]);
 	csvout_int(&t->out, (long long)ue[THERMAL_ABOVE_MAX]);
 	csvout_int(&t->out, (long long)th->unjudged);
+	for (z = 0; z < THERMAL_NPROTO; z++)
+		csvout_int(&t->out, (long long)th->protocol[z]);
 	csvout_endrow(&t->out);
 }
 
@@ -191,6 +238,11 @@ int
 main(int argc, char *argv[])
 {
 	static const struct option longopts[] = {
+		{ "capacity", required_argument, NULL, OPT_CAPACITY },
+		{ "cells", required_argument, NULL, OPT_CELLS },
+		{ "cool-margin", required_argument, NULL, OPT_COOL_MARGIN },
+		{ "cool-rate", required_argument, NULL, OPT_COOL_RATE },
+		{ "fleet", required_argument, NULL, OPT_FLEET },
 		{ "help", no_argument, NULL, 'h' },
 		{ "hysteresis", required_argument, NULL, OPT_HYST },
 		{ "limits", required_argument, NULL, OPT_LIMITS },
@@ -203,6 +255,8 @@ main(int argc, char *argv[])
 		{ "use-limits", required_argument, NULL, OPT_USE_LIMITS },
 		{ "verbose", no_argument, NULL, 'v' },
 		{ "version", no_argument, NULL, OPT_VERSION },
+		{ "warm-margin", required_argument, NULL, OPT_WARM_MARGIN },
+		{ "warm-voltage", required_argument, NULL, OPT_WARM_VOLTAGE },
 		{ NULL, 0, NULL, 0 }
 	};
 	struct tool t;
@@ -210,7 +264,8 @@ main(int argc, char *argv[])
 	struct sampin_stats st;
 	struct devtab *devs;
 	struct outf *of;
-	const char *outpath = NULL;
+	struct fleet *fleet = NULL;
+	const char *outpath = NULL, *fleetpath = NULL;
 	double use[2];
 	void **sorted;
 	size_t i, n;
@@ -219,6 +274,7 @@ main(int argc, char *argv[])
 	cw_setprog("cw-thermal");
 	memset(&t, 0, sizeof(t));
 	thermal_conf_default(&t.conf);
+	t.cap_ah = CW_MISSING;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":ho:sv", longopts, NULL)) !=
 	    -1) {
@@ -234,6 +290,24 @@ main(int argc, char *argv[])
 			break;
 		case 'v':
 			cw_verbose = 1;
+			break;
+		case OPT_CAPACITY:
+			t.cap_ah = opt_num_arg("--capacity", optarg, 0.001,
+			    1e6);
+			break;
+		case OPT_CELLS:
+			t.cells = (int)opt_long_arg("--cells", optarg, 1, 1000);
+			break;
+		case OPT_COOL_MARGIN:
+			t.conf.cool_margin = opt_num_arg("--cool-margin",
+			    optarg, 0, 100);
+			break;
+		case OPT_COOL_RATE:
+			t.conf.cool_rate = opt_num_arg("--cool-rate", optarg,
+			    0, 100);
+			break;
+		case OPT_FLEET:
+			fleetpath = optarg;
 			break;
 		case OPT_HYST:
 			t.conf.lim.hyst = opt_tempdiff_arg("--hysteresis",
@@ -261,6 +335,14 @@ main(int argc, char *argv[])
 			t.conf.lim.use_lo = use[0];
 			t.conf.lim.use_hi = use[1];
 			break;
+		case OPT_WARM_MARGIN:
+			t.conf.warm_margin = opt_num_arg("--warm-margin",
+			    optarg, 0, 1);
+			break;
+		case OPT_WARM_VOLTAGE:
+			t.conf.warm_v = opt_num_arg("--warm-voltage", optarg,
+			    0.001, 100);
+			break;
 		case OPT_VERSION:
 			cw_print_version();
 		default:
@@ -270,6 +352,9 @@ main(int argc, char *argv[])
 	argc -= optind;
 	argv += optind;
 
+	if (fleetpath != NULL)
+		fleet = fleet_load(fleetpath);
+	t.fleet = fleet;
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
 	csvout_init(&t.out, outf_fp(of));
@@ -292,6 +377,7 @@ main(int argc, char *argv[])
 			report(devs, &st);
 		csvout_free(&t.out);
 		devtab_free(devs);
+		fleet_free(fleet);
 		return rc;
 	}
 
@@ -315,5 +401,6 @@ main(int argc, char *argv[])
 		return CW_EXIT_DATA;
 	csvout_free(&t.out);
 	devtab_free(devs);
+	fleet_free(fleet);
 	return CW_EXIT_OK;
 }

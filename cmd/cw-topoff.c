@@ -13,17 +13,19 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "fleet.h"
 #include "opt.h"
 #include "outf.h"
 #include "sampin.h"
 #include "topoff.h"
 
 #define HOLD_HEADER "device,start,end,duration_s,micro_cycles," \
-	"mean_depth_pct,max_depth_pct,topoff_ah"
-#define EVENT_HEADER "device,start,end,depth_pct,charge_ah"
+	"mean_depth_pct,max_depth_pct,topoff_ah,use_dips"
+#define EVENT_HEADER "device,start,end,depth_pct,charge_ah,kind"
 #define SUMMARY_HEADER "device,first,last,holds,hours_held,share_held," \
 	"micro_cycles,micro_cycles_per_day,share_at_100,topoff_ah," \
-	"mean_depth_pct,max_depth_pct,longest_hold_h,unjudged_rows"
+	"mean_depth_pct,max_depth_pct,longest_hold_h,unjudged_rows," \
+	"micro_cycles_per_held_hour,use_dips,standby_a"
 
 /* The per-device state: the devent first, as devtab wants. */
 struct dev {
@@ -39,16 +41,23 @@ struct tool {
 	struct topoff_conf conf;
 	struct csvout out;
 	int mode;		/* enum mode */
+	int use_dips;		/* -e lists use dips too */
+	double capacity;	/* --capacity, Ah; 0: not given */
+	double standby_rate;	/* --standby-rate, C; 0: not given */
+	int fall_set;		/* --standby-fall was given */
+	struct fleet *fleet;
 };
 
 enum {
-	OPT_FULL = 256, OPT_FULL_VOLTAGE, OPT_MAX_GAP, OPT_MIN_CURRENT,
-	OPT_MIN_DEPTH, OPT_VERSION
+	OPT_CAPACITY = 256, OPT_FLEET, OPT_FULL, OPT_FULL_VOLTAGE,
+	OPT_MAX_GAP, OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_STANDBY_CURRENT,
+	OPT_STANDBY_FALL, OPT_STANDBY_RATE, OPT_USE_DIPS, OPT_VERSION
 };
 
 static void	usage(FILE *fp);
 static struct dev *dev_of(struct topoff *top);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
+static void	dev_start(struct tool *t, struct dev *d);
 static void	on_cycle(void *ctx, struct topoff *top,
 		    const struct topoff_cycle *cy);
 static void	on_hold(void *ctx, struct topoff *top,
@@ -61,16 +70,24 @@ static void
 usage(FILE *fp)
 {
 	fprintf(fp,
-	    "usage: cw-topoff [-ehsv] [--full PCT] [--full-voltage V] "
-	    "[--max-gap DUR]\n"
-	    "                 [--min-current A] [--min-depth PCT] "
-	    "[-o FILE] [--version]\n"
-	    "                 [FILE ...]\n");
+	    "usage: cw-topoff [-ehsv] [--capacity AH] [--fleet FILE] "
+	    "[--full PCT]\n"
+	    "                 [--full-voltage V] [--max-gap DUR] "
+	    "[--min-current A]\n"
+	    "                 [--min-depth PCT] [-o FILE] "
+	    "[--standby-current A]\n"
+	    "                 [--standby-fall PCT] [--standby-rate C] "
+	    "[--use-dips]\n"
+	    "                 [--version] [FILE ...]\n");
 	fputs(
 "\n"
-"Holds near full charge and top-off micro-cycles, per device.\n"
+"Holds near full charge and top-off micro-cycles, per device; dips driven\n"
+"by use (discharge above the standby level) are counted apart.\n"
 "\n"
+"      --capacity AH       capacity of every pack, for --standby-rate\n"
+"                          (unset; the fleet file's capacity_ah overrides)\n"
 "  -e, --events            one row per micro-cycle instead of one per hold\n"
+"      --fleet FILE        the fleet file (asset register): capacity_ah\n"
 "      --full PCT          a SoC at or above PCT is near full (default 95)\n"
 "      --full-voltage V    judge rows without SoC by voltage: at or above\n"
 "                          V volts is near full (unset: not judged)\n"
@@ -81,6 +98,14 @@ usage(FILE *fp)
 "                          (default 0.5)\n"
 "  -o, --output FILE       write to FILE atomically, not standard output\n"
 "  -s, --summary           one row per device (-e and -s exclude each other)\n"
+"      --standby-current A discharge up to A amperes is standby drain,\n"
+"                          more is use (default 0.5)\n"
+"      --standby-fall PCT  rows without current: a SoC falling faster than\n"
+"                          PCT percent per hour is use (default 5, or\n"
+"                          100 * standby current / capacity when known)\n"
+"      --standby-rate C    the standby level as a C-rate, for packs whose\n"
+"                          capacity is known (unset: --standby-current)\n"
+"      --use-dips          with -e, list use dips too (kind use)\n"
 "  -v, --verbose           report counts on standard error\n"
 "      --version           print the version and exit 0\n"
 "\n"
@@ -101,11 +126,33 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 	struct dev *d = dev;
 
 	if (d->e.nrows == 1) {
-		topoff_init(&d->top);
+		dev_start(t, d);
 		d->first = s->t;
 	}
 	topoff_push(&d->top, &t->conf, s->t, s->v, s->i, s->soc);
 	return t->out.err ? CW_EXIT_DATA : 0;
+}
+
+/*
+ * A device's first row: its detector, with its own standby level and
+ * fall rate when its capacity is known.
+ */
+static void
+dev_start(struct tool *t, struct dev *d)
+{
+	double cap;
+
+	topoff_init(&d->top);
+	cap = fleet_capacity(t->fleet, d->e.name, d->e.namelen, t->capacity);
+	if (!(cap > 0))
+		return;
+	if (t->standby_rate > 0)
+		d->top.standby_a = t->standby_rate * cap;
+	if (!t->fall_set)
+		d->top.standby_fall = 100.0 * (cw_isnum(d->top.standby_a) ?
+		    d->top.standby_a : t->conf.standby_a) / cap;
+	if (!(d->top.standby_fall > 0))
+		d->top.standby_fall = CW_MISSING;
 }
 
 static void
@@ -114,13 +161,14 @@ on_cycle(void *ctx, struct topoff *top, const struct topoff_cycle *cy)
 	struct tool *t = ctx;
 	const struct dev *d = dev_of(top);
 
-	if (t->mode != MODE_EVENTS)
+	if (t->mode != MODE_EVENTS || (cy->use && !t->use_dips))
 		return;
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_time(&t->out, cy->start);
 	csvout_time(&t->out, cy->end);
 	csvout_num(&t->out, cy->depth);
 	csvout_num(&t->out, cy->charge_ah);
+	csvout_str(&t->out, cy->use ? "use" : "topoff");
 	csvout_endrow(&t->out);
 }
 
@@ -147,6 +195,7 @@ on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 		csvout_empty(&t->out);
 	}
 	csvout_num(&t->out, h->topoff_ah);
+	csvout_int(&t->out, (long long)h->use_dips);
 	csvout_endrow(&t->out);
 }
 
@@ -167,8 +216,10 @@ write_summary(struct tool *t, const struct dev *d)
 	else
 		csvout_empty(&t->out);
 	csvout_int(&t->out, (long long)tot->cycles);
-	if (tot->held > 0)
-		csvout_num(&t->out, (double)tot->cycles / (hours / 24.0));
+	/* Per calendar day of the device's span, held or not. */
+	if (span > 0)
+		csvout_num(&t->out, (double)tot->cycles * 86400.0 *
+		    CW_US_PER_S / (double)span);
 	else
 		csvout_empty(&t->out);
 	if (tot->soc_held > 0)
@@ -186,6 +237,13 @@ write_summary(struct tool *t, const struct dev *d)
 	}
 	csvout_num(&t->out, (double)d->longest / (3600.0 * CW_US_PER_S));
 	csvout_int(&t->out, (long long)tot->unjudged);
+	if (tot->held > 0)
+		csvout_num(&t->out, (double)tot->cycles / hours);
+	else
+		csvout_empty(&t->out);
+	csvout_int(&t->out, (long long)tot->use_dips);
+	csvout_num(&t->out, cw_isnum(d->top.standby_a) ? d->top.standby_a :
+	    t->conf.standby_a);
 	csvout_endrow(&t->out);
 }
 
@@ -193,7 +251,7 @@ static void
 report(const struct devtab *devs, const struct sampin_stats *st)
 {
 	unsigned long holds = 0, cycles = 0, unjudged = 0, carried = 0;
-	unsigned long gaps = 0;
+	unsigned long gaps = 0, use = 0;
 	size_t i, n = devtab_count(devs);
 
 	for (i = 0; i < n; i++) {
@@ -205,10 +263,12 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 		unjudged += tot->unjudged;
 		carried += tot->carried;
 		gaps += tot->gaps;
+		use += tot->use_dips;
 	}
 	sampin_report(st, NULL);
-	cw_warn("%zu devices, %lu holds, %lu micro-cycles; %lu holds ended by "
-	    "a gap longer than --max-gap", n, holds, cycles, gaps);
+	cw_warn("%zu devices, %lu holds, %lu micro-cycles, %lu use dips; %lu "
+	    "holds ended by a gap longer than --max-gap", n, holds, cycles,
+	    use, gaps);
 	cw_warn("%lu rows without SoC (nor voltage with --full-voltage) not "
 	    "judged; %lu such rows kept the level of their hold",
 	    unjudged, carried);
@@ -218,7 +278,9 @@ int
 main(int argc, char *argv[])
 {
 	static const struct option longopts[] = {
+		{ "capacity", required_argument, NULL, OPT_CAPACITY },
 		{ "events", no_argument, NULL, 'e' },
+		{ "fleet", required_argument, NULL, OPT_FLEET },
 		{ "full", required_argument, NULL, OPT_FULL },
 		{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
 		{ "help", no_argument, NULL, 'h' },
@@ -226,7 +288,12 @@ main(int argc, char *argv[])
 		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
 		{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
 		{ "output", required_argument, NULL, 'o' },
+		{ "standby-current", required_argument, NULL,
+		    OPT_STANDBY_CURRENT },
+		{ "standby-fall", required_argument, NULL, OPT_STANDBY_FALL },
+		{ "standby-rate", required_argument, NULL, OPT_STANDBY_RATE },
 		{ "summary", no_argument, NULL, 's' },
+		{ "use-dips", no_argument, NULL, OPT_USE_DIPS },
 		{ "verbose", no_argument, NULL, 'v' },
 		{ "version", no_argument, NULL, OPT_VERSION },
 		{ NULL, 0, NULL, 0 }
@@ -238,7 +305,7 @@ main(int argc, char *argv[])
 	struct sampin_stats st;
 	struct devtab *devs;
 	struct outf *of;
-	const char *outpath = NULL;
+	const char *outpath = NULL, *fleetpath = NULL;
 	int events = 0, summary = 0;
 	void **sorted;
 	size_t i, n;
@@ -265,6 +332,38 @@ main(int argc, char *argv[])
 			break;
 		case 'v':
 			cw_verbose = 1;
+			break;
+		case OPT_CAPACITY:
+			t.capacity = opt_num_arg("--capacity", optarg, 0,
+			    1e6);
+			if (!(t.capacity > 0))
+				cw_usage_error("--capacity: %s is not above 0",
+				    optarg);
+			break;
+		case OPT_FLEET:
+			fleetpath = optarg;
+			break;
+		case OPT_STANDBY_CURRENT:
+			t.conf.standby_a = opt_num_arg("--standby-current",
+			    optarg, 0, 1e6);
+			break;
+		case OPT_STANDBY_FALL:
+			t.conf.standby_fall = opt_num_arg("--standby-fall",
+			    optarg, 0, 1e6);
+			if (!(t.conf.standby_fall > 0))
+				cw_usage_error("--standby-fall: %s is not "
+				    "above 0", optarg);
+			t.fall_set = 1;
+			break;
+		case OPT_STANDBY_RATE:
+			t.standby_rate = opt_num_arg("--standby-rate", optarg,
+			    0, 100);
+			if (!(t.standby_rate > 0))
+				cw_usage_error("--standby-rate: %s is not "
+				    "above 0", optarg);
+			break;
+		case OPT_USE_DIPS:
+			t.use_dips = 1;
 			break;
 		case OPT_FULL:
 			t.conf.full_pct = opt_num_arg("--full", optarg, 0, 100);
@@ -296,6 +395,10 @@ main(int argc, char *argv[])
 		cw_usage_error("-e (--events) and -s (--summary) exclude each "
 		    "other");
 	t.mode = events ? MODE_EVENTS : summary ? MODE_SUMMARY : MODE_HOLDS;
+	if (t.use_dips && !events)
+		cw_usage_error("--use-dips lists dips with -e (--events)");
+	if (fleetpath != NULL)
+		t.fleet = fleet_load(fleetpath);
 
 	devs = devtab_new(sizeof(struct dev));
 	of = outf_open(outpath);
@@ -303,6 +406,7 @@ main(int argc, char *argv[])
 	csvout_header(&t.out, header[t.mode]);
 	t.conf.on_cycle = on_cycle;
 	t.conf.on_hold = on_hold;
+	t.conf.on_use = on_cycle;
 	t.conf.ctx = &t;
 
 	memset(&sc, 0, sizeof(sc));
@@ -323,6 +427,7 @@ main(int argc, char *argv[])
 			report(devs, &st);
 		csvout_free(&t.out);
 		devtab_free(devs);
+		fleet_free(t.fleet);
 		return rc;
 	}
 
@@ -346,5 +451,6 @@ main(int argc, char *argv[])
 		rc = CW_EXIT_DATA;
 	csvout_free(&t.out);
 	devtab_free(devs);
+	fleet_free(t.fleet);
 	return rc;
 }

@@ -13,6 +13,8 @@
 #include "csvout.h"
 #include "cw.h"
 #include "devtab.h"
+#include "dwell.h"
+#include "fleet.h"
 #include "model.h"
 #include "opt.h"
 #include "outf.h"
@@ -22,10 +24,13 @@
 #include "wearstate.h"
 
 #define HEADER "device,first,last,days,charge_ah,efc,max_depth_pct," \
-	"hours_soc_ge_95,hours_temp_ge_45,cold_charge_ah,hot_charge_ah," \
-	"topoff_cycles,share_cycling,share_high_soc,share_heat,fade_pct," \
-	"days_to_eol,dominant,damage"
+	"hours_near_full,hours_hot,cold_charge_ah,cool_charge_ah," \
+	"hot_charge_ah,topoff_cycles,share_age,share_cycling," \
+	"share_high_soc,share_heat,fade_pct,soh_pct,days_to_eol,dominant," \
+	"prior,damage,damage_prior"
 #define HEADER_CAP ",max_charge_c,mean_charge_c,fade_ah"
+#define HEADER_DWELL "device,soc_lo,soc_hi,temp_lo_c,temp_hi_c,hours," \
+	"idle_hours"
 #define MAXWARN 10	/* messages of one kind, then only a count */
 
 /* A device's state in the devtab: the devent first, as devtab.h asks. */
@@ -41,6 +46,12 @@ struct dev {
 	struct wear_dev w;
 };
 
+/* A device's state with --dwell. */
+struct ddev {
+	struct devent e;
+	struct dwell_dev d;
+};
+
 /* A state read back, with where it came from. */
 struct piece {
 	struct wear_dev w;
@@ -51,6 +62,9 @@ struct piece {
 struct run {
 	struct wear_conf conf;
 	double capacity;	/* Ah, 0 when not given */
+	struct fleet *fleet;	/* --fleet, or NULL */
+	const char *fleet_path;
+	unsigned long late_service;	/* in_service after the first row */
 	struct devtab *devs;
 	unsigned long joins;	/* states joined after or before another */
 	unsigned long stale;	/* rows already in a loaded state */
@@ -63,7 +77,8 @@ struct run {
 };
 
 enum {
-	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_FULL,
+	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
+	OPT_FLEET, OPT_FULL,
 	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
 	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
@@ -73,6 +88,8 @@ static const struct option longopts[] = {
 	{ "calendar-life", required_argument, NULL, OPT_CALENDAR_LIFE },
 	{ "capacity", required_argument, NULL, OPT_CAPACITY },
 	{ "cycle-life", required_argument, NULL, OPT_CYCLE_LIFE },
+	{ "dwell", no_argument, NULL, OPT_DWELL },
+	{ "fleet", required_argument, NULL, OPT_FLEET },
 	{ "full", required_argument, NULL, OPT_FULL },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
 	{ "help", no_argument, NULL, 'h' },
@@ -107,6 +124,9 @@ static void write_row(struct csvout *, const struct run *,
 static void write_states(struct outf *, const char *, struct run *,
     struct dev **, size_t);
 static void report(const struct run *, struct dev **, size_t);
+static void set_prior(struct run *, struct dev *);
+static int on_dwell(void *, void *, const struct cw_sample *);
+static void dwell_run(struct run *, char **, int, const char *);
 
 static void
 usage(FILE *fp)
@@ -114,15 +134,65 @@ usage(FILE *fp)
 	fprintf(fp,
 	    "usage: cw-wear [-hv] [--calendar-life DAYS] [--capacity AH] "
 	    "[--cycle-life N]\n"
-	    "               [--full PCT] [--full-voltage V] "
-	    "[--hysteresis PCT]\n"
-	    "               [--limits T1,T2,T3,T4] [--max-gap DUR] "
-	    "[--min-current A]\n"
-	    "               [--merge] [--min-depth PCT] [--model NAME] "
-	    "[-o FILE]\n"
-	    "               [--residue half|full|repeat] [--state FILE] "
-	    "[--state-out]\n"
-	    "               [--version] [file ...]\n");
+	    "               [--dwell] [--fleet FILE] [--full PCT] "
+	    "[--full-voltage V]\n"
+	    "               [--hysteresis PCT] [--limits T1,T2,T3,T4] "
+	    "[--max-gap DUR]\n"
+	    "               [--merge] [--min-current A] [--min-depth PCT] "
+	    "[--model NAME]\n"
+	    "               [-o FILE] [--residue half|full|repeat] "
+	    "[--state FILE]\n"
+	    "               [--state-out] [--version] [file ...]\n"
+	    "\n"
+	    "Wear stress, modelled fade and its causes per pack, from the "
+	    "sample stream.\n"
+	    "\n"
+	    "      --calendar-life DAYS  DAYS at rest at 25 C, 50 %% SoC give "
+	    "20 %% fade\n"
+	    "                            (default: the published constant)\n"
+	    "      --capacity AH         rated capacity, for C-rates and Ah "
+	    "lost\n"
+	    "      --cycle-life N        N full cycles at 25 C, 50 %% SoC give "
+	    "20 %% fade\n"
+	    "                            (default: the published constants)\n"
+	    "      --dwell               hours by SoC and temperature band "
+	    "instead\n"
+	    "      --fleet FILE          the fleet file: soh_pct, in_service, "
+	    "efc_prior,\n"
+	    "                            capacity_ah per pack\n"
+	    "      --full PCT            near full at PCT %% SoC or more "
+	    "(default 95)\n"
+	    "      --full-voltage V      judge rows without SoC by voltage\n"
+	    "  -h, --help                print this help and exit 0\n"
+	    "      --hysteresis PCT      rainflow ignores smaller reversals "
+	    "(default 1)\n"
+	    "      --limits T1,T2,T3,T4  the zone thresholds "
+	    "(default 0,10,45,60)\n"
+	    "      --max-gap DUR         a longer interval carries no charge "
+	    "(default 15m)\n"
+	    "      --merge               the operands are states: join and "
+	    "report\n"
+	    "      --min-current A       charging above A, idle below "
+	    "(default 0.05)\n"
+	    "      --min-depth PCT       the smallest top-off micro-cycle "
+	    "(default 0.5)\n"
+	    "      --model NAME          the degradation model "
+	    "(default xu2018)\n"
+	    "  -o, --output FILE         write to FILE atomically, not "
+	    "standard output\n"
+	    "      --residue half|full|repeat\n"
+	    "                            the open cycles at the end "
+	    "(default half)\n"
+	    "      --state FILE          go on from the states in FILE and "
+	    "write them back\n"
+	    "      --state-out           write the states instead of the "
+	    "report\n"
+	    "  -v, --verbose             report counts on standard error\n"
+	    "      --version             print the version and exit 0\n"
+	    "\n"
+	    "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; "
+	    "durations 90, 90s,\n"
+	    "15m, 2h, 1d.  The tools advise; they are not a safety system.\n");
 }
 
 static int
@@ -293,19 +363,24 @@ write_row(struct csvout *w, const struct run *r, const struct dev *d,
 	csvout_num(w, x->charge_ah);
 	csvout_num(w, x->efc);
 	csvout_num(w, x->max_depth_pct);
-	csvout_num(w, x->hours_soc_ge_95);
-	csvout_num(w, x->hours_temp_ge_45);
+	csvout_num(w, x->hours_near_full);
+	csvout_num(w, x->hours_hot);
 	csvout_num(w, x->cold_charge_ah);
+	csvout_num(w, x->cool_charge_ah);
 	csvout_num(w, x->hot_charge_ah);
 	csvout_num(w, x->topoff_cycles);
+	csvout_num(w, x->share_age);
 	csvout_num(w, x->share_cycling);
 	csvout_num(w, x->share_high_soc);
 	csvout_num(w, x->share_heat);
 	csvout_num(w, x->fade_pct);
+	csvout_num(w, x->soh_pct);
 	csvout_num(w, x->days_to_eol);
 	csvout_str(w, x->dominant);
+	csvout_str(w, x->prior);
 	csvout_num(w, x->damage);
-	if (r->capacity > 0) {
+	csvout_num(w, x->damage_prior);
+	if (r->capacity > 0 || r->fleet != NULL) {
 		csvout_num(w, x->max_charge_c);
 		csvout_num(w, x->mean_charge_c);
 		csvout_num(w, x->fade_ah);
@@ -341,11 +416,16 @@ static void
 report(const struct run *r, struct dev **devs, size_t n)
 {
 	struct wear_acc t;
+	unsigned long kind[WEAR_PRIOR_NKIND] = { 0 };
 	size_t k;
 
 	memset(&t, 0, sizeof(t));
-	for (k = 0; k < n; k++)
+	for (k = 0; k < n; k++) {
 		wear_acc_merge(&t, &devs[k]->w.acc);
+		if (devs[k]->w.prior.kind >= 0 &&
+		    devs[k]->w.prior.kind < WEAR_PRIOR_NKIND)
+			kind[devs[k]->w.prior.kind]++;
+	}
 	cw_warn("model %s: %s; cycle scale %g, calendar scale %g",
 	    r->conf.model->name, r->conf.model->title, r->conf.cycle_scale,
 	    r->conf.cal_scale);
@@ -364,6 +444,10 @@ report(const struct run *r, struct dev **devs, size_t n)
 	if (t.gaps > 0)
 		cw_warn("gaps over --max-gap: %lu, %g h in all, the state "
 		    "before each held through it", t.gaps, t.gap_s / 3600.0);
+	if (r->fleet != NULL || kind[WEAR_PRIOR_NEW] < n)
+		cw_warn("prior damage: %lu packs by measured SoH, %lu by age "
+		    "and cycles, %lu new", kind[WEAR_PRIOR_SOH],
+		    kind[WEAR_PRIOR_AGE], kind[WEAR_PRIOR_NEW]);
 	if (r->joins > 0)
 		cw_warn("%lu states joined to the one before or after them",
 		    r->joins);
@@ -433,6 +517,131 @@ stale_check(struct run *r, const char *state)
 		    "it, skipped", state, r->stale, r->stale_devs);
 }
 
+/*
+ * The prior of device D from the fleet file, unless its state has one
+ * (the state's first row is the one the prior was taken for): a measured
+ * SoH first, else its time in service before the first row and its
+ * equivalent full cycles.
+ */
+static void
+set_prior(struct run *r, struct dev *d)
+{
+	const struct fleet_pack *p;
+	struct wear_prior *w = &d->w.prior;
+	char t[2][TS_FMTMAX];
+
+	p = fleet_find(r->fleet, d->e.name, d->e.namelen);
+	if (p == NULL || w->kind != WEAR_PRIOR_NEW || !d->w.acc.have)
+		return;
+	if (p->have & FLEET_SOH) {
+		w->kind = WEAR_PRIOR_SOH;
+		w->soh_pct = p->soh_pct;
+		return;
+	}
+	if (!(p->have & (FLEET_IN_SERVICE | FLEET_EFC_PRIOR)))
+		return;
+	w->kind = WEAR_PRIOR_AGE;
+	if (p->have & FLEET_EFC_PRIOR)
+		w->efc = p->efc_prior;
+	if (!(p->have & FLEET_IN_SERVICE))
+		return;
+	if (p->in_service <= d->w.acc.first) {
+		w->age_s = (double)(d->w.acc.first - p->in_service) /
+		    CW_US_PER_S;
+		return;
+	}
+	if (r->late_service++ < MAXWARN) {
+		ts_format(p->in_service, t[0]);
+		ts_format(d->w.acc.first, t[1]);
+		cw_warn_at(r->fleet_path, p->line, "%.*s entered service at "
+		    "%s, after its first row at %s: taken as no time in "
+		    "service", (int)d->e.namelen, d->e.name, t[0], t[1]);
+	}
+}
+
+static int
+on_dwell(void *ctx, void *state, const struct cw_sample *s)
+{
+	const struct dwell_conf *c = ctx;
+	struct ddev *d = state;
+
+	dwell_push(&d->d, c, s->t, s->i, s->temp, s->soc);
+	return 0;
+}
+
+/*
+ * --dwell: the hours of every device by SoC and temperature band, the
+ * cells with time in them only, devices in name order, to OUT.
+ */
+static void
+dwell_run(struct run *r, char **argv, int argc, const char *out)
+{
+	struct dwell_conf dc;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct csvout w;
+	struct outf *of;
+	struct ddev **v;
+	unsigned long skipped = 0, empty = 0;
+	size_t n, k;
+	int rc, s, t;
+
+	dwell_conf_set(&dc, &r->conf.lim, r->conf.min_current,
+	    r->conf.max_gap);
+	r->devs = devtab_new(sizeof(struct ddev));
+	of = outf_open(out);
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
+	sc.row = on_dwell;
+	sc.ctx = &dc;
+	sc.devs = r->devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (cw_verbose)
+		sampin_report(&st, NULL);
+	if (rc != 0)
+		exit(rc);
+	v = (struct ddev **)devtab_sorted(r->devs);
+	n = devtab_count(r->devs);
+	csvout_init(&w, outf_fp(of));
+	csvout_header(&w, HEADER_DWELL);
+	for (k = 0; k < n; k++) {
+		const struct dwell_dev *d = &v[k]->d;
+
+		skipped += d->rows_skipped;
+		empty += !(d->covered_h > 0);
+		for (s = 0; s < DWELL_NSOC; s++)
+			for (t = 0; t < dc.ntemp; t++) {
+				if (!(d->hours[s][t] > 0))
+					continue;
+				csvout_strn(&w, v[k]->e.name, v[k]->e.namelen);
+				csvout_num(&w, dc.soc_edge[s]);
+				csvout_num(&w, dc.soc_edge[s + 1]);
+				csvout_num(&w, dwell_temp_lo(&dc, t));
+				csvout_num(&w, dwell_temp_hi(&dc, t));
+				csvout_num(&w, d->hours[s][t]);
+				csvout_num(&w, d->idle_hours[s][t]);
+				csvout_endrow(&w);
+			}
+	}
+	if (csvout_flush(&w) != 0) {
+		int e = errno;
+
+		csvout_free(&w);
+		cw_die(CW_EXIT_DATA, "%s: write error: %s", out != NULL ?
+		    out : "standard output", strerror(e));
+	}
+	csvout_free(&w);
+	if (cw_verbose)
+		cw_warn("%zu devices, %lu of them without two rows with SoC "
+		    "and temperature (no rows); %lu rows without SoC or "
+		    "temperature passed over", n, empty, skipped);
+	free(v);
+	devtab_free(r->devs);
+	if (outf_commit(of) != 0)
+		exit(CW_EXIT_DATA);
+}
+
 /* Whether PATH names something that exists (a state to load). */
 static int
 exists(const char *path)
@@ -457,11 +666,11 @@ main(int argc, char *argv[])
 	struct csvout w;
 	struct outf *of, *sf = NULL;
 	struct dev **sorted;
-	const char *out = NULL, *state = NULL;
+	const char *out = NULL, *state = NULL, *fleet = NULL;
 	double cycle_life = 0, calendar_life = 0;
 	size_t n, k;
 	unsigned fixed = 0;
-	int ch, rc, merge = 0, state_out = 0;
+	int ch, rc, merge = 0, state_out = 0, dwell = 0;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -488,6 +697,12 @@ main(int argc, char *argv[])
 		case OPT_CYCLE_LIFE:
 			cycle_life = opt_num_arg("--cycle-life", optarg, 1e-3,
 			    1e9);
+			break;
+		case OPT_DWELL:
+			dwell = 1;
+			break;
+		case OPT_FLEET:
+			fleet = optarg;
 			break;
 		case OPT_FULL:
 			r.conf.topoff.full_pct = opt_num_arg("--full", optarg,
@@ -558,12 +773,23 @@ main(int argc, char *argv[])
 	if (state != NULL && out != NULL && strcmp(out, "-") != 0 &&
 	    outf_same(state, out))
 		cw_usage_error("--state and -o name the same file");
+	if (dwell && (state != NULL || state_out || merge))
+		cw_usage_error("--dwell does not go with --state, --state-out "
+		    "or --merge (a dwell table is not kept in a state)");
+	if (dwell) {
+		dwell_run(&r, argv, argc, out);
+		return CW_EXIT_OK;
+	}
 
 	/*
 	 * A state to be joined before another keeps a raw rainflow start
 	 * side; one that is only ever continued (--state) stays compact.
 	 */
 	r.conf.joinable = state_out && state == NULL;
+	if (fleet != NULL) {
+		r.fleet = fleet_load(fleet);
+		r.fleet_path = fleet;
+	}
 	r.devs = devtab_new(sizeof(struct dev));
 	memset(&rd, 0, sizeof(rd));
 	rd.conf = &r.conf;
@@ -634,6 +860,11 @@ main(int argc, char *argv[])
 
 	sorted = (struct dev **)devtab_sorted(r.devs);
 	n = devtab_count(r.devs);
+	for (k = 0; k < n; k++)
+		set_prior(&r, sorted[k]);
+	if (r.late_service > MAXWARN)
+		cw_warn("%lu packs in all entered service after their first "
+		    "row", r.late_service);
 	if (state != NULL) {
 		for (k = 0; k < n; k++)
 			wear_compact(&sorted[k]->w, &r.conf);
@@ -643,12 +874,14 @@ main(int argc, char *argv[])
 		write_states(of, out, &r, sorted, n);
 	else {
 		csvout_init(&w, outf_fp(of));
-		csvout_header(&w, r.capacity > 0 ? HEADER HEADER_CAP :
-		    HEADER);
+		csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
+		    HEADER HEADER_CAP : HEADER);
 		for (k = 0; k < n; k++) {
 			wear_finish(&sorted[k]->w, &r.conf);
-			wear_report(&r.conf, &sorted[k]->w.acc, r.capacity,
-			    &x);
+			wear_report(&r.conf, &sorted[k]->w.acc,
+			    &sorted[k]->w.prior, fleet_capacity(r.fleet,
+			    sorted[k]->e.name, sorted[k]->e.namelen,
+			    r.capacity), &x);
 			write_row(&w, &r, sorted[k], &x);
 		}
 		if (csvout_flush(&w) != 0) {
@@ -667,6 +900,7 @@ main(int argc, char *argv[])
 	free(sorted);
 	free(r.piece);
 	devtab_free(r.devs);
+	fleet_free(r.fleet);
 	/* The state moves on last, once the report is out. */
 	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
 		exit(CW_EXIT_DATA);

@@ -9,6 +9,7 @@
 
 const char *cw_prog = "cellwear";
 int cw_verbose;
+int cw_quiet;
 
 static void vwarn_at(const char *, unsigned long, const char *, va_list);
 
@@ -49,6 +50,8 @@ cw_warn(const char *fmt, ...)
 {
 	va_list ap;
 
+	if (cw_quiet)
+		return;
 	va_start(ap, fmt);
 	vwarn_at(NULL, 0, fmt, ap);
 	va_end(ap);
@@ -59,6 +62,8 @@ cw_warn_at(const char *file, unsigned long line, const char *fmt, ...)
 {
 	va_list ap;
 
+	if (cw_quiet)
+		return;
 	va_start(ap, fmt);
 	vwarn_at(file, line, fmt, ap);
 	va_end(ap);

@@ -24,6 +24,9 @@ typedef int64_t cw_time;
 
 extern const char *cw_prog;	/* set by cw_setprog() */
 extern int cw_verbose;		/* -v given */
+/* Non-zero: cw_warn and cw_warn_at say nothing (a read-ahead whose
+ * findings the main pass reports). */
+extern int cw_quiet;
 
 void	cw_setprog(const char *name);
 void	cw_warn(const char *fmt, ...)

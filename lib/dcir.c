@@ -118,7 +118,8 @@ dcir_feed(const struct dcir_conf *c, struct dcir_dev *d,
 		why = DCIR_NO_V;
 	else if (!cw_isnum(soc) && !c->unknown_soc_ok)
 		why = DCIR_SOC_UNKNOWN;
-	else if (cw_isnum(soc) && (soc < c->soc_lo || soc > c->soc_hi))
+	else if (cw_isnum(soc) && !c->soc_auto && (soc < c->soc_lo ||
+	    soc > c->soc_hi))
 		why = DCIR_SOC_OUT;
 	else if (!cw_isnum(temp))
 		why = DCIR_TEMP_UNKNOWN;
@@ -158,51 +159,182 @@ dcir_arrhenius(double r, double temp_c, double ref_c, double ea_kj)
 	return r * exp(-(ea_kj * 1000.0 / DCIR_RGAS) * (1.0 / t - 1.0 / tref));
 }
 
-void
-dcir_series_add(struct dcir_series *s, cw_time t, double r_ref,
-    size_t maxpts)
+int
+dcir_soc_bin(double soc)
 {
-	unsigned long k = s->steps++;
+	if (!cw_isnum(soc))
+		return DCIR_NBIN;
+	if (soc < 0)
+		return 0;
+	if (soc >= DCIR_NBIN - 1)
+		return DCIR_NBIN - 1;
+	return (int)soc;
+}
+
+/* The bucket of time T at LEVEL: floor(T / 2^LEVEL s). */
+static cw_time
+bucket(cw_time t, int level)
+{
+	cw_time w = CW_US_PER_S, q;
+
+	w <<= level;
+	q = t / w;
+	if (t % w != 0 && t < 0)
+		q--;
+	return q;
+}
+
+static void
+pt_grow(struct dcir_series *s, size_t want, size_t maxpts)
+{
+	if (want <= s->cap)
+		return;
+	while (s->cap < want)
+		s->cap = s->cap ? 2 * s->cap : 16;
+	if (s->cap > maxpts + 1 && want <= maxpts + 1)
+		s->cap = maxpts + 1;
+	s->pt = cw_realloc(s->pt, s->cap * sizeof *s->pt);
+}
+
+/*
+ * Keep, at LEVEL, the first point of each bucket and bin; the points are
+ * in time order, so the points of a bucket follow each other.
+ */
+static void
+thin(struct dcir_series *s, int level)
+{
+	unsigned char seen[DCIR_NBIN + 1];
+	cw_time cur = 0;
 	size_t i, j;
 
-	if (k == 0) {
-		s->first = t;
-		s->stride = 1;
+	s->level = level;
+	for (i = j = 0; i < s->n; i++) {
+		cw_time b = bucket(s->pt[i].t, level);
+
+		if (i == 0 || b != cur) {
+			memset(seen, 0, sizeof seen);
+			cur = b;
+		}
+		if (seen[s->pt[i].bin])
+			continue;
+		seen[s->pt[i].bin] = 1;
+		s->pt[j++] = s->pt[i];
 	}
-	s->last = t;
+	s->n = j;
+}
+
+static void
+cap_points(struct dcir_series *s, size_t maxpts)
+{
+	while (s->n > maxpts && s->level < DCIR_LEVEL_MAX)
+		thin(s, s->level + 1);
+}
+
+void
+dcir_series_add(struct dcir_series *s, cw_time t, double r_ref, double soc,
+    size_t maxpts)
+{
+	struct dcir_bin *bn;
+	cw_time b;
+	size_t k;
+	int bin = dcir_soc_bin(soc);
+
 	if (maxpts < 2)
 		maxpts = 2;
-	if (s->n >= maxpts) {
-		/* Thin evenly: keep every other point, then every 2 stride-th
-		 * step from now on.  The kept steps stay those whose number is
-		 * a multiple of the stride. */
-		for (i = j = 0; i < s->n; i += 2, j++) {
-			s->t[j] = s->t[i];
-			s->r[j] = s->r[i];
-		}
-		s->n = j;
-		s->stride *= 2;
+	if (s->steps++ == 0) {
+		s->first = t;
+		s->bin = cw_calloc(DCIR_NBIN + 1, sizeof *s->bin);
 	}
-	if (k % s->stride != 0)
-		return;
-	if (s->n == s->cap) {
-		s->cap = s->cap ? 2 * s->cap : 16;
-		if (s->cap > maxpts)
-			s->cap = maxpts;
-		s->t = cw_realloc(s->t, s->cap * sizeof *s->t);
-		s->r = cw_realloc(s->r, s->cap * sizeof *s->r);
-	}
-	s->t[s->n] = t;
-	s->r[s->n] = r_ref;
+	s->last = t;
+	bn = &s->bin[bin];
+	if (bn->n++ == 0)
+		bn->first = t;
+	bn->last = t;
+	/* An earlier point of this bucket and bin keeps its place. */
+	b = bucket(t, s->level);
+	for (k = s->n; k > 0 && bucket(s->pt[k - 1].t, s->level) == b; k--)
+		if (s->pt[k - 1].bin == bin)
+			return;
+	pt_grow(s, s->n + 1, maxpts);
+	s->pt[s->n].t = t;
+	s->pt[s->n].r = r_ref;
+	s->pt[s->n].bin = bin;
 	s->n++;
+	cap_points(s, maxpts);
+}
+
+void
+dcir_series_join(struct dcir_series *a, struct dcir_series *b,
+    size_t maxpts)
+{
+	int k;
+
+	if (b->steps == 0) {
+		dcir_series_free(b);
+		return;
+	}
+	if (a->steps == 0) {
+		dcir_series_free(a);
+		*a = *b;
+		memset(b, 0, sizeof *b);
+		cap_points(a, maxpts < 2 ? 2 : maxpts);
+		return;
+	}
+	if (maxpts < 2)
+		maxpts = 2;
+	if (a->level < b->level)
+		thin(a, b->level);
+	else if (b->level < a->level)
+		thin(b, a->level);
+	pt_grow(a, a->n + b->n, a->n + b->n);
+	memcpy(a->pt + a->n, b->pt, b->n * sizeof *b->pt);
+	a->n += b->n;
+	thin(a, a->level);
+	cap_points(a, maxpts);
+	for (k = 0; k <= DCIR_NBIN; k++) {
+		struct dcir_bin *x = &a->bin[k], *y = &b->bin[k];
+
+		if (y->n == 0)
+			continue;
+		if (x->n == 0)
+			x->first = y->first;
+		x->last = y->last;
+		x->n += y->n;
+	}
+	a->steps += b->steps;
+	a->last = b->last;
+	dcir_series_free(b);
 }
 
 void
 dcir_series_free(struct dcir_series *s)
 {
-	free(s->t);
-	free(s->r);
+	free(s->bin);
+	free(s->pt);
 	memset(s, 0, sizeof *s);
+}
+
+int
+dcir_series_window(const struct dcir_series *s)
+{
+	unsigned long n = 0, best = 0;
+	int lo, k, bestlo = -1, dist, bestdist = 0;
+
+	if (s->bin == NULL)
+		return -1;
+	for (k = 0; k < DCIR_WINDOW; k++)
+		n += s->bin[k].n;
+	for (lo = 0; lo + DCIR_WINDOW <= DCIR_NBIN; lo++) {
+		if (lo > 0)
+			n += s->bin[lo + DCIR_WINDOW - 1].n - s->bin[lo - 1].n;
+		dist = abs(2 * lo + DCIR_WINDOW - DCIR_NBIN);
+		if (n > best || (n == best && n > 0 && dist < bestdist)) {
+			best = n;
+			bestlo = lo;
+			bestdist = dist;
+		}
+	}
+	return bestlo;
 }
 
 void
@@ -214,45 +346,81 @@ dcir_trend_conf_default(struct dcir_trend_conf *c)
 	c->conf = 0.95;
 }
 
+static int
+in_window(int bin, int lo)
+{
+	return lo < 0 || bin == DCIR_NBIN || (bin >= lo &&
+	    bin < lo + DCIR_WINDOW);
+}
+
 void
-dcir_trend_fit(const struct dcir_series *s, const struct dcir_trend_conf *c,
-    struct dcir_trend *out)
+dcir_trend_fit_window(const struct dcir_series *s,
+    const struct dcir_trend_conf *c, int lo, struct dcir_trend *out)
 {
 	struct theil_fit f;
-	double *x, xlast, days;
-	size_t i;
+	double *x, *y, xlast, days;
+	size_t i, m;
+	int k;
 
 	memset(out, 0, sizeof *out);
 	out->slope = out->slope_lo = out->slope_hi = CW_MISSING;
 	out->r_start = out->r_end = CW_MISSING;
 	out->growth_pct = out->growth_30d = CW_MISSING;
-	if (s->steps < c->min_steps || s->steps == 0 ||
-	    s->last - s->first < c->min_span || s->n < 2)
+	out->growth_lo_30d = out->growth_hi_30d = CW_MISSING;
+	for (k = 0; s->bin != NULL && k <= DCIR_NBIN; k++) {
+		const struct dcir_bin *b = &s->bin[k];
+
+		if (b->n == 0 || !in_window(k, lo))
+			continue;
+		if (out->steps == 0 || b->first < out->first)
+			out->first = b->first;
+		if (out->steps == 0 || b->last > out->last)
+			out->last = b->last;
+		out->steps += b->n;
+	}
+	if (out->steps < c->min_steps || out->steps == 0 ||
+	    out->last - out->first < c->min_span)
 		return;
 	x = cw_malloc(s->n * sizeof *x);
-	for (i = 0; i < s->n; i++)
-		x[i] = (double)(s->t[i] - s->first) / US_PER_DAY;
-	i = theil_fit(x, s->r, s->n, c->conf, &f);
+	y = cw_malloc(s->n * sizeof *y);
+	for (i = m = 0; i < s->n; i++) {
+		if (!in_window(s->pt[i].bin, lo))
+			continue;
+		x[m] = (double)(s->pt[i].t - out->first) / US_PER_DAY;
+		y[m++] = s->pt[i].r;
+	}
+	i = m >= 2 ? theil_fit(x, y, m, c->conf, &f) : 1;
 	free(x);
+	free(y);
 	if (i != 0)
 		return;
 	out->fitted = 1;
-	out->used = s->n;
+	out->used = m;
 	out->slope = f.slope;
 	out->slope_lo = f.slope_lo;
 	out->slope_hi = f.slope_hi;
-	xlast = (double)(s->last - s->first) / US_PER_DAY;
+	xlast = (double)(out->last - out->first) / US_PER_DAY;
 	out->r_start = f.intercept;
 	out->r_end = f.intercept + f.slope * xlast;
 	if (!(out->r_start > 0))
 		return;		/* no growth relative to a non-resistance */
 	out->growth_pct = 100 * (out->r_end - out->r_start) / out->r_start;
 	out->growth_30d = 100 * f.slope * 30 / out->r_start;
-	if (!(f.slope > 0))
+	out->growth_lo_30d = 100 * f.slope_lo * 30 / out->r_start;
+	out->growth_hi_30d = 100 * f.slope_hi * 30 / out->r_start;
+	/* Only a sure growth: the whole interval above zero. */
+	if (!(f.slope > 0) || !(f.slope_lo > 0))
 		return;
 	days = (c->eol_pct / 100 - 1) * out->r_start / f.slope;
-	if (days * US_PER_DAY < (double)(DCIR_T_MAX - s->first)) {
-		out->eol_t = s->first + (cw_time)(days * US_PER_DAY);
+	if (days * US_PER_DAY < (double)(DCIR_T_MAX - out->first)) {
+		out->eol_t = out->first + (cw_time)(days * US_PER_DAY);
 		out->has_eol = 1;
 	}
+}
+
+void
+dcir_trend_fit(const struct dcir_series *s, const struct dcir_trend_conf *c,
+    struct dcir_trend *out)
+{
+	dcir_trend_fit_window(s, c, -1, out);
 }

@@ -13,8 +13,9 @@
  * step is kept only inside the SoC and temperature windows and with R > 0.
  *
  * Memory: a ring of the last samples per device (fixed size) for the
- * detector; for the trend, the points of a device up to a cap, thinned
- * evenly by step count beyond it.
+ * detector; for the trend, the steps per 1-point SoC bin (counts and
+ * times) and the points of a device up to a cap, thinned by time buckets
+ * beyond it (see struct dcir_series).
  */
 #ifndef DCIR_H
 #define DCIR_H
@@ -36,6 +37,7 @@ struct dcir_conf {
 	double soc_lo, soc_hi;	/* SoC window, percent */
 	double temp_lo, temp_hi;	/* temperature window, C */
 	int unknown_soc_ok;	/* keep steps whose SoC is unknown */
+	int soc_auto;		/* no SoC window here: the trend chooses one */
 	double ref_temp_c;	/* Arrhenius reference temperature, C */
 	double ea_kj;		/* activation energy, kJ/mol */
 };
@@ -104,21 +106,71 @@ int	dcir_feed(const struct dcir_conf *c, struct dcir_dev *d,
  */
 double	dcir_arrhenius(double r, double temp_c, double ref_c, double ea_kj);
 
-/* The steps of one device kept for the trend; zeroed is empty. */
+/*
+ * SoC bins of 1 point: bin k holds SoC in [k, k + 1), bin 99 also 100;
+ * bin DCIR_NBIN the steps of unknown SoC.  A --soc auto window is
+ * DCIR_WINDOW bins wide.
+ */
+#define DCIR_NBIN	100
+#define DCIR_WINDOW	30
+/*
+ * The coarsest thinning: buckets of 2^40 s (35,000 years) hold any
+ * history whole, leaving one point per SoC bin with steps, which may be
+ * more than the cap (101 at most).
+ */
+#define DCIR_LEVEL_MAX	40
+
+struct dcir_bin {
+	unsigned long n;	/* steps */
+	cw_time first, last;	/* times of the first and last */
+};
+
+struct dcir_kpt {
+	cw_time t;
+	double r;		/* r_ref */
+	int bin;		/* 0..DCIR_NBIN */
+};
+
+/*
+ * The steps of one device kept for the trend; zeroed is empty.
+ *
+ * Thinning, split-invariant: time is cut into buckets of 2^level seconds
+ * aligned to the epoch, and of the steps in one bucket and one SoC bin
+ * only the earliest is kept (the first added, on equal times).  Whenever
+ * more than MAXPTS points are kept, level goes up by one and buckets
+ * merge pairwise (the earlier point of the two stays).  So the points
+ * kept are those of level L*, the lowest level at which the whole history
+ * leaves at most MAXPTS points, whatever way the history was cut into
+ * pieces and joined (dcir_series_join), and the first step of every bin
+ * is always among them.
+ */
 struct dcir_series {
 	unsigned long steps;	/* accepted steps, all of them */
 	cw_time first, last;	/* times of the first and last step */
-	cw_time *t;		/* kept points */
-	double *r;
+	struct dcir_bin *bin;	/* DCIR_NBIN + 1, made with the first step */
+	struct dcir_kpt *pt;	/* kept points, in time order */
 	size_t n, cap;
-	unsigned long stride;	/* a step is kept when its number % stride
-				 * is 0; doubles each time the cap is hit */
+	int level;		/* buckets of 2^level seconds */
 };
 
+/* The bin of SOC (NaN: DCIR_NBIN). */
+int	dcir_soc_bin(double soc);
 /* Add a step; MAXPTS (>= 2) caps the points kept. */
 void	dcir_series_add(struct dcir_series *s, cw_time t, double r_ref,
+	    double soc, size_t maxpts);
+/*
+ * Join B, whose steps all come at or after A's, into A, thinned as one
+ * history would be; B is freed.
+ */
+void	dcir_series_join(struct dcir_series *a, struct dcir_series *b,
 	    size_t maxpts);
 void	dcir_series_free(struct dcir_series *s);
+/*
+ * The --soc auto window of S: the first bin LO of the DCIR_WINDOW bins
+ * holding most steps (ties: the window whose middle is nearest 50 %,
+ * then the lower); -1 when S has no step of known SoC.
+ */
+int	dcir_series_window(const struct dcir_series *s);
 
 struct dcir_trend_conf {
 	unsigned long min_steps;	/* fewer steps: no estimate */
@@ -137,12 +189,23 @@ struct dcir_trend {
 	double r_start, r_end;	/* the fitted line at first and last */
 	double growth_pct;	/* 100 (r_end - r_start) / r_start */
 	double growth_30d;	/* percent of r_start per 30 days */
+	double growth_lo_30d, growth_hi_30d;	/* the same of the interval */
+	unsigned long steps;	/* steps in the window */
+	cw_time first, last;	/* their first and last time */
 	int has_eol;		/* eol_t is set */
 	cw_time eol_t;		/* when the line reaches eol_pct of r_start */
 };
 
-/* Fit the trend of S.  Estimates are NaN (fitted 0) when S has too few
- * steps, too short a span or fewer than two distinct times. */
+/*
+ * Fit the trend of S over the steps of SoC bins LO..LO + DCIR_WINDOW - 1
+ * and those of unknown SoC (LO < 0: every step).  Estimates are NaN
+ * (fitted 0) when the window has too few steps, too short a span or
+ * fewer than two distinct times.  eol_t is set only when the whole
+ * interval of the slope is above zero.
+ */
+void	dcir_trend_fit_window(const struct dcir_series *s,
+	    const struct dcir_trend_conf *c, int lo, struct dcir_trend *out);
+/* The same over every step. */
 void	dcir_trend_fit(const struct dcir_series *s,
 	    const struct dcir_trend_conf *c, struct dcir_trend *out);
 

@@ -6,6 +6,7 @@
 
 static void xu_cycle(double, double, double, struct model_eval *);
 static void xu_calendar(double, double, struct model_eval *);
+static void split(double, double, double, struct model_eval *);
 static double xu_fade(double);
 static double xu_damage_at(double);
 
@@ -37,37 +38,36 @@ model_find(const char *name)
 }
 
 /*
- * The Xu model's stresses multiply, so the capped forms replace one
- * factor by min(factor, 1): 1 is the factor at the reference SoC (50 %)
- * and temperature (25 C).
+ * The Xu model's stresses multiply, so each term is A * s * tau with s and
+ * tau 1 at the reference SoC (50 %) and temperature (25 C): the Shapley
+ * split of model.h.
  */
+static void
+split(double a, double ss, double st, struct model_eval *out)
+{
+	double both = a * (ss - 1) * (st - 1) / 2;
+
+	out->full = a * ss * st;
+	out->ref = a;
+	out->soc = a * (ss - 1) + both;
+	out->temp = a * (st - 1) + both;
+}
+
 static void
 xu_cycle(double d, double s, double temp_c, struct model_eval *out)
 {
 	const struct xu2018_params *p = &xu2018_published;
-	double sd, ss, st;
 
-	sd = xu2018_s_dod(p, d);
-	ss = xu2018_s_soc(p, s);
-	st = xu2018_s_temp(p, temp_c);
-	out->full = sd * ss * st;
-	out->soc_capped = sd * (ss < 1 ? ss : 1) * st;
-	out->temp_capped = sd * ss * (st < 1 ? st : 1);
-	out->depth_only = sd;
+	split(xu2018_s_dod(p, d), xu2018_s_soc(p, s), xu2018_s_temp(p,
+	    temp_c), out);
 }
 
 static void
 xu_calendar(double s, double temp_c, struct model_eval *out)
 {
 	const struct xu2018_params *p = &xu2018_published;
-	double ss, st;
 
-	ss = xu2018_s_soc(p, s);
-	st = xu2018_s_temp(p, temp_c);
-	out->full = p->kt * ss * st;
-	out->soc_capped = p->kt * (ss < 1 ? ss : 1) * st;
-	out->temp_capped = p->kt * ss * (st < 1 ? st : 1);
-	out->depth_only = 0;
+	split(p->kt, xu2018_s_soc(p, s), xu2018_s_temp(p, temp_c), out);
 }
 
 static double

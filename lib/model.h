@@ -4,23 +4,28 @@
  *
  * A model turns stress into damage f (dimensionless) and damage into fade
  * (fraction of capacity lost).  Each stress evaluation returns the damage
- * four ways, because cw-wear's shares compare them (SPEC.md, cw-wear):
- *   full          the model as it stands
- *   soc_capped    with the SoC stress capped at its reference level
- *   temp_capped   with the temperature stress capped at its reference
- *   depth_only    the cycle damage of the depth alone (SoC and temperature
- *                 stresses set to the reference); 0 for calendar aging
- * A model whose stresses do not factor this way decides what "capped"
- * means for it and says so in its own header.
+ * and its split by cause, which cw-wear's shares add up (SPEC.md,
+ * cw-wear).  For a term A * s * tau (A the depth or time stress, s the SoC
+ * stress, tau the temperature stress, both 1 at the reference SoC and
+ * temperature):
+ *   full   the model as it stands, A * s * tau
+ *   ref    A, the term at the reference conditions
+ *   soc    A * (s - 1) + A * (s - 1) * (tau - 1) / 2
+ *   temp   A * (tau - 1) + A * (s - 1) * (tau - 1) / 2
+ * so ref + soc + temp = full: the excess over reference split by the
+ * Shapley rule (the interaction shared equally between the two causes).
+ * soc and temp are negative where the pack is emptier or cooler than
+ * reference.  A model whose stresses do not factor this way decides what
+ * the split means for it and says so in its own header.
  */
 #ifndef MODEL_H
 #define MODEL_H
 
 struct model_eval {
 	double full;
-	double soc_capped;
-	double temp_capped;
-	double depth_only;
+	double ref;
+	double soc;
+	double temp;
 };
 
 struct model {

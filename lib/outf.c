@@ -28,7 +28,7 @@ struct outf {
 	FILE *fp;
 	char *path;		/* NULL: standard output; else the target */
 	char *tmp;
-	int live;		/* temporary exists, not yet renamed */
+	volatile sig_atomic_t live; /* temporary exists, not yet renamed */
 	int direct;		/* not a regular file: written in place */
 };
 
@@ -89,8 +89,14 @@ hook(void)
 	sa.sa_handler = on_signal;
 	sigfillset(&sa.sa_mask);
 	for (i = 0; i < sizeof(fatal_sigs) / sizeof(fatal_sigs[0]); i++) {
-		/* A signal ignored by the caller (nohup) stays ignored. */
-		if (sigaction(fatal_sigs[i], NULL, &old) == 0 &&
+		/*
+		 * A hang-up or broken pipe ignored by the caller (nohup)
+		 * stays ignored.  SIGINT and SIGQUIT, which a shell ignores
+		 * in its background jobs, are caught all the same, so that
+		 * kill -INT still ends the run cleanly.
+		 */
+		if ((fatal_sigs[i] == SIGHUP || fatal_sigs[i] == SIGPIPE) &&
+		    sigaction(fatal_sigs[i], NULL, &old) == 0 &&
 		    old.sa_handler == SIG_IGN)
 			continue;
 		sigaction(fatal_sigs[i], &sa, NULL);
@@ -229,6 +235,7 @@ open_any(const char *path, int state)
 	struct stat st, dst;
 	char *target, *dir;
 	const char *base;
+	sigset_t all, omask;
 	long name_max;
 	size_t keep, len;
 	int fd, have;
@@ -291,6 +298,12 @@ open_any(const char *path, int state)
 	o->tmp = cw_malloc(len);
 	snprintf(o->tmp, len, "%.*s.%.*s%s", (int)(base - target), target,
 	    (int)keep, base, OUTF_SUFFIX);
+	/*
+	 * No signal between making the temporary and marking it live: the
+	 * handler removes only the temporaries of live slots.
+	 */
+	sigfillset(&all);
+	sigprocmask(SIG_BLOCK, &all, &omask);
 	fd = mkstemp(o->tmp);
 	if (fd < 0)
 		cw_die(CW_EXIT_DATA, "%s: cannot create a temporary file: %s",
@@ -309,6 +322,7 @@ open_any(const char *path, int state)
 	}
 	o->path = target;
 	free(dir);
+	sigprocmask(SIG_SETMASK, &omask, NULL);
 	o->fp = fdopen(fd, "w");
 	if (o->fp == NULL)
 		cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));

@@ -54,6 +54,9 @@ static const double site_sun[8] = {
 	0.0, 0.9, 0.5, 1.0, 0.3, 0.7, 0.6, 1.0
 };
 #define SITE_NOCUTOFF 7
+/* First random stream of the capacity fade and gauge drift draws: far
+ * above the physics and fault streams of any fleet (2 i + 1, 2 i + 2). */
+#define SYNTH_CAP_STREAM (1ULL << 62)
 
 struct synth_fleet {
 	struct synth_conf c;
@@ -82,6 +85,7 @@ static void mc_end(struct synth_fleet *, struct synth_dev *, cw_time, int);
 static void ev_close(struct synth_fleet *, struct synth_dev *);
 static int zone_of(double);
 static int cmp_phase(const void *, const void *);
+static void swing(struct synth_truth *, double, int);
 
 /* Random numbers. */
 
@@ -198,6 +202,7 @@ synth_pack_init(struct synth_pack *p, double cap_ah, double r0_ref,
 	memset(p, 0, sizeof(*p));
 	p->soc = 1.0;
 	p->cap_ah = cap_ah;
+	p->cap0_ah = cap_ah;
 	p->r0_ref = r0_ref;
 	p->r1_ref = r1_ref;
 	p->tau1_s = tau1_s;
@@ -267,6 +272,16 @@ synth_pack_step(struct synth_pack *p, double i_a, double dt,
 	if (i_a > 0 && p->temp_c < 10.0)
 		p->growth += p->k_cold * dq / p->cap_ah *
 		    (10.0 - p->temp_c) / 10.0;
+	/* The capacity fades by the same stresses, and its SoC is a
+	 * fraction of what is left. */
+	p->fade += fa * (p->kf_cal * (0.3 + 0.7 * s * s) * dt +
+	    p->kf_cyc * dq / (2.0 * p->cap0_ah));
+	if (i_a > 0 && p->temp_c < 10.0)
+		p->fade += p->kf_cold * dq / p->cap0_ah *
+		    (10.0 - p->temp_c) / 10.0;
+	if (p->fade > 0.9)
+		p->fade = 0.9;
+	p->cap_ah = p->cap0_ah * (1.0 - p->fade);
 	p->soc += i_a * dt / (3600.0 * p->cap_ah);
 	p->v_rc = vrc;
 	p->temp_c = tinf + (p->temp_c - tinf) * et;
@@ -512,7 +527,7 @@ struct synth_fleet *
 synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
 {
 	struct synth_fleet *f = cw_calloc(1, sizeof(*f));
-	struct synth_rng wr;
+	struct synth_rng wr, cr;
 	double cur[SYNTH_NPROFILE] = { 0 }, total = 0;
 	long i, k, w, ndock = 0;
 	int p, best;
@@ -584,6 +599,14 @@ synth_fleet_new(const struct synth_conf *c, const struct synth_hooks *h)
 		d->g_gain = synth_rng_range(r, -0.015, 0.015);
 		d->g_off = 0.003 * synth_rng_gauss(r);
 		d->phase_s = (long)(synth_rng_unif(r) * (double)c->period_s);
+		/* Capacity fade and the gauge's drift draw from a stream of
+		 * their own, so the draws above keep their values. */
+		synth_rng_seed(&cr, c->seed, SYNTH_CAP_STREAM + (uint64_t)i);
+		d->pack.kf_cal = a * 0.025 / (30 * 86400.0) *
+		    synth_rng_range(&cr, 0.8, 1.2);
+		d->pack.kf_cyc = a * 0.002 * synth_rng_range(&cr, 0.8, 1.2);
+		d->pack.kf_cold = a * 0.005 * synth_rng_range(&cr, 0.8, 1.2);
+		d->g_drift = synth_rng_range(&cr, -0.8, 0.8) / 86400.0;
 		if (d->profile == SYNTH_DEEP)
 			d->site = 0;
 		else if (d->profile == SYNTH_NOCUTOFF)
@@ -680,7 +703,7 @@ synth_fleet_day(struct synth_fleet *f, long day)
 		dev_env(f, d, &e);
 		d->pack.temp_c = e.amb_c + e.gain_w / e.ua;
 		d->pack.v = SYNTH_CELLS * synth_ocv_cell(d->pack.soc);
-		d->g_deficit = (1.0 - d->pack.soc) * SYNTH_CAP_AH;
+		d->g_deficit = (1.0 - d->pack.soc) * d->pack.cap_ah;
 		d->tr.soc_start = 100.0 * d->pack.soc;
 		d->tr.peak_soc = d->tr.soc_start;
 	}
@@ -707,6 +730,12 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 
 	if (loc == d->loc)
 		return;
+	if (d->loc == SYNTH_RIDING) {
+		d->rd.end = t;
+		d->rd.to_charger = is_ch;
+		if (f->h.ride != NULL)
+			f->h.ride(f->h.ctx, d, &d->rd);
+	}
 	if (was_ch) {
 		if (d->mc_on)
 			mc_end(f, d, t, 0);
@@ -720,6 +749,9 @@ enter(struct synth_fleet *f, struct synth_dev *d, int loc, cw_time t)
 		d->tr.plugins++;
 	}
 	if (loc == SYNTH_RIDING) {
+		d->rd.start = t;
+		d->rd.soc_start = d->rd.soc_min = 100.0 * d->pack.soc;
+		d->rd.from_charger = was_ch;
 		d->tr.rides++;
 		d->ride_mean = d->seg[d->cur].mean_a;
 		d->ride_left = 0;
@@ -834,6 +866,9 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 		    3600.0;
 		if (d->g_deficit < 0)
 			d->g_deficit = 0;
+		d->g_bias += d->g_drift * h;
+		if (d->loc == SYNTH_RIDING && 100.0 * p->soc < d->rd.soc_min)
+			d->rd.soc_min = 100.0 * p->soc;
 		if (d->mc_on) {
 			if (p->soc < d->mc_low)
 				d->mc_low = p->soc;
@@ -841,8 +876,10 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 				d->mc.ah += i * h / 3600.0;
 		}
 		if (ev == 1 || ev == 3) {
-			if (ev == 1)
+			if (ev == 1) {
 				d->g_deficit = 0;
+				d->g_bias = 0;
+			}
 			if (d->mc_on)
 				mc_end(f, d, t, 1);
 			d->held = 1;
@@ -870,7 +907,9 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 	    0.5);
 	s->dk = (long)floor((t_c + SYNTH_T0_K) * 10.0 +
 	    synth_rng_gauss(&d->rng) + 0.5);
-	gs = 100.0 * (1.0 - d->g_deficit / SYNTH_CAP_AH);
+	/* Its count over the pack's true capacity now (a gauge that has
+	 * learnt it), plus its drift since the last full-charge reset. */
+	gs = 100.0 * (1.0 - d->g_deficit / p->cap_ah) + d->g_bias;
 	gs = gs < 0 ? 0 : gs > 100 ? 100 : gs;
 	s->soc10 = d->gauge_int ? 10 * (long)floor(gs + 0.5) :
 	    (long)floor(gs * 10.0 + 0.5);
@@ -878,8 +917,10 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 	/* The truth, in the rows' convention (charge.h). */
 	t0 = d->have_prev ? d->prev_t : t - (cw_time)f->c.period_s *
 	    CW_US_PER_S;
-	if (!d->have_prev)
+	if (!d->have_prev) {
 		d->tr.first = t;
+		d->tr.cap_first = p->cap_ah;
+	}
 	d->have_prev = 1;
 	d->prev_t = t;
 	d->tr.last = t;
@@ -898,6 +939,7 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 		d->tr.peak_soc = soc_pct;
 	if (d->tr.peak_soc - soc_pct > d->tr.max_depth)
 		d->tr.max_depth = d->tr.peak_soc - soc_pct;
+	swing(&d->tr, soc_pct, 0);
 	if (d->ev_on && t0 - d->ev.end > EV_MERGE)
 		ev_close(f, d);
 	z = zone_of(t_c);
@@ -922,6 +964,38 @@ synth_fleet_sample(struct synth_fleet *f, struct synth_dev *d, long slot,
 	}
 }
 
+/*
+ * Follow the true SoC S (percent) through its turning points: a run ends
+ * when S comes back one point from its extreme, and counts in swings20
+ * when it spans 20 points.  LAST: the end of the log closes the run.
+ */
+static void
+swing(struct synth_truth *tr, double s, int last)
+{
+	if (tr->rows == 1) {
+		tr->sw_from = tr->sw_ext = tr->soc_start;
+		tr->sw_dir = 0;
+	}
+	if (!last && (tr->sw_dir == 0 ? fabs(s - tr->sw_from) < 1.0 :
+	    (s - tr->sw_ext) * tr->sw_dir > 0)) {
+		if (tr->sw_dir != 0)
+			tr->sw_ext = s;
+		return;
+	}
+	if (!last && tr->sw_dir == 0) {
+		tr->sw_dir = s > tr->sw_from ? 1 : -1;
+		tr->sw_ext = s;
+		return;
+	}
+	if (!last && (tr->sw_ext - s) * tr->sw_dir < 1.0)
+		return;
+	if (fabs(tr->sw_ext - tr->sw_from) >= 20.0)
+		tr->swings20++;
+	tr->sw_from = tr->sw_ext;
+	tr->sw_ext = s;
+	tr->sw_dir = -tr->sw_dir;
+}
+
 void
 synth_fleet_finish(struct synth_fleet *f)
 {
@@ -934,5 +1008,12 @@ synth_fleet_finish(struct synth_fleet *f)
 			ev_close(f, d);
 		if (d->mc_on)
 			mc_end(f, d, d->tr.last, 0);
+		if (d->tr.rows > 0)
+			swing(&d->tr, d->tr.soc_end, 1);
+		if (d->loc == SYNTH_RIDING && f->h.ride != NULL) {
+			d->rd.end = d->tr.last;
+			d->rd.to_charger = 0;
+			f->h.ride(f->h.ctx, d, &d->rd);
+		}
 	}
 }

@@ -70,7 +70,7 @@ struct run {
 	unsigned long line;	/* number of the next line of the day files */
 	long day, slot, rpd;
 	char daystr[16];
-	struct tfile faults, charging, topoff;
+	struct tfile faults, charging, topoff, rides;
 	struct dayrec *days;
 	struct synth_rng hrng;	/* repeated headers */
 	struct synth_stats *st;
@@ -94,6 +94,8 @@ static void on_cevent(void *, const struct synth_dev *,
 	    const struct synth_cevent *);
 static void on_topoff(void *, const struct synth_dev *,
 	    const struct synth_topoff *);
+static void on_ride(void *, const struct synth_dev *,
+	    const struct synth_ride *);
 static void write_devices(struct run *);
 static void write_days(struct run *);
 static void write_run(struct run *);
@@ -659,6 +661,22 @@ on_topoff(void *ctx, const struct synth_dev *d, const struct synth_topoff *m)
 }
 
 static void
+on_ride(void *ctx, const struct synth_dev *d, const struct synth_ride *m)
+{
+	struct run *r = ctx;
+	struct csvout *w = &r->rides.w;
+
+	csvout_strn(w, d->name, d->namelen);
+	csvout_time(w, m->start);
+	csvout_time(w, m->end);
+	csvout_fixed(w, m->soc_start, 3);
+	csvout_fixed(w, m->soc_min, 3);
+	csvout_int(w, m->from_charger);
+	csvout_int(w, m->to_charger);
+	csvout_endrow(w);
+}
+
+static void
 write_devices(struct run *r)
 {
 	struct tfile t;
@@ -676,7 +694,8 @@ write_devices(struct run *r)
 	    "efc,max_depth_pct,rides,plug_ins,hours_soc_ge_95,"
 	    "hours_temp_ge_45,cold_charge_ah,hot_charge_ah,charge_events,"
 	    "topoff_cycles,rows,lines,dup,late,stale,trunc,sentinel,gaps,"
-	    "gap_rows,jumps,jump_rows");
+	    "gap_rows,jumps,jump_rows,capacity_start_ah,capacity_end_ah,"
+	    "fade_pct,gauge_gain_pct,gauge_drift_pct_per_day,swings_20");
 	for (i = 0; i < n; i++) {
 		struct synth_dev *d = synth_fleet_dev(r->f, i);
 
@@ -694,7 +713,7 @@ write_devices(struct run *r)
 		synth_dev_site(d, site);
 		csvout_str(w, site);
 		csvout_str(w, d->gauge_int ? "int" : "tenth");
-		csvout_fixed(w, p->cap_ah, 4);
+		csvout_fixed(w, p->cap0_ah, 4);
 		csvout_fixed(w, p->r0_ref, 6);
 		csvout_fixed(w, p->r0_ref * g, 6);
 		csvout_fixed(w, p->r1_ref, 6);
@@ -710,7 +729,7 @@ write_devices(struct run *r)
 		csvout_fixed(w, tr->charge_ah, 4);
 		csvout_fixed(w, tr->discharge_ah, 4);
 		csvout_fixed(w, (tr->charge_ah + tr->discharge_ah) /
-		    (2.0 * p->cap_ah), 4);
+		    (2.0 * p->cap0_ah), 4);
 		csvout_fixed(w, tr->max_depth, 3);
 		csvout_int(w, (long long)tr->rides);
 		csvout_int(w, (long long)tr->plugins);
@@ -728,6 +747,12 @@ write_devices(struct run *r)
 		csvout_int(w, (long long)tr->gap_rows);
 		csvout_int(w, (long long)tr->fault[SYNTH_F_JUMP]);
 		csvout_int(w, (long long)tr->jump_rows);
+		csvout_fixed(w, tr->cap_first, 4);
+		csvout_fixed(w, p->cap_ah, 4);
+		csvout_fixed(w, 100.0 * (1.0 - p->cap_ah / tr->cap_first), 4);
+		csvout_fixed(w, 100.0 * d->g_gain, 4);
+		csvout_fixed(w, 86400.0 * d->g_drift, 4);
+		csvout_int(w, (long long)tr->swings20);
 		csvout_endrow(w);
 	}
 	free(v);
@@ -802,13 +827,19 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	r.st = st;
 	h.cevent = on_cevent;
 	h.topoff = on_topoff;
+	h.ride = on_ride;
 	h.ctx = &r;
 	r.f = synth_fleet_new(c, &h);
 	r.rpd = synth_fleet_rows_per_day(r.f);
 	n = synth_fleet_ndev(r.f);
-	/* Late: within 45 s; stale: 90 s to 10 min, and a period past 60 s. */
-	r.late_kmax = (long)(45.0 / per);
-	r.stale_kmin = (long)ceil((per > 15 ? 60.0 + 2 * per : 90.0) / per);
+	/*
+	 * Late: 1 to 60 s, the reorder window of cw-clean inclusive; stale:
+	 * the first period past 60 s to 10 min.  The two meet at the window,
+	 * so a window a period shorter or longer than 60 s is told apart
+	 * (tests/ref/synth_truth_clean.sh).
+	 */
+	r.late_kmax = (long)(60.0 / per);
+	r.stale_kmin = r.late_kmax + 1;
 	r.stale_kmax = (long)(600.0 / per);
 	if (r.stale_kmax < r.stale_kmin)
 		r.stale_kmax = r.stale_kmin;
@@ -828,6 +859,8 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	    "soc_start_pct,soc_end_pct,charger,site");
 	tf_open(&r, &r.topoff, "truth-topoff.csv",
 	    "device,start,restart,end,depth_pct,charge_ah,completed");
+	tf_open(&r, &r.rides, "truth-rides.csv", "device,start,end,"
+	    "soc_start_pct,soc_min_pct,from_charger,to_charger");
 	for (r.day = 0; r.day < c->ndays; r.day++) {
 		unsigned long before = 0;
 
@@ -865,7 +898,8 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 		st->lines += r.line - 1;
 		if (csvout_flush(&r.faults.w) != 0 ||
 		    csvout_flush(&r.charging.w) != 0 ||
-		    csvout_flush(&r.topoff.w) != 0)
+		    csvout_flush(&r.topoff.w) != 0 ||
+		    csvout_flush(&r.rides.w) != 0)
 			cw_die(CW_EXIT_DATA, "%s: cannot write the truth files",
 			    c->outdir);
 	}
@@ -873,6 +907,7 @@ synth_write(const struct synth_conf *c, struct synth_stats *st)
 	tf_close(&r.faults);
 	tf_close(&r.charging);
 	tf_close(&r.topoff);
+	tf_close(&r.rides);
 	write_devices(&r);
 	write_days(&r);
 	write_run(&r);

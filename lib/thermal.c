@@ -14,7 +14,8 @@ static int	out_side(const struct thermal_conf *c, int kind, int side,
 static void	ev_start(struct thermal_event *ev, int kind, int side,
 		    cw_time t0, double soc0);
 static void	ev_add(struct thermal_event *ev, const struct thermal_limits *l,
-		    cw_time t, double ah, double temp_c, double soc);
+		    cw_time t, double ah, double temp_c, double soc,
+		    double i_a, double v);
 static void	run_close(struct thermal_run *r);
 static void	run_join(struct thermal_dev *d, struct thermal_run *r);
 static void	run_flush(struct thermal_dev *d, const struct thermal_conf *c,
@@ -27,6 +28,11 @@ static const char *const zone_names[THERMAL_NZONE] = {
 };
 
 static const char *const kind_names[THERMAL_NKIND] = { "charge", "use" };
+
+static const char *const protocol_names[THERMAL_NPROTO] = {
+	"within", "over-current", "over-voltage", "no-charge-allowed",
+	"unknown"
+};
 
 void
 thermal_limits_default(struct thermal_limits *l)
@@ -97,6 +103,38 @@ thermal_kind_name(int kind)
 	return kind_names[kind];
 }
 
+const char *
+thermal_protocol_name(int protocol)
+{
+	if (protocol < 0 || protocol >= THERMAL_NPROTO)
+		return "?";
+	return protocol_names[protocol];
+}
+
+int
+thermal_protocol(const struct thermal_conf *c, const struct thermal_event *ev,
+    double cap_ah, int cells)
+{
+	switch (ev->zone) {
+	case THERMAL_BELOW_MIN:
+	case THERMAL_ABOVE_MAX:
+		return THERMAL_P_NO_CHARGE;
+	case THERMAL_COOL:
+		if (!(cap_ah > 0) || !cw_isnum(ev->i_max))
+			return THERMAL_P_UNKNOWN;
+		return ev->i_max > c->cool_rate * cap_ah *
+		    (1.0 + c->cool_margin / 100.0) ? THERMAL_P_OVER_CURRENT :
+		    THERMAL_P_WITHIN;
+	case THERMAL_WARM:
+		if (cells < 1 || !cw_isnum(ev->v_max))
+			return THERMAL_P_UNKNOWN;
+		return ev->v_max / cells > c->warm_v + c->warm_margin ?
+		    THERMAL_P_OVER_VOLTAGE : THERMAL_P_WITHIN;
+	default:
+		return THERMAL_P_WITHIN;
+	}
+}
+
 void
 thermal_conf_default(struct thermal_conf *c)
 {
@@ -106,6 +144,10 @@ thermal_conf_default(struct thermal_conf *c)
 	c->min_duration = 60 * CW_US_PER_S;
 	c->merge = 2 * 60 * CW_US_PER_S;
 	c->max_gap = CHARGE_MAX_GAP;
+	c->cool_rate = THERMAL_COOL_RATE;
+	c->cool_margin = THERMAL_COOL_MARGIN;
+	c->warm_v = THERMAL_WARM_V;
+	c->warm_margin = THERMAL_WARM_MARGIN;
 }
 
 void
@@ -113,6 +155,7 @@ thermal_init(struct thermal_dev *d)
 {
 	memset(d, 0, sizeof(*d));
 	d->prev_soc = CW_MISSING;
+	d->cap_ah = CW_MISSING;
 }
 
 /* Whether current I_A makes a row part of a run of KIND. */
@@ -175,12 +218,17 @@ ev_start(struct thermal_event *ev, int kind, int side, cw_time t0,
 	ev->soc_start = ev->soc_end = soc0;
 	ev->rows = 0;
 	ev->parts = 1;
+	ev->i_max = ev->v_max = CW_MISSING;
+	ev->protocol = -1;
 }
 
-/* Add the row at T, which carried AH over its interval, to EV. */
+/*
+ * Add the row at T, which carried AH over its interval at current I_A,
+ * with pack voltage V, to EV.
+ */
 static void
 ev_add(struct thermal_event *ev, const struct thermal_limits *l, cw_time t,
-    double ah, double temp_c, double soc)
+    double ah, double temp_c, double soc, double i_a, double v)
 {
 	int z;
 
@@ -202,6 +250,15 @@ ev_add(struct thermal_event *ev, const struct thermal_limits *l, cw_time t,
 		if (!cw_isnum(ev->soc_start))
 			ev->soc_start = soc;
 		ev->soc_end = soc;
+	}
+	/* The protocol applies to the rows outside the window, not to the
+	 * rows of the hysteresis band. */
+	if (ev->kind == THERMAL_CHARGE &&
+	    thermal_zone_of(l, temp_c) != THERMAL_NORMAL) {
+		if (cw_isnum(i_a) && !(i_a <= ev->i_max))
+			ev->i_max = i_a;
+		if (cw_isnum(v) && !(v <= ev->v_max))
+			ev->v_max = v;
 	}
 	ev->rows++;
 }
@@ -248,7 +305,7 @@ static void
 run_flush(struct thermal_dev *d, const struct thermal_conf *c,
     struct thermal_run *r)
 {
-	const struct thermal_event *ev = &r->pend;
+	struct thermal_event *ev = &r->pend;
 
 	r->pending = 0;
 	if (ev->end - ev->start < c->min_duration) {
@@ -256,6 +313,10 @@ run_flush(struct thermal_dev *d, const struct thermal_conf *c,
 		return;
 	}
 	d->events[ev->kind][ev->zone]++;
+	if (ev->kind == THERMAL_CHARGE) {
+		ev->protocol = thermal_protocol(c, ev, d->cap_ah, d->cells);
+		d->protocol[ev->protocol]++;
+	}
 	if (c->emit != NULL)
 		c->emit(c->ctx, d, ev);
 }
@@ -281,6 +342,13 @@ gap_add(struct thermal_run *r, double ah, double temp_c, double soc)
 void
 thermal_push(struct thermal_dev *d, const struct thermal_conf *c, cw_time t,
     double i_a, double temp_c, double soc)
+{
+	thermal_push_v(d, c, t, i_a, temp_c, soc, CW_MISSING);
+}
+
+void
+thermal_push_v(struct thermal_dev *d, const struct thermal_conf *c,
+    cw_time t, double i_a, double temp_c, double soc, double v)
 {
 	struct thermal_run *r;
 	cw_time t0;
@@ -326,7 +394,7 @@ thermal_push(struct thermal_dev *d, const struct thermal_conf *c, cw_time t,
 		if (r->open && side != r->side)
 			run_close(r);
 		if (r->open) {
-			ev_add(&r->ev, &c->lim, t, ah, temp_c, soc);
+			ev_add(&r->ev, &c->lim, t, ah, temp_c, soc, i_a, v);
 			continue;
 		}
 		if (side != 0) {
@@ -340,7 +408,7 @@ thermal_push(struct thermal_dev *d, const struct thermal_conf *c, cw_time t,
 			}
 			r->open = 1;
 			r->side = side;
-			ev_add(&r->ev, &c->lim, t, ah, temp_c, soc);
+			ev_add(&r->ev, &c->lim, t, ah, temp_c, soc, i_a, v);
 			continue;
 		}
 		if (r->pending) {

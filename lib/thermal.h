@@ -26,6 +26,16 @@
  * before its first row, unless that interval is longer than the gap limit.
  * Events closer than the merge time are joined, then events shorter than
  * the minimum duration are dropped.
+ *
+ * Charge events are then judged by the charge protocol of the JEITA
+ * scheme: in the cool zone the charge current should be reduced (to at
+ * most COOL_RATE times the capacity), in the warm zone the charge voltage
+ * (to at most WARM_V per cell); below-min and above-max allow no charging
+ * at all.  The default values, 0.5 C and 4.10 V, are from memory of the
+ * guideline as charger ICs commonly implement it; the cell maker's data
+ * sheet rules.  The margins (5 % of the current, 0.02 V per cell) leave
+ * room for the gauge's and the charger's accuracy: common practice, no
+ * source.
  */
 #ifndef THERMAL_H
 #define THERMAL_H
@@ -86,6 +96,24 @@ enum thermal_kind { THERMAL_CHARGE, THERMAL_USE, THERMAL_NKIND };
 /* "charge" or "use". */
 const char *thermal_kind_name(int kind);
 
+/* The verdict on a charge event (thermal_protocol()). */
+enum thermal_protocol {
+	THERMAL_P_WITHIN, THERMAL_P_OVER_CURRENT, THERMAL_P_OVER_VOLTAGE,
+	THERMAL_P_NO_CHARGE, THERMAL_P_UNKNOWN, THERMAL_NPROTO
+};
+
+/* Defaults of the protocol (see the top of this file). */
+#define THERMAL_COOL_RATE 0.5
+#define THERMAL_WARM_V 4.10
+#define THERMAL_COOL_MARGIN 5.0
+#define THERMAL_WARM_MARGIN 0.02
+
+/*
+ * "within", "over-current", "over-voltage", "no-charge-allowed",
+ * "unknown"; "?" otherwise.
+ */
+const char *thermal_protocol_name(int protocol);
+
 /*
  * One event.  ZONE is the most severe zone reached; for use events it is
  * THERMAL_BELOW_MIN (colder than use_lo) or THERMAL_ABOVE_MAX (hotter than
@@ -102,6 +130,15 @@ struct thermal_event {
 	double soc_start, soc_end;
 	unsigned long rows;	/* rows inside the event, merged gaps too */
 	unsigned long parts;	/* runs merged into it, 1 when none */
+	/*
+	 * Charge events: the highest current and pack voltage of the rows
+	 * of its runs outside T2..T3 (not of the rows of the hysteresis
+	 * band, nor of those between merged parts), NaN when none was
+	 * known, and the verdict, an enum thermal_protocol, set before
+	 * the event is emitted; use events: NaN, NaN, -1.
+	 */
+	double i_max, v_max;
+	int protocol;
 };
 
 struct thermal_dev;
@@ -118,12 +155,19 @@ struct thermal_conf {
 	cw_time merge;		/* events at most this far apart are joined;
 				   0: never */
 	cw_time max_gap;	/* a longer interval ends an event */
+	double cool_rate;	/* C-rate allowed in the cool zone */
+	double cool_margin;	/* percent of it allowed above */
+	double warm_v;		/* V per cell allowed in the warm zone */
+	double warm_margin;	/* V per cell allowed above */
 	void	(*emit)(void *ctx, struct thermal_dev *dev,
 		    const struct thermal_event *ev);
 	void	*ctx;
 };
 
-/* Defaults: thermal_limits_default(), 0.05 A, 60 s, 2 min, 15 min. */
+/*
+ * Defaults: thermal_limits_default(), 0.05 A, 60 s, 2 min, 15 min, and
+ * the protocol's (THERMAL_COOL_RATE ...).
+ */
 void	thermal_conf_default(struct thermal_conf *c);
 
 /* The state of one kind of run; private to thermal.c. */
@@ -160,14 +204,32 @@ struct thermal_dev {
 	unsigned long events[THERMAL_NKIND][THERMAL_NZONE];	/* emitted */
 	unsigned long short_dropped;	/* shorter than min_duration */
 	unsigned long merges;		/* joins made */
+	/* The pack, for the protocol: set after thermal_init(). */
+	double cap_ah;			/* rated capacity; NaN or 0: unknown */
+	int cells;			/* in series; 0: unknown */
+	unsigned long protocol[THERMAL_NPROTO];	/* charge events emitted */
 };
 
+/* All-zero but for the SoC, capacity and cells, which are unknown. */
 void	thermal_init(struct thermal_dev *d);
 /*
- * One row: time T (not before the previous row's), current I_A (positive
- * while charging), TEMP_C and SOC (either may be NaN).  Finished events
- * go to C->emit.
+ * The verdict of the protocol on charge event EV of a pack of CAP_AH
+ * (NaN or not above 0: unknown) and CELLS (0: unknown): an enum
+ * thermal_protocol.  below-min and above-max: no-charge-allowed; cool:
+ * over-current when i_max is above cool_rate * cap_ah plus the margin;
+ * warm: over-voltage when v_max / cells is above warm_v plus the margin;
+ * unknown when what the zone needs is not known.
  */
+int	thermal_protocol(const struct thermal_conf *c,
+	    const struct thermal_event *ev, double cap_ah, int cells);
+/*
+ * One row: time T (not before the previous row's), current I_A (positive
+ * while charging), TEMP_C, SOC and pack voltage V (any may be NaN).
+ * Finished events go to C->emit.  thermal_push() is the same without a
+ * voltage.
+ */
+void	thermal_push_v(struct thermal_dev *d, const struct thermal_conf *c,
+	    cw_time t, double i_a, double temp_c, double soc, double v);
 void	thermal_push(struct thermal_dev *d, const struct thermal_conf *c,
 	    cw_time t, double i_a, double temp_c, double soc);
 /* The end of the device's rows: finish and emit what is open. */

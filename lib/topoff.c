@@ -11,7 +11,9 @@ static void	hold_begin(struct topoff *st, int sig, cw_time t, double x,
 		    int rest);
 static void	hold_end(struct topoff *st, const struct topoff_conf *c);
 static void	hold_row(struct topoff *st, const struct topoff_conf *c,
-		    cw_time t, double x, int chg, int rest, double ah);
+		    cw_time t, double x, int chg, int rest, int use, double ah);
+static int	use_row(const struct topoff *st, const struct topoff_conf *c,
+		    int sig, cw_time t, double x, double i_a);
 static void	peak_reset(struct topoff *st, cw_time t, double x, int rest);
 static int	recovered(const struct topoff *st);
 static void	cycle_emit(struct topoff *st, const struct topoff_conf *c);
@@ -25,6 +27,8 @@ topoff_conf_default(struct topoff_conf *c)
 	c->min_depth = TOPOFF_MIN_DEPTH;
 	c->min_current = TOPOFF_MIN_CURRENT;
 	c->max_gap = CHARGE_MAX_GAP;
+	c->standby_a = TOPOFF_STANDBY_A;
+	c->standby_fall = TOPOFF_STANDBY_FALL;
 }
 
 void
@@ -32,6 +36,8 @@ topoff_init(struct topoff *st)
 {
 	memset(st, 0, sizeof(*st));
 	st->phase = TOPOFF_OUT;
+	st->standby_a = CW_MISSING;
+	st->standby_fall = CW_MISSING;
 }
 
 /* Start watching for a drop from level X at time T. */
@@ -46,6 +52,7 @@ peak_reset(struct topoff *st, cw_time t, double x, int rest)
 	st->dropped = 0;
 	st->recharged = 0;
 	st->cyc_ah = 0.0;
+	st->used = 0;
 }
 
 static void
@@ -81,6 +88,13 @@ cycle_emit(struct topoff *st, const struct topoff_conf *c)
 	cy.trough = st->trough;
 	cy.depth = st->peak - st->trough;
 	cy.charge_ah = st->cyc_ah;
+	cy.use = st->used;
+	if (cy.use) {
+		st->hold.use_dips++;
+		if (c->on_use != NULL)
+			c->on_use(c->ctx, st, &cy);
+		return;
+	}
 	st->hold.cycles++;
 	st->hold.depth_sum += cy.depth;
 	if (cy.depth > st->hold.depth_max)
@@ -112,17 +126,43 @@ hold_end(struct topoff *st, const struct topoff_conf *c)
 	if (h->depth_max > tot->depth_max)
 		tot->depth_max = h->depth_max;
 	tot->topoff_ah += h->topoff_ah;
+	tot->use_dips += h->use_dips;
 	if (c->on_hold != NULL)
 		c->on_hold(c->ctx, st, h);
 }
 
 /*
+ * Whether a row at time T with level X of signal SIG (NaN: none of its
+ * own) and current I_A is a use row (topoff.h); called before the row's
+ * level replaces the last one.
+ */
+static int
+use_row(const struct topoff *st, const struct topoff_conf *c, int sig,
+    cw_time t, double x, double i_a)
+{
+	double sa, fall;
+
+	sa = cw_isnum(st->standby_a) ? st->standby_a : c->standby_a;
+	if (cw_isnum(i_a))
+		return i_a < -sa;
+	fall = cw_isnum(st->standby_fall) ? st->standby_fall :
+	    c->standby_fall;
+	if (st->phase == TOPOFF_OUT || sig != TOPOFF_SOC ||
+	    st->hold.signal != TOPOFF_SOC || !cw_isnum(x) ||
+	    !(x < st->lvl - TOPOFF_EPS) || t <= st->lvl_since)
+		return 0;
+	return (st->lvl - x) * 3600.0 * CW_US_PER_S >
+	    fall * (double)(t - st->lvl_since);
+}
+
+/*
  * A row inside the hold at level X (its own or the carried one); CHG and
- * REST tell whether it charges or rests, AH is its charge.
+ * REST tell whether it charges or rests, USE whether it is a use row, AH
+ * is its charge.
  */
 static void
 hold_row(struct topoff *st, const struct topoff_conf *c, cw_time t,
-    double x, int chg, int rest, double ah)
+    double x, int chg, int rest, int use, double ah)
 {
 	struct topoff_hold *h = &st->hold;
 	int top;
@@ -152,8 +192,12 @@ hold_row(struct topoff *st, const struct topoff_conf *c, cw_time t,
 			st->chg_t = t;
 			return;
 		}
-		if (!rest)
-			return;		/* current unknown: wait */
+		if (!rest) {
+			/* Current unknown: wait. */
+			if (use)
+				st->used = 1;
+			return;
+		}
 		if (recovered(st)) {
 			cycle_emit(st, c);
 			peak_reset(st, st->rise_t, st->rise, 1);
@@ -182,8 +226,12 @@ hold_row(struct topoff *st, const struct topoff_conf *c, cw_time t,
 		st->phase = TOPOFF_RECHARGE;
 		st->cyc_ah += ah;
 		st->chg_t = t;
-	} else if (x >= st->peak)
+	} else if (x >= st->peak) {
 		peak_reset(st, t, x, rest);
+		return;
+	}
+	if (use)
+		st->used = 1;
 }
 
 void
@@ -191,7 +239,7 @@ topoff_push(struct topoff *st, const struct topoff_conf *c, cw_time t,
     double v, double i_a, double soc)
 {
 	double x, ah = 0.0;
-	int sig, inb, chg, rest, gap;
+	int sig, inb, chg, rest, gap, use;
 
 	st->tot.rows++;
 	gap = st->have_row && t - st->row_t > c->max_gap;
@@ -220,7 +268,8 @@ topoff_push(struct topoff *st, const struct topoff_conf *c, cw_time t,
 		    t - st->lvl_t <= c->max_gap) {
 			st->tot.carried++;
 			st->hold.carried++;
-			hold_row(st, c, t, st->lvl, chg, rest, ah);
+			hold_row(st, c, t, st->lvl, chg, rest,
+			    use_row(st, c, 0, t, CW_MISSING, i_a), ah);
 			return;
 		}
 		if (st->phase != TOPOFF_OUT) {
@@ -232,6 +281,9 @@ topoff_push(struct topoff *st, const struct topoff_conf *c, cw_time t,
 		return;
 	}
 
+	use = !gap && use_row(st, c, sig, t, x, i_a);
+	if (st->phase == TOPOFF_OUT || sig != st->hold.signal || x != st->lvl)
+		st->lvl_since = t;
 	st->lvl = x;
 	st->lvl_t = t;
 	if (st->phase != TOPOFF_OUT &&
@@ -245,7 +297,7 @@ topoff_push(struct topoff *st, const struct topoff_conf *c, cw_time t,
 	if (st->phase == TOPOFF_OUT)
 		hold_begin(st, sig, t, x, rest);
 	else
-		hold_row(st, c, t, x, chg, rest, ah);
+		hold_row(st, c, t, x, chg, rest, use, ah);
 }
 
 void

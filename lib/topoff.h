@@ -33,6 +33,24 @@
  *
  * and it ends at the last charging row of the recharge, that is when a
  * row with current at or below min_current follows, or when the hold ends.
+ *
+ * A dip so found is a top-off micro-cycle only when standby drain or
+ * self-discharge made it; a dip driven by use (the pack taken off the
+ * charger for a ride, its lights or motor on) is a use dip, counted apart
+ * and passed to on_use instead of on_cycle.  A dip is a use dip when a row
+ * after its peak (up to the end of its recharge) is a use row:
+ *
+ *	- a row with a current discharges more than the standby level,
+ *	  I < -standby_a;
+ *	- a row of a SoC hold without a current, whose SoC is below the
+ *	  previous SoC, is a use row when the SoC fell faster than
+ *	  standby_fall percent per hour, timed from the first row that
+ *	  showed the previous SoC to this row (so that the whole-percent
+ *	  steps of a coarse gauge are timed over the time they took, not
+ *	  over one interval).  Voltage holds have no such fallback: a
+ *	  voltage relaxing after the charge falls fast without any use.
+ *
+ * A new peak starts the judgement over.
  * A new peak (the level at or above the peak) before step 3 starts over.
  * Step 1 keeps noise during the main charge from counting; step 4 keeps
  * regenerative braking or a brief plug-in during use from counting.  A
@@ -58,6 +76,16 @@
 #define TOPOFF_FULL_PCT		95.0
 #define TOPOFF_MIN_DEPTH	0.5
 #define TOPOFF_MIN_CURRENT	0.05
+/*
+ * Standby level: discharge up to this is standby drain (the pack's own
+ * electronics, a dock's load), more is use.  0.5 A is above the standby
+ * draw of light-vehicle packs and below any ride (common practice, no
+ * source).  The fall rate, percent of SoC per hour, is the fallback for
+ * rows without a current: 5 %/h is 0.7 A on a 14 Ah pack (common
+ * practice, no source).
+ */
+#define TOPOFF_STANDBY_A	0.5
+#define TOPOFF_STANDBY_FALL	5.0
 /* A SoC at or above this counts as "at 100 %" (an integer gauge's 100). */
 #define TOPOFF_AT_TOP_PCT	99.5
 
@@ -72,6 +100,7 @@ struct topoff_cycle {
 	double trough;		/* lowest level of the drop */
 	double depth;		/* peak - trough */
 	double charge_ah;	/* charge of the recharge */
+	int use;		/* a use dip, not a top-off micro-cycle */
 };
 
 /* One hold, as emitted when it ends. */
@@ -90,6 +119,7 @@ struct topoff_hold {
 	 * half); 0 for voltage holds, which cannot tell.
 	 */
 	cw_time at_top2;
+	unsigned long use_dips;	/* dips driven by use, not in CYCLES */
 };
 
 /* Sums over every hold the state has emitted. */
@@ -105,6 +135,7 @@ struct topoff_totals {
 	unsigned long unjudged;	/* rows with no level, outside holds */
 	unsigned long carried;	/* rows with no level that kept one */
 	unsigned long gaps;	/* holds ended by an interval > max_gap */
+	unsigned long use_dips;	/* dips driven by use */
 };
 
 struct topoff;
@@ -112,9 +143,11 @@ struct topoff;
 /*
  * The settings.  FULL_V: volts, or NaN (CW_MISSING) for SoC only.
  * MIN_DEPTH: percent, > 0.  MIN_CURRENT: A, >= 0.  MAX_GAP: us, > 0.
- * ON_HOLD and ON_CYCLE (either may be NULL) receive every hold and every
- * micro-cycle with CTX and the state they come from; a micro-cycle is
- * emitted before the hold that holds it.
+ * STANDBY_A: A, >= 0; STANDBY_FALL: percent per hour, > 0 (a device's
+ * own values in struct topoff, when set, override them).  ON_HOLD,
+ * ON_CYCLE and ON_USE (any may be NULL) receive every hold, every top-off
+ * micro-cycle and every use dip with CTX and the state they come from; a
+ * dip is emitted before the hold that holds it.
  */
 struct topoff_conf {
 	double full_pct;
@@ -122,14 +155,19 @@ struct topoff_conf {
 	double min_depth;
 	double min_current;
 	cw_time max_gap;
+	double standby_a;
+	double standby_fall;
 	void	(*on_hold)(void *ctx, struct topoff *st,
 		    const struct topoff_hold *h);
 	void	(*on_cycle)(void *ctx, struct topoff *st,
 		    const struct topoff_cycle *c);
+	void	(*on_use)(void *ctx, struct topoff *st,
+		    const struct topoff_cycle *c);
 	void	*ctx;
 };
 
-/* Defaults: 95 %, no full voltage, 0.5 %, 0.05 A, 15 min, no callbacks. */
+/* Defaults: 95 %, no full voltage, 0.5 %, 0.05 A, 15 min, standby 0.5 A
+ * and 5 %/h, no callbacks. */
 void	topoff_conf_default(struct topoff_conf *c);
 
 enum topoff_phase { TOPOFF_OUT, TOPOFF_WATCH, TOPOFF_RECHARGE };
@@ -156,6 +194,10 @@ struct topoff {
 	cw_time rise_t;
 	cw_time chg_t;		/* last charging row of the recharge */
 	double cyc_ah;		/* charge of the recharge so far */
+	int used;		/* a use row came after the peak */
+	cw_time lvl_since;	/* first row that showed LVL */
+	/* This device's standby level and fall rate; NaN: the conf's. */
+	double standby_a, standby_fall;
 	struct topoff_totals tot;
 };
 

@@ -19,6 +19,7 @@ static void on_cycle(void *, const struct rf_cycle *);
 static void on_topoff(void *, struct topoff *, const struct topoff_cycle *);
 static double time_above(double, double, double, double);
 static double maxd(double, double);
+static double form(const struct model_eval *, int);
 static void charge_span(struct wear_acc *, const struct wear_conf *,
     cw_time, cw_time, double, double);
 static void soc_span(struct wear_acc *, const struct wear_conf *, cw_time,
@@ -45,6 +46,21 @@ static double
 maxd(double a, double b)
 {
 	return a > b ? a : b;
+}
+
+/* Form K (WEAR_FULL ...) of E. */
+static double
+form(const struct model_eval *e, int k)
+{
+	switch (k) {
+	case WEAR_REF:
+		return e->ref;
+	case WEAR_SOC:
+		return e->soc;
+	case WEAR_TEMP:
+		return e->temp;
+	}
+	return e->full;
 }
 
 /*
@@ -134,6 +150,7 @@ on_cycle(void *ctx, const struct rf_cycle *cy)
 	struct cyc_ctx *x = ctx;
 	struct wear_acc *a = &x->d->acc;
 	struct model_eval e;
+	int k;
 
 	rf_sum_add(&a->rf, cy);
 	if (!cw_isnum(cy->aux_mean)) {
@@ -142,10 +159,8 @@ on_cycle(void *ctx, const struct rf_cycle *cy)
 	}
 	x->c->model->cycle(cy->range / 100.0, cy->mean / 100.0, cy->aux_mean,
 	    &e);
-	a->cyc[WEAR_FULL] += cy->count * e.full;
-	a->cyc[WEAR_SOC_CAPPED] += cy->count * e.soc_capped;
-	a->cyc[WEAR_TEMP_CAPPED] += cy->count * e.temp_capped;
-	a->cyc[WEAR_DEPTH_ONLY] += cy->count * e.depth_only;
+	for (k = 0; k < WEAR_NFORM; k++)
+		a->cyc[k] += cy->count * form(&e, k);
 }
 
 /* Charge of current I_A over (T0, T1], in the zone of TEMP_C. */
@@ -177,8 +192,8 @@ soc_span(struct wear_acc *a, const struct wear_conf *c, cw_time t0,
 	dt = (double)(t1 - t0) / CW_US_PER_S;
 	a->soc_s += dt;
 	if (t1 - t0 <= c->max_gap)
-		a->soc_high_s += time_above(x0, x1, WEAR_HIGH_SOC, dt);
-	else if (x0 >= WEAR_HIGH_SOC)
+		a->soc_high_s += time_above(x0, x1, c->topoff.full_pct, dt);
+	else if (x0 >= c->topoff.full_pct)
 		a->soc_high_s += dt;
 }
 
@@ -194,8 +209,8 @@ temp_span(struct wear_acc *a, const struct wear_conf *c, cw_time t0,
 	dt = (double)(t1 - t0) / CW_US_PER_S;
 	a->temp_s += dt;
 	if (t1 - t0 <= c->max_gap)
-		a->temp_high_s += time_above(x0, x1, WEAR_HIGH_TEMP, dt);
-	else if (x0 >= WEAR_HIGH_TEMP)
+		a->temp_high_s += time_above(x0, x1, c->lim.t[2], dt);
+	else if (x0 >= c->lim.t[2])
 		a->temp_high_s += dt;
 }
 
@@ -205,23 +220,20 @@ model_span(struct wear_acc *a, const struct wear_conf *c, cw_time t0,
     const struct model_eval *r0, cw_time t1, const struct model_eval *r1)
 {
 	double dt;
+	int k;
 
 	if (t1 <= t0)
 		return;
 	dt = (double)(t1 - t0) / CW_US_PER_S;
 	a->model_s += dt;
 	if (t1 - t0 <= c->max_gap) {
-		a->cal[WEAR_FULL] += dt * (r0->full + r1->full) / 2;
-		a->cal[WEAR_SOC_CAPPED] += dt *
-		    (r0->soc_capped + r1->soc_capped) / 2;
-		a->cal[WEAR_TEMP_CAPPED] += dt *
-		    (r0->temp_capped + r1->temp_capped) / 2;
+		for (k = 0; k < WEAR_NFORM; k++)
+			a->cal[k] += dt * (form(r0, k) + form(r1, k)) / 2;
 	} else {
 		a->gaps++;
 		a->gap_s += dt;
-		a->cal[WEAR_FULL] += dt * r0->full;
-		a->cal[WEAR_SOC_CAPPED] += dt * r0->soc_capped;
-		a->cal[WEAR_TEMP_CAPPED] += dt * r0->temp_capped;
+		for (k = 0; k < WEAR_NFORM; k++)
+			a->cal[k] += dt * form(r0, k);
 	}
 }
 
@@ -657,22 +669,63 @@ wear_acc_merge(struct wear_acc *a, const struct wear_acc *b)
 	}
 }
 
-void
-wear_report(const struct wear_conf *c, const struct wear_acc *a,
-    double capacity_ah, struct wear_result *r)
+const char *
+wear_prior_name(int kind)
+{
+	static const char *const name[WEAR_PRIOR_NKIND] = { "new", "soh",
+	    "age" };
+
+	return kind >= 0 && kind < WEAR_PRIOR_NKIND ? name[kind] : "new";
+}
+
+double
+wear_prior_damage(const struct wear_conf *c, const struct wear_prior *p)
 {
 	const struct model *m = c->model;
-	struct model_eval ref;
-	double f = 0, f_soc, f_temp, f_depth, f_eol, rest, share;
-	int known_soc, known_temp, known_model;
+	struct model_eval cyc, cal;
+	double f = 0;
+
+	if (p == NULL)
+		return 0;
+	switch (p->kind) {
+	case WEAR_PRIOR_SOH:
+		/* L(f0) = 1 - SoH; a pack above its rating is taken as new. */
+		if (p->soh_pct < 100)
+			f = m->damage_at(1 - p->soh_pct / 100);
+		break;
+	case WEAR_PRIOR_AGE:
+		/* Rest and full cycles at the reference conditions. */
+		m->cycle(1.0, m->ref_soc, m->ref_temp_c, &cyc);
+		m->calendar(m->ref_soc, m->ref_temp_c, &cal);
+		if (p->age_s > 0)
+			f += c->cal_scale * cal.full * p->age_s;
+		if (p->efc > 0)
+			f += c->cycle_scale * cyc.full * p->efc;
+		break;
+	}
+	return f;
+}
+
+void
+wear_report(const struct wear_conf *c, const struct wear_acc *a,
+    const struct wear_prior *p, double capacity_ah, struct wear_result *r)
+{
+	static const char *const cause[3] = { "cycling", "high-soc", "heat" };
+	const struct model *m = c->model;
+	double f, f0, l0, soh0, f_eol, part[4], sum, sh[3], best;
+	int known_soc, known_temp, known_model, k;
 
 	r->days = r->charge_ah = r->efc = r->max_depth_pct = CW_MISSING;
-	r->hours_soc_ge_95 = r->hours_temp_ge_45 = CW_MISSING;
-	r->cold_charge_ah = r->hot_charge_ah = r->topoff_cycles = CW_MISSING;
-	r->share_cycling = r->share_high_soc = r->share_heat = CW_MISSING;
-	r->fade_pct = r->days_to_eol = r->damage = CW_MISSING;
+	r->hours_near_full = r->hours_hot = CW_MISSING;
+	r->cold_charge_ah = r->cool_charge_ah = r->hot_charge_ah = CW_MISSING;
+	r->topoff_cycles = CW_MISSING;
+	r->share_age = r->share_cycling = r->share_high_soc = CW_MISSING;
+	r->share_heat = CW_MISSING;
+	r->fade_pct = r->soh_pct = r->days_to_eol = r->damage = CW_MISSING;
 	r->max_charge_c = r->mean_charge_c = r->fade_ah = CW_MISSING;
 	r->dominant = "";
+	r->prior = wear_prior_name(p != NULL ? p->kind : WEAR_PRIOR_NEW);
+	r->damage_prior = f0 = wear_prior_damage(c, p);
 	if (!a->have)
 		return;
 
@@ -685,13 +738,13 @@ wear_report(const struct wear_conf *c, const struct wear_acc *a,
 	if (known_soc) {
 		r->efc = a->rf.range_sum / 100.0;
 		r->max_depth_pct = a->rf.max_range;
-		r->hours_soc_ge_95 = a->soc_high_s / 3600.0;
+		r->hours_near_full = a->soc_high_s / 3600.0;
 	}
 	if (known_temp) {
-		r->hours_temp_ge_45 = a->temp_high_s / 3600.0;
+		r->hours_hot = a->temp_high_s / 3600.0;
 		if (cw_isnum(r->charge_ah)) {
-			r->cold_charge_ah = a->zone_ah.zone[THERMAL_BELOW_MIN] +
-			    a->zone_ah.zone[THERMAL_COOL];
+			r->cold_charge_ah = a->zone_ah.zone[THERMAL_BELOW_MIN];
+			r->cool_charge_ah = a->zone_ah.zone[THERMAL_COOL];
 			r->hot_charge_ah = a->zone_ah.zone[THERMAL_WARM] +
 			    a->zone_ah.zone[THERMAL_ABOVE_MAX];
 		}
@@ -702,27 +755,40 @@ wear_report(const struct wear_conf *c, const struct wear_acc *a,
 	if (known_model) {
 		f = c->cycle_scale * a->cyc[WEAR_FULL] +
 		    c->cal_scale * a->cal[WEAR_FULL];
-		f_soc = c->cycle_scale * a->cyc[WEAR_SOC_CAPPED] +
-		    c->cal_scale * a->cal[WEAR_SOC_CAPPED];
-		f_temp = c->cycle_scale * a->cyc[WEAR_TEMP_CAPPED] +
-		    c->cal_scale * a->cal[WEAR_TEMP_CAPPED];
-		f_depth = c->cycle_scale * a->cyc[WEAR_DEPTH_ONLY];
 		r->damage = f;
-		r->fade_pct = 100.0 * m->fade(f);
-		if (f > 0) {
-			r->share_cycling = f_depth / f;
-			r->share_high_soc = (f - f_soc) / f;
-			r->share_heat = (f - f_temp) / f;
+		/*
+		 * The shares split the span's damage f, linear in the
+		 * stresses; the fade L(f0 + f) - L(f0) is one function of
+		 * their sum, so no share of it is any cause's alone.
+		 */
+		part[0] = c->cal_scale * a->cal[WEAR_REF];
+		part[1] = c->cycle_scale * a->cyc[WEAR_REF];
+		part[2] = c->cycle_scale * a->cyc[WEAR_SOC] +
+		    c->cal_scale * a->cal[WEAR_SOC];
+		part[3] = c->cycle_scale * a->cyc[WEAR_TEMP] +
+		    c->cal_scale * a->cal[WEAR_TEMP];
+		sum = part[0] + part[1] + part[2] + part[3];
+		if (f > 0 && sum > 0) {
+			r->share_age = part[0] / sum;
+			r->share_cycling = part[1] / sum;
+			r->share_high_soc = part[2] / sum;
+			r->share_heat = part[3] / sum;
 		}
-		/* The span's mean damage rate, held until WEAR_EOL_FADE. */
-		f_eol = m->damage_at(WEAR_EOL_FADE);
-		if (f >= f_eol)
+		l0 = m->fade(f0);
+		soh0 = p != NULL && p->kind == WEAR_PRIOR_SOH ? p->soh_pct :
+		    100 * (1 - l0);
+		r->fade_pct = 100 * (m->fade(f0 + f) - l0);
+		r->soh_pct = soh0 - r->fade_pct;
+		/* At the span's mean damage rate, until the SoH is 80 %. */
+		f_eol = m->damage_at(l0 + (soh0 - 100 * (1 - WEAR_EOL_FADE)) /
+		    100);
+		if (f0 + f >= f_eol)
 			r->days_to_eol = 0;
 		else if (f > 0 && a->model_s > 0)
-			r->days_to_eol = (f_eol - f) / (f / a->model_s) /
+			r->days_to_eol = (f_eol - f0 - f) / (f / a->model_s) /
 			    86400.0;
 		if (capacity_ah > 0)
-			r->fade_ah = capacity_ah * m->fade(f);
+			r->fade_ah = capacity_ah * r->fade_pct / 100;
 	}
 	if (capacity_ah > 0 && cw_isnum(r->charge_ah) && a->charge_s > 0) {
 		r->max_charge_c = a->max_charge_a / capacity_ah;
@@ -730,27 +796,24 @@ wear_report(const struct wear_conf *c, const struct wear_acc *a,
 		    capacity_ah;
 	}
 
-	/* The model has no plating term, so cold charge comes first. */
+	/* The model has no plating term, so cold charge comes first and
+	 * leaves no life to tell. */
 	if (cw_isnum(r->cold_charge_ah) && a->charge_ah > 0 &&
 	    r->cold_charge_ah >= WEAR_COLD_SHARE * a->charge_ah) {
 		r->dominant = "cold-charge";
+		r->days_to_eol = CW_MISSING;
 		return;
 	}
-	if (!known_model || !cw_isnum(r->share_cycling))
+	if (!cw_isnum(r->share_cycling))
 		return;
-	/* No faster than rest at the reference SoC and temperature. */
-	m->calendar(m->ref_soc, m->ref_temp_c, &ref);
-	rest = c->cal_scale * ref.full * a->model_s;
-	if (f <= rest * (1 + 1e-9)) {
-		r->dominant = "none";
-		return;
-	}
-	r->dominant = "cycling";
-	share = r->share_cycling;
-	if (r->share_high_soc > share) {
-		r->dominant = "high-soc";
-		share = r->share_high_soc;
-	}
-	if (r->share_heat > share)
-		r->dominant = "heat";
+	sh[0] = r->share_cycling;
+	sh[1] = r->share_high_soc;
+	sh[2] = r->share_heat;
+	r->dominant = "none";
+	best = WEAR_DOMINANT;
+	for (k = 0; k < 3; k++)
+		if (sh[k] >= best) {
+			best = sh[k];
+			r->dominant = cause[k];
+		}
 }

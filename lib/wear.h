@@ -63,20 +63,35 @@
 #include "thermal.h"
 #include "topoff.h"
 
-/* The fixed thresholds of the hours_soc_ge_95 and hours_temp_ge_45
- * columns (SPEC.md). */
-#define WEAR_HIGH_SOC	95.0
-#define WEAR_HIGH_TEMP	45.0
 /* End of life: 20 % fade, 80 % state of health (common practice). */
 #define WEAR_EOL_FADE	0.20
 /* cold-charge dominates at this share of all charge (SPEC.md). */
-#define WEAR_COLD_SHARE	0.02
+#define WEAR_COLD_SHARE	0.01
+/* The least share that makes a cause dominant (SPEC.md). */
+#define WEAR_DOMINANT	0.25
 /* Runs of rows of the top-off prefix a state keeps for a join, at most. */
 #define WEAR_PRE_MAX	512
 
-/* The damage sums, unscaled, in the four forms of struct model_eval. */
-enum { WEAR_FULL, WEAR_SOC_CAPPED, WEAR_TEMP_CAPPED, WEAR_DEPTH_ONLY,
-	WEAR_NFORM };
+/* The damage sums, unscaled, in the four forms of struct model_eval:
+ * the full damage and its split (reference, SoC excess, heat excess). */
+enum { WEAR_FULL, WEAR_REF, WEAR_SOC, WEAR_TEMP, WEAR_NFORM };
+
+/*
+ * What a pack had been through before its first row (SPEC.md, "Packs
+ * already in service"), from the fleet file: a measured state of health,
+ * or its time in service and its equivalent full cycles, taken at the
+ * reference conditions.  Kept as the facts, not as damage, so that the
+ * damage follows the model and its --cycle-life and --calendar-life
+ * scales (wear_prior_damage).
+ */
+enum { WEAR_PRIOR_NEW, WEAR_PRIOR_SOH, WEAR_PRIOR_AGE, WEAR_PRIOR_NKIND };
+
+struct wear_prior {
+	int kind;		/* WEAR_PRIOR_* */
+	double soh_pct;		/* measured at the first row (SOH) */
+	double age_s;		/* seconds in service before it (AGE) */
+	double efc;		/* full cycles before it (AGE) */
+};
 
 /* Totals of one device over a span: plain data, mergeable. */
 struct wear_acc {
@@ -93,8 +108,8 @@ struct wear_acc {
 	double max_charge_a;	/* highest charging current, 0 if none */
 	struct thermal_ah zone_ah;	/* charge per zone of the row's temp */
 	/* Time, seconds. */
-	double soc_s, soc_high_s;	/* covered by SoC, and at >= 95 % */
-	double temp_s, temp_high_s;	/* covered by temp, and at >= 45 C */
+	double soc_s, soc_high_s;	/* covered by SoC, and at >= full_pct */
+	double temp_s, temp_high_s;	/* covered by temp, and at >= T3 */
 	double model_s;			/* covered by the calendar term */
 	double gap_s;			/* of that, in gaps over max_gap */
 	unsigned long gaps;
@@ -173,6 +188,8 @@ struct wear_dev {
 	struct wear_run *pre;
 	unsigned long pre_cycles;	/* acc.topoff_cycles after it */
 	unsigned long pre_judged;	/* acc.topoff_judged after it */
+	/* Before the first row; a join keeps the earlier state's. */
+	struct wear_prior prior;
 };
 
 /* A device's report: NaN (an empty field) for what is not known. */
@@ -181,18 +198,23 @@ struct wear_result {
 	double charge_ah;
 	double efc;
 	double max_depth_pct;
-	double hours_soc_ge_95;
-	double hours_temp_ge_45;
-	double cold_charge_ah;	/* below T2 */
+	double hours_near_full;	/* SoC at or above --full */
+	double hours_hot;	/* temperature at or above T3 */
+	double cold_charge_ah;	/* below T1 */
+	double cool_charge_ah;	/* from T1 to T2 */
 	double hot_charge_ah;	/* above T3 */
 	double topoff_cycles;
+	double share_age;
 	double share_cycling;
 	double share_high_soc;
 	double share_heat;
-	double fade_pct;
+	double fade_pct;	/* over the span, points of rated capacity */
+	double soh_pct;		/* modelled, at the last row */
 	double days_to_eol;
 	const char *dominant;	/* "" when not known */
-	double damage;		/* f, scaled */
+	const char *prior;	/* "new", "soh" or "age" */
+	double damage;		/* the span's f, scaled */
+	double damage_prior;	/* f0, the damage at the first row */
 	double max_charge_c;	/* with a capacity, else NaN */
 	double mean_charge_c;
 	double fade_ah;
@@ -235,8 +257,14 @@ void	wear_compact(struct wear_dev *d, const struct wear_conf *c);
 
 /* Add the totals of B to A (B's span may come before or after A's). */
 void	wear_acc_merge(struct wear_acc *a, const struct wear_acc *b);
-/* The report of totals A; CAPACITY_AH > 0 adds C-rates and Ah lost. */
+/* The damage f0 of prior P at the first row, scaled as C says. */
+double	wear_prior_damage(const struct wear_conf *c, const struct wear_prior *p);
+/* "new", "soh" or "age". */
+const char *wear_prior_name(int kind);
+/* The report of totals A after prior P (NULL: new); CAPACITY_AH > 0 adds
+ * C-rates and Ah lost. */
 void	wear_report(const struct wear_conf *c, const struct wear_acc *a,
-	    double capacity_ah, struct wear_result *r);
+	    const struct wear_prior *p, double capacity_ah,
+	    struct wear_result *r);
 
 #endif

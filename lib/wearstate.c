@@ -9,25 +9,15 @@
 #include "csvin.h"
 #include "cw.h"
 #include "num.h"
+#include "statefmt.h"
 #include "ts.h"
 #include "wearstate.h"
 
 #define TAG_STEM	"cw-wear-state-"
-#define FNV_BASIS	0xcbf29ce484222325ull
-#define FNV_PRIME	0x100000001b3ull
 
 /* What the first record of a file is (csvin skips copies of it). */
 enum { FIRST_DEV, FIRST_HEADER, FIRST_END };
 
-/* Kinds of fields. */
-enum {
-	K_DBL,		/* double, finite */
-	K_DBLN,		/* double, empty for NaN */
-	K_TIME,		/* cw_time, integer microseconds */
-	K_UL,		/* unsigned long */
-	K_INT,		/* int in lo..hi */
-	K_SIZE		/* size_t */
-};
 
 struct field {
 	const char *name;
@@ -36,12 +26,12 @@ struct field {
 	int lo, hi;
 };
 
-#define FD(n, m)	{ n, K_DBL, offsetof(struct wear_dev, m), 0, 0 }
-#define FN(n, m)	{ n, K_DBLN, offsetof(struct wear_dev, m), 0, 0 }
-#define FT(n, m)	{ n, K_TIME, offsetof(struct wear_dev, m), 0, 0 }
-#define FU(n, m)	{ n, K_UL, offsetof(struct wear_dev, m), 0, 0 }
-#define FZ(n, m)	{ n, K_SIZE, offsetof(struct wear_dev, m), 0, 0 }
-#define FI(n, m, lo, hi) { n, K_INT, offsetof(struct wear_dev, m), lo, hi }
+#define FD(n, m)	{ n, SFMT_DBL, offsetof(struct wear_dev, m), 0, 0 }
+#define FN(n, m)	{ n, SFMT_DBLN, offsetof(struct wear_dev, m), 0, 0 }
+#define FT(n, m)	{ n, SFMT_TIME, offsetof(struct wear_dev, m), 0, 0 }
+#define FU(n, m)	{ n, SFMT_UL, offsetof(struct wear_dev, m), 0, 0 }
+#define FZ(n, m)	{ n, SFMT_SIZE, offsetof(struct wear_dev, m), 0, 0 }
+#define FI(n, m, lo, hi) { n, SFMT_INT, offsetof(struct wear_dev, m), lo, hi }
 
 /* The device's fields, in the order of the row. */
 static const struct field devf[] = {
@@ -76,13 +66,13 @@ static const struct field devf[] = {
 	FU("topoff_judged", acc.topoff_judged),
 	FU("topoff_cut", acc.topoff_cut),
 	FD("cyc_full", acc.cyc[WEAR_FULL]),
-	FD("cyc_soc_capped", acc.cyc[WEAR_SOC_CAPPED]),
-	FD("cyc_temp_capped", acc.cyc[WEAR_TEMP_CAPPED]),
-	FD("cyc_depth_only", acc.cyc[WEAR_DEPTH_ONLY]),
+	FD("cyc_ref", acc.cyc[WEAR_REF]),
+	FD("cyc_soc", acc.cyc[WEAR_SOC]),
+	FD("cyc_temp", acc.cyc[WEAR_TEMP]),
 	FD("cal_full", acc.cal[WEAR_FULL]),
-	FD("cal_soc_capped", acc.cal[WEAR_SOC_CAPPED]),
-	FD("cal_temp_capped", acc.cal[WEAR_TEMP_CAPPED]),
-	FD("cal_depth_only", acc.cal[WEAR_DEPTH_ONLY]),
+	FD("cal_ref", acc.cal[WEAR_REF]),
+	FD("cal_soc", acc.cal[WEAR_SOC]),
+	FD("cal_temp", acc.cal[WEAR_TEMP]),
 	FN("head_i", head_i),
 	FN("head_temp", head_temp),
 	FI("have_soc0", have_soc0, 0, 1),
@@ -94,9 +84,9 @@ static const struct field devf[] = {
 	FI("have_model0", have_model0, 0, 1),
 	FT("model0_t", model0_t),
 	FD("rate0_full", rate0.full),
-	FD("rate0_soc_capped", rate0.soc_capped),
-	FD("rate0_temp_capped", rate0.temp_capped),
-	FD("rate0_depth_only", rate0.depth_only),
+	FD("rate0_ref", rate0.ref),
+	FD("rate0_soc", rate0.soc),
+	FD("rate0_temp", rate0.temp),
 	FI("have_soc", have_soc, 0, 1),
 	FT("soc_t", soc_t),
 	FD("soc", soc),
@@ -106,9 +96,9 @@ static const struct field devf[] = {
 	FI("have_model", have_model, 0, 1),
 	FT("model_t", model_t),
 	FD("rate_full", rate.full),
-	FD("rate_soc_capped", rate.soc_capped),
-	FD("rate_temp_capped", rate.temp_capped),
-	FD("rate_depth_only", rate.depth_only),
+	FD("rate_ref", rate.ref),
+	FD("rate_soc", rate.soc),
+	FD("rate_temp", rate.temp),
 	FI("rf_raw", rf.raw_start, 0, 1),
 	FI("rf_dir", rf.dir, 0, 3),
 	FT("rf_lo_t", rf.lo.t),
@@ -153,9 +143,23 @@ static const struct field devf[] = {
 	FD("top_cyc_ah", top.cyc_ah),
 	FI("pre_state", pre_state, 0, WEAR_PRE_NSTATE - 1),
 	FU("pre_cycles", pre_cycles),
-	FU("pre_judged", pre_judged)
+	FU("pre_judged", pre_judged),
+	/* Since cw-wear-state-2: the top-off detector's use dips ... */
+	FI("top_used", top.used, 0, 1),
+	FT("top_lvl_since", top.lvl_since),
+	/* ... and the damage before the log (packs in service). */
+	FI("prior", prior.kind, 0, WEAR_PRIOR_NKIND - 1),
+	FN("prior_soh_pct", prior.soh_pct),
+	FD("prior_age_s", prior.age_s),
+	FD("prior_efc", prior.efc)
 };
 #define NDEVF (sizeof(devf) / sizeof(devf[0]))
+/*
+ * Fields of a device in a state of version V.  Only version 2 is read
+ * (tag_version); version 1 is refused with a message, since its damage
+ * is not split by cause.
+ */
+#define NDEVF_V(v)	((void)(v), NDEVF)
 
 /* The settings, over struct wear_conf, with the option that sets each. */
 struct setting {
@@ -168,37 +172,32 @@ struct setting {
 
 #define SET(n, k, m, b, o) { n, k, offsetof(struct wear_conf, m), b, o }
 static const struct setting setf[] = {
-	SET("hysteresis", K_DBL, hysteresis, WSTATE_SET_HYSTERESIS,
+	SET("hysteresis", SFMT_DBL, hysteresis, WSTATE_SET_HYSTERESIS,
 	    "--hysteresis"),
-	SET("min_current", K_DBL, min_current, WSTATE_SET_MIN_CURRENT,
+	SET("min_current", SFMT_DBL, min_current, WSTATE_SET_MIN_CURRENT,
 	    "--min-current"),
-	SET("max_gap_us", K_TIME, max_gap, WSTATE_SET_MAX_GAP, "--max-gap"),
-	SET("t1", K_DBL, lim.t[0], WSTATE_SET_LIMITS, "--limits"),
-	SET("t2", K_DBL, lim.t[1], WSTATE_SET_LIMITS, "--limits"),
-	SET("t3", K_DBL, lim.t[2], WSTATE_SET_LIMITS, "--limits"),
-	SET("t4", K_DBL, lim.t[3], WSTATE_SET_LIMITS, "--limits"),
-	SET("full_pct", K_DBL, topoff.full_pct, WSTATE_SET_FULL, "--full"),
-	SET("full_v", K_DBLN, topoff.full_v, WSTATE_SET_FULL_VOLTAGE,
+	SET("max_gap_us", SFMT_TIME, max_gap, WSTATE_SET_MAX_GAP, "--max-gap"),
+	SET("t1", SFMT_DBL, lim.t[0], WSTATE_SET_LIMITS, "--limits"),
+	SET("t2", SFMT_DBL, lim.t[1], WSTATE_SET_LIMITS, "--limits"),
+	SET("t3", SFMT_DBL, lim.t[2], WSTATE_SET_LIMITS, "--limits"),
+	SET("t4", SFMT_DBL, lim.t[3], WSTATE_SET_LIMITS, "--limits"),
+	SET("full_pct", SFMT_DBL, topoff.full_pct, WSTATE_SET_FULL, "--full"),
+	SET("full_v", SFMT_DBLN, topoff.full_v, WSTATE_SET_FULL_VOLTAGE,
 	    "--full-voltage"),
-	SET("min_depth", K_DBL, topoff.min_depth, WSTATE_SET_MIN_DEPTH,
+	SET("min_depth", SFMT_DBL, topoff.min_depth, WSTATE_SET_MIN_DEPTH,
 	    "--min-depth")
 };
 #define NSETF (sizeof(setf) / sizeof(setf[0]))
 
 /* device, first, last, tag, model; the settings; the fields; rf_pts,
- * pre_rows, check. */
+ * pre_rows, check; in a state of version V. */
 #define COL_SET		5
 #define COL_DEV		(COL_SET + NSETF)
-#define COL_RF		(COL_DEV + NDEVF)
-#define COL_PRE		(COL_RF + 1)
-#define COL_CHECK	(COL_PRE + 1)
-#define NCOL		(COL_CHECK + 1)
+#define COL_RF(v)	(COL_DEV + NDEVF_V(v))
+#define COL_PRE(v)	(COL_RF(v) + 1)
+#define COL_CHECK(v)	(COL_PRE(v) + 1)
+#define NCOL(v)		(COL_CHECK(v) + 1)
 
-/* A growable text buffer for one row. */
-struct buf {
-	char *s;
-	size_t n, cap;
-};
 
 /* What one read of a file keeps. */
 struct rd {
@@ -212,174 +211,66 @@ struct rd {
 	unsigned long first_n;	/* the first record's N, an end row's */
 };
 
-static struct buf B;
+static struct sfmt_buf B;
 
-static void buf_add(struct buf *, const char *, size_t);
-static void buf_str(struct buf *, const char *);
-static void buf_i64(struct buf *, long long);
-static void buf_ul(struct buf *, unsigned long);
-static void buf_dbl(struct buf *, double, int);
-static void buf_field(struct buf *, int, const void *);
-static void buf_name(struct buf *, const char *, size_t);
-static uint64_t fnv(const char *, size_t);
-static int end_row(FILE *, struct buf *);
-static int get_i64(const char *, size_t, long long *);
-static int get_ul(const char *, size_t, unsigned long *);
-static int get_field(int, const char *, size_t, int, int, void *);
-static int same(int, const void *, const void *);
-static void show(int, const void *, char *, size_t);
-static const struct buf *header(void);
+static const struct sfmt_buf *header(int);
+static int tag_version(const char *);
 static int settings(struct rd *, const struct csvin_rec *);
 static int get_rf(struct wear_dev *, const char *, size_t);
 static int get_pre(struct wear_dev *, const char *, size_t);
 static const char *check_dev(const struct wear_dev *,
     const struct wear_conf *);
-static int dev_row(struct rd *, const struct csvin_rec *);
+static int dev_row(struct rd *, const struct csvin_rec *, int);
 static int end_rec(struct rd *, const struct csvin_rec *);
 static int on_rec(void *, const struct csvin_rec *);
 static int on_bad(void *, const struct csvin_rec *, const char *);
 static int on_blank(void *, const struct csvin_rec *);
 
-static void
-buf_add(struct buf *b, const char *s, size_t n)
+
+
+
+
+
+
+
+
+
+/* The header row of version V (1 or 2), with its line end, made once. */
+static const struct sfmt_buf *
+header(int v)
 {
-	if (b->n + n + 1 > b->cap) {
-		while (b->n + n + 1 > b->cap)
-			b->cap = b->cap ? 2 * b->cap : 4096;
-		b->s = cw_realloc(b->s, b->cap);
+	static struct sfmt_buf hb[2];
+	struct sfmt_buf *h = &hb[v - 1];
+	size_t k;
+
+	if (h->n > 0)
+		return h;
+	sfmt_str(h, "device,first,last,");
+	sfmt_str(h, WSTATE_TAG);
+	sfmt_str(h, ",model");
+	for (k = 0; k < NSETF; k++) {
+		sfmt_add(h, ",", 1);
+		sfmt_str(h, setf[k].name);
 	}
-	memcpy(b->s + b->n, s, n);
-	b->n += n;
-	b->s[b->n] = '\0';
-}
-
-static void
-buf_str(struct buf *b, const char *s)
-{
-	buf_add(b, s, strlen(s));
-}
-
-static void
-buf_i64(struct buf *b, long long x)
-{
-	char t[32];
-
-	buf_add(b, t, (size_t)snprintf(t, sizeof(t), "%lld", x));
-}
-
-static void
-buf_ul(struct buf *b, unsigned long x)
-{
-	char t[32];
-
-	buf_add(b, t, (size_t)snprintf(t, sizeof(t), "%lu", x));
-}
-
-/* X with %.17g, which reads back to the same double; NaN as nothing. */
-static void
-buf_dbl(struct buf *b, double x, int nan_ok)
-{
-	char t[40];
-
-	if (isnan(x) && nan_ok)
-		return;
-	buf_add(b, t, (size_t)snprintf(t, sizeof(t), "%.17g", x));
-}
-
-static void
-buf_field(struct buf *b, int kind, const void *p)
-{
-	switch (kind) {
-	case K_DBL:
-	case K_DBLN:
-		buf_dbl(b, *(const double *)p, kind == K_DBLN);
-		break;
-	case K_TIME:
-		buf_i64(b, (long long)*(const cw_time *)p);
-		break;
-	case K_UL:
-		buf_ul(b, *(const unsigned long *)p);
-		break;
-	case K_INT:
-		buf_i64(b, *(const int *)p);
-		break;
-	case K_SIZE:
-		buf_ul(b, (unsigned long)*(const size_t *)p);
-		break;
+	for (k = 0; k < NDEVF_V(v); k++) {
+		sfmt_add(h, ",", 1);
+		sfmt_str(h, devf[k].name);
 	}
-}
-
-/* A device name, quoted as RFC 4180 asks when it has to be. */
-static void
-buf_name(struct buf *b, const char *s, size_t n)
-{
-	size_t i;
-
-	if (n > 0 && strcspn(s, ",\"\r\n") >= n && s[0] != ' ' &&
-	    s[0] != '\t' && s[n - 1] != ' ' && s[n - 1] != '\t') {
-		buf_add(b, s, n);
-		return;
-	}
-	buf_add(b, "\"", 1);
-	for (i = 0; i < n; i++) {
-		if (s[i] == '"')
-			buf_add(b, "\"", 1);
-		buf_add(b, s + i, 1);
-	}
-	buf_add(b, "\"", 1);
-}
-
-static uint64_t
-fnv(const char *s, size_t n)
-{
-	uint64_t h = FNV_BASIS;
-	size_t i;
-
-	for (i = 0; i < n; i++) {
-		h ^= (unsigned char)s[i];
-		h *= FNV_PRIME;
-	}
+	sfmt_str(h, ",rf_pts,pre_rows,check\n");
 	return h;
 }
 
-/* Append ",check\n" to the row in B and write it. */
+/* The version of a state tag this cw-wear reads: 2, or 0. */
 static int
-end_row(FILE *fp, struct buf *b)
+tag_version(const char *tag)
 {
-	char t[24];
-
-	snprintf(t, sizeof(t), ",%016llx\n", (unsigned long long)fnv(b->s,
-	    b->n));
-	buf_str(b, t);
-	return fwrite(b->s, 1, b->n, fp) == b->n ? 0 : -1;
-}
-
-/* The header row, with its line end, made once. */
-static const struct buf *
-header(void)
-{
-	static struct buf h;
-	size_t k;
-
-	if (h.n > 0)
-		return &h;
-	buf_str(&h, "device,first,last," WSTATE_TAG ",model");
-	for (k = 0; k < NSETF; k++) {
-		buf_add(&h, ",", 1);
-		buf_str(&h, setf[k].name);
-	}
-	for (k = 0; k < NDEVF; k++) {
-		buf_add(&h, ",", 1);
-		buf_str(&h, devf[k].name);
-	}
-	buf_str(&h, ",rf_pts,pre_rows,check\n");
-	return &h;
+	return strcmp(tag, WSTATE_TAG) == 0 ? 2 : 0;
 }
 
 int
 wstate_write_header(FILE *fp)
 {
-	const struct buf *h = header();
+	const struct sfmt_buf *h = header(2);
 
 	return fwrite(h->s, 1, h->n, fp) == h->n ? 0 : -1;
 }
@@ -392,177 +283,63 @@ wstate_write_dev(FILE *fp, const char *name, size_t namelen,
 	size_t k;
 
 	B.n = 0;
-	buf_name(&B, name, namelen);
-	buf_add(&B, ",", 1);
-	buf_add(&B, t, ts_format(d->acc.first, t));
-	buf_add(&B, ",", 1);
-	buf_add(&B, t, ts_format(d->acc.last, t));
-	buf_str(&B, "," WSTATE_TAG ",");
-	buf_str(&B, c->model->name);
+	sfmt_name(&B, name, namelen);
+	sfmt_add(&B, ",", 1);
+	sfmt_add(&B, t, ts_format(d->acc.first, t));
+	sfmt_add(&B, ",", 1);
+	sfmt_add(&B, t, ts_format(d->acc.last, t));
+	sfmt_str(&B, "," WSTATE_TAG ",");
+	sfmt_str(&B, c->model->name);
 	for (k = 0; k < NSETF; k++) {
-		buf_add(&B, ",", 1);
-		buf_field(&B, setf[k].kind, (const char *)c + setf[k].off);
+		sfmt_add(&B, ",", 1);
+		sfmt_field(&B, setf[k].kind, (const char *)c + setf[k].off);
 	}
 	for (k = 0; k < NDEVF; k++) {
-		buf_add(&B, ",", 1);
-		buf_field(&B, devf[k].kind, (const char *)d + devf[k].off);
+		sfmt_add(&B, ",", 1);
+		sfmt_field(&B, devf[k].kind, (const char *)d + devf[k].off);
 	}
-	buf_add(&B, ",", 1);
+	sfmt_add(&B, ",", 1);
 	for (k = 0; k < d->rf.n; k++) {
 		if (k > 0)
-			buf_add(&B, ";", 1);
-		buf_i64(&B, (long long)d->rf.pt[k].t);
-		buf_add(&B, ":", 1);
-		buf_dbl(&B, d->rf.pt[k].x, 0);
-		buf_add(&B, ":", 1);
-		buf_dbl(&B, d->rf.pt[k].aux, 1);
+			sfmt_add(&B, ";", 1);
+		sfmt_i64(&B, (long long)d->rf.pt[k].t);
+		sfmt_add(&B, ":", 1);
+		sfmt_dbl(&B, d->rf.pt[k].x, 0);
+		sfmt_add(&B, ":", 1);
+		sfmt_dbl(&B, d->rf.pt[k].aux, 1);
 	}
-	buf_add(&B, ",", 1);
+	sfmt_add(&B, ",", 1);
 	for (k = 0; k < d->pre_n; k++) {
 		if (k > 0)
-			buf_add(&B, ";", 1);
-		buf_i64(&B, (long long)d->pre[k].t);
-		buf_add(&B, ":", 1);
-		buf_i64(&B, (long long)d->pre[k].t_last);
-		buf_add(&B, ":", 1);
-		buf_ul(&B, d->pre[k].n);
-		buf_add(&B, ":", 1);
-		buf_dbl(&B, d->pre[k].v, 1);
-		buf_add(&B, ":", 1);
-		buf_dbl(&B, d->pre[k].i, 1);
-		buf_add(&B, ":", 1);
-		buf_dbl(&B, d->pre[k].soc, 1);
+			sfmt_add(&B, ";", 1);
+		sfmt_i64(&B, (long long)d->pre[k].t);
+		sfmt_add(&B, ":", 1);
+		sfmt_i64(&B, (long long)d->pre[k].t_last);
+		sfmt_add(&B, ":", 1);
+		sfmt_ul(&B, d->pre[k].n);
+		sfmt_add(&B, ":", 1);
+		sfmt_dbl(&B, d->pre[k].v, 1);
+		sfmt_add(&B, ":", 1);
+		sfmt_dbl(&B, d->pre[k].i, 1);
+		sfmt_add(&B, ":", 1);
+		sfmt_dbl(&B, d->pre[k].soc, 1);
 	}
-	return end_row(fp, &B);
+	return sfmt_end_row(fp, &B);
 }
 
 int
 wstate_write_end(FILE *fp, unsigned long rows)
 {
 	B.n = 0;
-	buf_str(&B, ",,," WSTATE_TAG ",end,");
-	buf_ul(&B, rows);
-	return end_row(fp, &B);
+	sfmt_str(&B, ",,," WSTATE_TAG ",end,");
+	sfmt_ul(&B, rows);
+	return sfmt_end_row(fp, &B);
 }
 
-/* Strict integers: an optional '-', then digits, nothing else. */
-static int
-get_i64(const char *s, size_t n, long long *out)
-{
-	unsigned long long x = 0, lim = (unsigned long long)INT64_MAX;
-	size_t i = 0;
-	int neg = 0;
 
-	if (n > 0 && s[0] == '-') {
-		neg = 1;
-		i = 1;
-		lim++;
-	}
-	if (i == n)
-		return -1;
-	for (; i < n; i++) {
-		if (s[i] < '0' || s[i] > '9')
-			return -1;
-		if (x > (lim - (unsigned)(s[i] - '0')) / 10)
-			return -1;
-		x = x * 10 + (unsigned)(s[i] - '0');
-	}
-	*out = neg ? (long long)(0 - x) : (long long)x;
-	return 0;
-}
 
-static int
-get_ul(const char *s, size_t n, unsigned long *out)
-{
-	long long x;
 
-	if (n == 0 || s[0] == '-' || get_i64(s, n, &x) < 0 ||
-	    (unsigned long long)x > (unsigned long long)(unsigned long)-1)
-		return -1;
-	*out = (unsigned long)x;
-	return 0;
-}
 
-/* Parse S[0..N) as a field of KIND into P; 0 or -1. */
-static int
-get_field(int kind, const char *s, size_t n, int lo, int hi, void *p)
-{
-	long long x;
-	unsigned long u;
-	double d;
-
-	switch (kind) {
-	case K_DBL:
-	case K_DBLN:
-		if (n == 0 && kind == K_DBLN) {
-			*(double *)p = CW_MISSING;
-			return 0;
-		}
-		/* No blanks: num_parse() would skip them. */
-		if (memchr(s, ' ', n) != NULL || memchr(s, '\t', n) != NULL ||
-		    num_parse(s, n, '.', &d) != NUM_OK || !isfinite(d))
-			return -1;
-		*(double *)p = d;
-		return 0;
-	case K_TIME:
-		if (get_i64(s, n, &x) < 0)
-			return -1;
-		*(cw_time *)p = x;
-		return 0;
-	case K_UL:
-		if (get_ul(s, n, &u) < 0)
-			return -1;
-		*(unsigned long *)p = u;
-		return 0;
-	case K_INT:
-		if (get_i64(s, n, &x) < 0 || x < lo || x > hi)
-			return -1;
-		*(int *)p = (int)x;
-		return 0;
-	case K_SIZE:
-		if (get_ul(s, n, &u) < 0)
-			return -1;
-		*(size_t *)p = u;
-		return 0;
-	}
-	return -1;
-}
-
-/* Whether two values of KIND are the same (NaN equal to NaN). */
-static int
-same(int kind, const void *a, const void *b)
-{
-	double x, y;
-
-	switch (kind) {
-	case K_DBL:
-	case K_DBLN:
-		x = *(const double *)a;
-		y = *(const double *)b;
-		return x == y || (isnan(x) && isnan(y));
-	case K_TIME:
-		return *(const cw_time *)a == *(const cw_time *)b;
-	}
-	return 0;
-}
-
-/* A setting's value, for messages. */
-static void
-show(int kind, const void *p, char *t, size_t n)
-{
-	double x;
-
-	if (kind == K_TIME) {
-		snprintf(t, n, "%gs", (double)*(const cw_time *)p /
-		    CW_US_PER_S);
-		return;
-	}
-	x = *(const double *)p;
-	if (isnan(x))
-		snprintf(t, n, "none");
-	else
-		snprintf(t, n, "%.15g", x);
-}
 
 /*
  * The settings of a row: adopted from the first row where the command
@@ -599,7 +376,7 @@ settings(struct rd *d, const struct csvin_rec *rec)
 		const struct setting *s = &setf[k];
 		char *p = (char *)c + s->off;
 
-		if (get_field(s->kind, rec->f[COL_SET + k],
+		if (sfmt_get_field(s->kind, rec->f[COL_SET + k],
 		    rec->len[COL_SET + k], 0, 0, v) < 0) {
 			cw_warn_at(rec->src, rec->line, "bad value '%.40s' in "
 			    "column %s: the state is corrupt",
@@ -607,11 +384,11 @@ settings(struct rd *d, const struct csvin_rec *rec)
 			return CW_EXIT_DATA;
 		}
 		if (!r->adopted && !(r->fixed & s->bit)) {
-			memcpy(p, v, s->kind == K_TIME ? sizeof(cw_time) :
+			memcpy(p, v, s->kind == SFMT_TIME ? sizeof(cw_time) :
 			    sizeof(double));
 			continue;
 		}
-		if (!same(s->kind, p, v)) {
+		if (!sfmt_same(s->kind, p, v)) {
 			if (s->bit == WSTATE_SET_LIMITS) {
 				/* All four, as --limits takes them. */
 				snprintf(have, sizeof(have), "%.24s,%.24s,"
@@ -622,8 +399,8 @@ settings(struct rd *d, const struct csvin_rec *rec)
 				    "%.15g,%.15g", c->lim.t[0], c->lim.t[1],
 				    c->lim.t[2], c->lim.t[3]);
 			} else {
-				show(s->kind, v, have, sizeof(have));
-				show(s->kind, p, want, sizeof(want));
+				sfmt_show(s->kind, v, have, sizeof(have));
+				sfmt_show(s->kind, p, want, sizeof(want));
 			}
 			cw_warn_at(rec->src, rec->line, "the state was made "
 			    "with %s %s, %s %s", s->opt, have, r->adopted ?
@@ -664,9 +441,9 @@ get_rf(struct wear_dev *d, const char *s, size_t n)
 		if (c2 == NULL || memchr(c2 + 1, ':', (size_t)(q - c2 - 1)) !=
 		    NULL)
 			return -1;
-		if (get_field(K_TIME, p, (size_t)(c1 - p), 0, 0, &pt.t) < 0 ||
-		    get_field(K_DBL, c1 + 1, (size_t)(c2 - c1 - 1), 0, 0,
-		    &pt.x) < 0 || get_field(K_DBLN, c2 + 1,
+		if (sfmt_get_field(SFMT_TIME, p, (size_t)(c1 - p), 0, 0, &pt.t) < 0 ||
+		    sfmt_get_field(SFMT_DBL, c1 + 1, (size_t)(c2 - c1 - 1), 0, 0,
+		    &pt.x) < 0 || sfmt_get_field(SFMT_DBLN, c2 + 1,
 		    (size_t)(q - c2 - 1), 0, 0, &pt.aux) < 0)
 			return -1;
 		d->rf.pt[d->rf.n++] = pt;
@@ -679,8 +456,8 @@ get_rf(struct wear_dev *d, const char *s, size_t n)
 static int
 get_pre(struct wear_dev *d, const char *s, size_t n)
 {
-	static const int kind[6] = { K_TIME, K_TIME, K_UL, K_DBLN, K_DBLN,
-	    K_DBLN };
+	static const int kind[6] = { SFMT_TIME, SFMT_TIME, SFMT_UL, SFMT_DBLN, SFMT_DBLN,
+	    SFMT_DBLN };
 	const char *p = s, *e = s + n, *q, *c[7];
 	struct wear_run w;
 	void *to[6];
@@ -718,7 +495,7 @@ get_pre(struct wear_dev *d, const char *s, size_t n)
 		if (memchr(c[5] + 1, ':', (size_t)(q - c[5] - 1)) != NULL)
 			return -1;
 		for (k = 0; k < 6; k++)
-			if (get_field(kind[k], c[k] + 1,
+			if (sfmt_get_field(kind[k], c[k] + 1,
 			    (size_t)(c[k + 1] - c[k] - 1), 0, 0, to[k]) < 0)
 				return -1;
 		d->pre[d->pre_n++] = w;
@@ -783,33 +560,30 @@ check_dev(const struct wear_dev *d, const struct wear_conf *c)
 		return "top-off prefix does not start at the first row";
 	if (n > a->rows || (d->pre_state == WEAR_PRE_OPEN && n != a->rows))
 		return "top-off prefix inconsistent";
+	if ((d->prior.kind == WEAR_PRIOR_SOH && !(d->prior.soh_pct > 0 &&
+	    d->prior.soh_pct <= 150)) || d->prior.age_s < 0 ||
+	    d->prior.efc < 0)
+		return "prior out of range";
 	return NULL;
 }
 
-/* A device row. */
+/* A device row of version V. */
 static int
-dev_row(struct rd *d, const struct csvin_rec *rec)
+dev_row(struct rd *d, const struct csvin_rec *rec, int v)
 {
 	struct wstate_read *r = d->r;
 	struct wear_dev w;
 	const char *why;
-	size_t k, at;
+	size_t k;
 	int rc;
-	unsigned long long want;
-	char hex[17];
 
-	if (rec->nf != NCOL) {
+	if (rec->nf != NCOL(v)) {
 		cw_warn_at(rec->src, rec->line, "a state row of %zu fields, "
 		    "not %d: the state is cut short or corrupt", rec->nf,
-		    (int)NCOL);
+		    (int)NCOL(v));
 		return CW_EXIT_DATA;
 	}
-	for (at = rec->rawlen; at > 0 && rec->raw[at - 1] != ','; at--)
-		;
-	want = (unsigned long long)fnv(rec->raw, at > 0 ? at - 1 : 0);
-	snprintf(hex, sizeof(hex), "%016llx", want);
-	if (at == 0 || rec->len[COL_CHECK] != 16 ||
-	    memcmp(rec->f[COL_CHECK], hex, 16) != 0) {
+	if (!sfmt_row_ok(rec)) {
 		cw_warn_at(rec->src, rec->line, "the check field does not "
 		    "match the row: the state is corrupt");
 		return CW_EXIT_DATA;
@@ -831,8 +605,8 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 		return CW_EXIT_DATA;
 	}
 	w.prev_t = w.acc.last;
-	for (k = 0; k < NDEVF; k++)
-		if (get_field(devf[k].kind, rec->f[COL_DEV + k],
+	for (k = 0; k < NDEVF_V(v); k++)
+		if (sfmt_get_field(devf[k].kind, rec->f[COL_DEV + k],
 		    rec->len[COL_DEV + k], devf[k].lo, devf[k].hi,
 		    (char *)&w + devf[k].off) < 0) {
 			cw_warn_at(rec->src, rec->line, "bad value '%.40s' in "
@@ -841,9 +615,11 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 			wear_free(&w);
 			return CW_EXIT_DATA;
 		}
-	why = get_rf(&w, rec->f[COL_RF], rec->len[COL_RF]) < 0 ? "rf_pts" :
-	    get_pre(&w, rec->f[COL_PRE], rec->len[COL_PRE]) < 0 ? "pre_rows" :
-	    NULL;
+	if (v == 1)
+		w.top.lvl_since = w.top.lvl_t;	/* the best it can know */
+	why = get_rf(&w, rec->f[COL_RF(v)], rec->len[COL_RF(v)]) < 0 ?
+	    "rf_pts" : get_pre(&w, rec->f[COL_PRE(v)],
+	    rec->len[COL_PRE(v)]) < 0 ? "pre_rows" : NULL;
 	if (why != NULL) {
 		cw_warn_at(rec->src, rec->line, "bad list in column %s: the "
 		    "state is corrupt", why);
@@ -867,16 +643,9 @@ static int
 end_rec(struct rd *d, const struct csvin_rec *rec)
 {
 	unsigned long n;
-	char hex[17];
-	size_t at;
 
-	for (at = rec->rawlen; at > 0 && rec->raw[at - 1] != ','; at--)
-		;
-	snprintf(hex, sizeof(hex), "%016llx", (unsigned long long)fnv(
-	    rec->raw, at > 0 ? at - 1 : 0));
 	if (rec->nf != 7 || rec->len[1] != 0 || rec->len[2] != 0 ||
-	    get_ul(rec->f[5], rec->len[5], &n) < 0 || rec->len[6] != 16 ||
-	    memcmp(rec->f[6], hex, 16) != 0) {
+	    sfmt_get_ul(rec->f[5], rec->len[5], &n) < 0 || !sfmt_row_ok(rec)) {
 		cw_warn_at(rec->src, rec->line, "a damaged end row: the state "
 		    "is corrupt");
 		return CW_EXIT_DATA;
@@ -894,16 +663,24 @@ static int
 on_rec(void *ctx, const struct csvin_rec *rec)
 {
 	struct rd *d = ctx;
-	const struct buf *h;
+	const struct sfmt_buf *h;
 	const char *tag;
+	int v;
 
 	if (d->nrec++ == 0)
 		d->first_kind = rec->nf > 0 && strcmp(rec->f[0], "device") ==
 		    0 ? FIRST_HEADER : rec->nf > 0 && rec->len[0] == 0 ?
 		    FIRST_END : FIRST_DEV;
 	tag = rec->nf > 3 ? rec->f[3] : "";
-	if (strcmp(tag, WSTATE_TAG) != 0) {
-		if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
+	if ((v = tag_version(tag)) == 0) {
+		if (strcmp(tag, TAG_STEM "1") == 0)
+			cw_warn_at(rec->src, rec->line, "a state of format "
+			    "%s, whose damage is not split by cause as this "
+			    "cw-wear splits it (%s): make the state again from "
+			    "the logs (cw-wear --state FILE, with --fleet for "
+			    "packs in service), or read it with the cw-wear "
+			    "that wrote it", tag, WSTATE_TAG);
+		else if (strncmp(tag, TAG_STEM, strlen(TAG_STEM)) == 0)
 			cw_warn_at(rec->src, rec->line, "a state of format "
 			    "%.40s; this cw-wear reads %s", tag, WSTATE_TAG);
 		else if (rec->nf <= 3)
@@ -917,13 +694,13 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	}
 	if (rec->nf > 4 && strcmp(rec->f[0], "device") == 0 &&
 	    strcmp(rec->f[4], "model") == 0) {
-		/* A header; it must be this version's, column for column. */
-		h = header();
+		/* A header; it must be its version's, column for column. */
+		h = header(v);
 		if (rec->rawlen + 1 != h->n || memcmp(rec->raw, h->s,
 		    rec->rawlen) != 0) {
 			cw_warn_at(rec->src, rec->line, "a state header with "
 			    "other columns than %s has: the state is "
-			    "corrupt", WSTATE_TAG);
+			    "corrupt", tag);
 			return CW_EXIT_DATA;
 		}
 		d->r->headers++;
@@ -931,7 +708,7 @@ on_rec(void *ctx, const struct csvin_rec *rec)
 	}
 	if (rec->nf > 4 && rec->len[0] == 0 && strcmp(rec->f[4], "end") == 0)
 		return end_rec(d, rec);
-	return dev_row(d, rec);
+	return dev_row(d, rec, v);
 }
 
 static int

@@ -5,10 +5,10 @@
  *
  * A state is CSV, one row per device, keyed by device:
  *
- *	device,first,last,cw-wear-state-1,model,hysteresis,...,check
+ *	device,first,last,cw-wear-state-2,model,hysteresis,...,check
  *
  * The header row names every column; its fourth column is the name and
- * version of the format, "cw-wear-state-1", which every data row repeats
+ * version of the format, "cw-wear-state-2", which every data row repeats
  * in its fourth column, so that rows keep their version through sort,
  * cat and a shuffle.  Then come the settings the state was made with, the
  * device's totals, its first and last rows, the rainflow state with its
@@ -20,11 +20,21 @@
  * FNV-1a 64-bit hash of the row's text before it, in 16 hexadecimal
  * digits: a row cut short or altered does not match it.
  *
- * A file of states ends with an end row, ",,,cw-wear-state-1,end,N,check",
+ * Version 2 adds top_used and top_lvl_since (the top-off detector's use
+ * dips, topoff.h) and the prior (the damage before the log: prior,
+ * prior_soh_pct, prior_age_s, prior_efc) after pre_judged; version 1 is
+ * refused with a message, as its damage is not split by cause.
+ *
+ * A file of states ends with an end row, ",,,cw-wear-state-2,end,N,check",
  * N being the rows of device states before it; files joined with cat hold
  * several, and their N add up (sorted, they come first).  A file without
  * an end row, or whose rows do not add up to the end rows' N, was cut
  * short.
+ *
+ * Version 2 splits the damage by cause (model.h) and carries the prior
+ * (struct wear_prior).  A version 1 state holds capped forms of the
+ * damage from which the split cannot be recovered, so it is refused with
+ * a message that says how to make it again.
  */
 #ifndef WEARSTATE_H
 #define WEARSTATE_H
@@ -33,7 +43,7 @@
 
 #include "wear.h"
 
-#define WSTATE_TAG	"cw-wear-state-1"
+#define WSTATE_TAG	"cw-wear-state-2"
 
 /* The settings a state is made with, by the option that sets them. */
 enum {

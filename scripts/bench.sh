@@ -70,6 +70,7 @@ set -- \
     "thermal" "cw-thermal $work/stream.csv" \
     "topoff" "cw-topoff $work/stream.csv" \
     "dcir" "cw-dcir --trend $work/stream.csv" \
+    "capacity" "cw-capacity --trend $work/stream.csv" \
     "wear" "cw-wear $work/stream.csv"
 results="$work/results"
 : >"$results"
@@ -128,7 +129,7 @@ mem=""
 for k in "cw-clean --cells 10 --charge-negative --step 600 $mf" \
     "cw-rainflow --summary $work/m.csv" "cw-thermal $work/m.csv" \
     "cw-topoff $work/m.csv" "cw-dcir --trend $work/m.csv" \
-    "cw-wear $work/m.csv"; do
+    "cw-capacity --trend $work/m.csv" "cw-wear $work/m.csv"; do
 	set -- $(reps=1 t "$k")
 	mem="$mem| ${k%% *} | $2 |
 "
@@ -176,7 +177,7 @@ row "floor B: inflate + libcsv, raw" "$fb" "1.00" "" ""
 row "cw-clean --step 60" "$c60" "$(ratio "$c60" "$fb") x B" "$c60m" "<= 1.5 x B"
 row "cw-clean" "$c0" "$(ratio "$c0" "$fb") x B" "$c0m" ""
 row "floor B over the sample stream" "$fbs" "1.00" "" ""
-for k in rainflow thermal topoff dcir wear; do
+for k in rainflow thermal topoff dcir capacity wear; do
 	set -- $(med $k)
 	row "cw-$k" "$1" "$(ratio "$1" "$fbs") x B" "$2" "<= 2 x B, < 32 MiB"
 done

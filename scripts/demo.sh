@@ -9,7 +9,9 @@
 #   2. cw-clean turns the logs into one sample stream, demo/out/cw-clean.csv.gz,
 #      and keeps every line it rejected in demo/out/cw-clean-rejects.csv;
 #   3. every analysis tool reads that stream and writes demo/out/<tool>.csv;
-#   4. gnuplot draws the plots of scripts/plot-*.gp into demo/out/*.png;
+#   4. gnuplot draws the plots of scripts/plot-*.gp into demo/out/*.png
+#      (dwell.png: where the idle-dock group spends its time, from
+#      cw-wear --dwell);
 #   5. scripts/morning-report.sh prints the packs that need attention.
 #
 # demo/in and demo/out are emptied first and ignored by git.  Settings can
@@ -103,6 +105,45 @@ rainflow_groups() {
 	}' "$1" | sort -t, -k1,1 -k2,2n
 }
 
+# dwell_group DWELL REGISTER WEAR GROUP: cw-wear --dwell summed over the
+# packs of GROUP in the register, per pack and day (cw-wear's days column),
+# every cell of the default bands (temperature edges 0, 10, 25, 35, 45 C),
+# for scripts/plot-dwell.gp.
+dwell_group() {
+	awk -F, -v reg="$2" -v wear="$3" -v grp="$4" '
+	BEGIN {
+		while ((getline l < reg) > 0) {
+			split(l, f, ","); g[f[1]] = f[3]
+		}
+		while ((getline l < wear) > 0) {
+			split(l, f, ",")
+			if (f[1] != "device" && g[f[1]] == grp)
+				days += f[4]
+		}
+		n = split("0 10 25 35 45", e, " ")
+		for (k = 1; k <= n; k++)
+			ti[e[k]] = k
+		split("0 20 40 60 80 95 100", sb, " ")
+	}
+	NR > 1 && g[$1] == grp {
+		c = ($2 == 95 ? 5 : $2 / 20) "," ($4 == "" ? 0 : ti[$4])
+		h[c] += $6; i[c] += $7
+	}
+	END {
+		print "soc_i,temp_i,soc_band,temp_band,hours_per_pack_day," \
+		    "idle_pct"
+		for (s = 0; s < 6; s++)
+			for (t = 0; t <= n; t++) {
+				c = s "," t
+				tb = t == 0 ? "<" e[1] : t == n ? ">" e[n] : \
+				    e[t] "-" e[t + 1]
+				printf "%s,%s-%s,%s,%.6g,%.4g\n", c, sb[s + 1],
+				    sb[s + 2], tb, (days > 0 ? h[c] / days : 0),
+				    (h[c] > 0 ? 100 * i[c] / h[c] : 0)
+			}
+	}' "$1"
+}
+
 say "cw-synth: $devs packs, $days days from $start, seed $seed -> $in/"
 cw-synth -n "$devs" -d "$days" -S "$start" -s "$seed" -o "$in"
 
@@ -130,7 +171,9 @@ tail -n 2 "$out/cw-clean.log" | sed "s/^/demo: /" >&2
 # DCIR gates are widened for a winter fleet (most charging starts near
 # 10 C, most top-ups above 80 %); the activation energy stays at the
 # default 30 kJ/mol, which is what cw-synth's cells have.  Real cells
-# need theirs fitted first (see cw-dcir(1)).
+# need theirs fitted first (see cw-dcir(1)).  The trend takes each pack's
+# own SoC window (--soc auto), so that dock packs, which live near full,
+# get one too.
 S=$out/cw-clean.csv.gz
 DCIR="--temp -10,45 --soc 10,90"
 say "analysis: cw-rainflow cw-thermal cw-topoff cw-dcir cw-wear -> $out/"
@@ -138,12 +181,16 @@ job cw-rainflow -o "$out/cw-rainflow.csv" "$S"
 job cw-thermal -o "$out/cw-thermal.csv" "$S"
 job cw-topoff -s -o "$out/cw-topoff.csv" "$S"
 job cw-dcir $DCIR -o "$out/cw-dcir.csv" "$S"
-job cw-dcir -t $DCIR -o "$out/cw-dcir-trend.csv" "$S"
+job cw-dcir -t --temp -10,45 --soc auto -o "$out/cw-dcir-trend.csv" "$S"
 job cw-wear --cycle-life 500 --capacity 14 -o "$out/cw-wear.csv" "$S"
+job cw-wear --dwell -o "$out/cw-wear-dwell.csv" "$S"
 # Temperature of the charging rows, one a minute per pack, for the plot.
 job charging_temp "$S" "$in/fleet.csv" "$out/charging-temp.csv"
 waitall || die "an analysis tool failed"
 
+# Where the packs held in docks spend their time.
+dwell_group "$out/cw-wear-dwell.csv" "$in/fleet.csv" "$out/cw-wear.csv" \
+    idle-dock >"$out/dwell-idle-dock.csv"
 # Rainflow depth histogram per group of packs.
 rainflow_groups "$out/cw-rainflow.csv" "$in/fleet.csv" "$out/cw-wear.csv" \
     >"$out/rainflow-groups.csv"
@@ -168,6 +215,9 @@ job gnuplot -e "in='$out/rainflow-groups.csv'; out='$out/rainflow.png'" \
     scripts/plot-rainflow.gp
 job gnuplot -e "in='$out/charging-temp.csv'; out='$out/charge-temp.png'" \
     scripts/plot-charge-temp.gp
+job gnuplot -e "in='$out/dwell-idle-dock.csv'; out='$out/dwell.png'; \
+    title='Idle-dock packs: hours per pack and day by SoC and temperature'" \
+    scripts/plot-dwell.gp
 waitall || die "gnuplot failed"
 
 scripts/morning-report.sh "$out" "$in/fleet.csv" | tee "$out/morning-report.txt"

@@ -15,7 +15,9 @@
 #      cw-thermal's events), most hours there first: a safety matter;
 #   2. packs whose dominant stressor is cold-charge or heat, or whose
 #      resistance grows by 5 % or more per 30 days (it would double within
-#      two years), shortest time to end of life first;
+#      two years) for sure: the lower end of the confidence interval of
+#      the growth (cw-dcir's growth_lo_pct_per_30d) at 5 % or more, not
+#      only the estimate; shortest time to end of life first;
 #   3. the rest, shortest time to end of life (cw-wear's days_to_eol)
 #      first.
 #
@@ -74,6 +76,9 @@ BEGIN {
 			if (v("growth_pct_per_30d") != "") {
 				rg[$1] = v("growth_pct_per_30d") + 0
 				reol[$1] = v("eol_date")
+				# No lower end (an older cw-dcir): not sure.
+				if (v("growth_lo_pct_per_30d") != "")
+					rglo[$1] = v("growth_lo_pct_per_30d") + 0
 			}
 		}
 	}
@@ -96,6 +101,7 @@ FNR == 1 {
 		cdom = need("dominant", FILENAME)
 		ccold = need("cold_charge_ah", FILENAME)
 		cchg = need("charge_ah", FILENAME)
+		csoh = need("soh_pct", FILENAME)
 		wear = 1
 	} else {
 		ckind = need("kind", FILENAME); czone = need("zone", FILENAME)
@@ -112,6 +118,7 @@ wear {
 	if ($clast > last) last = $clast
 	if ($cdays > span) span = $cdays
 	fade[d] = $cfade; eol[d] = $ceol; dom[d] = $cdom; days[d] = $cdays
+	soh[d] = $csoh
 	coldsh[d] = $cchg > 0 ? 100 * $ccold / $cchg : 0
 	next
 }
@@ -134,7 +141,7 @@ END {
 		if (sx[d] > 0)
 			key = sprintf("1 %015.3f", 1e9 - sx[d])
 		else if (dom[d] == "cold-charge" || dom[d] == "heat" ||
-		    ((d in rg) && rg[d] >= 5))
+		    ((d in rglo) && rglo[d] >= 5))
 			key = sprintf("2 %015.3f", e)
 		else
 			key = sprintf("3 %015.3f", e)
@@ -160,7 +167,7 @@ END {
 		    (d in site) ? " at " site[d] : "",
 		    dom[d] == "" ? "no model estimate" : dom[d]
 		if (dom[d] == "cold-charge")
-			printf ", %.0f %% of its charge below T2", coldsh[d]
+			printf ", %.0f %% of its charge below T1", coldsh[d]
 		printf "\n"
 		for (zi = 1; zi <= 2; zi++) {
 			z = zi == 1 ? "below-min" : "above-max"
@@ -172,20 +179,24 @@ END {
 				    hours(sx[d SUBSEP z]), ax[d SUBSEP z]
 		}
 		if (fade[d] != "")
-			printf "    modelled fade %.2f %% in %.1f days",
-			    fade[d], days[d]
+			printf "    modelled fade %.2f points in %.1f days%s",
+			    fade[d], days[d], soh[d] != "" ? \
+			    sprintf(", SoH %.1f %%", soh[d]) : ""
 		if (eol[d] != "")
 			printf "; 80 %% health in %.1f years at this pace",
 			    eol[d] / 365.25
+		else if (dom[d] == "cold-charge" && fade[d] != "")
+			printf "; no life told (the model has no plating term)"
 		if (fade[d] != "")
 			printf "\n"
 		if (d in rg)
-			printf "    resistance %+.1f %% per 30 days%s\n", rg[d],
-			    reol[d] != "" ? "; doubled by " reol[d] \
-			    " at this pace" : ""
+			printf "    resistance %+.1f %% per 30 days%s%s\n", rg[d],
+			    (d in rglo) ? sprintf(" (at least %+.1f %%)", \
+			    rglo[d]) : "", reol[d] != "" ? "; doubled by " \
+			    reol[d] " at this pace" : ""
 		if ((d in mcd) && mcd[d] != "" && mcd[d] >= 5)
-			printf "    %.0f top-off micro-cycles a day while " \
-			    "held near full\n", mcd[d]
+			printf "    %.0f top-off micro-cycles a day (rides " \
+			    "not counted)\n", mcd[d]
 	}
 	nc = split(soft["cool"], f, " ")
 	nw = split(soft["warm"], f, " ")

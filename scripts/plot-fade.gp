@@ -8,7 +8,7 @@
 # large fleet plot the packs that matter, for example the 40 with the most
 # fade:
 #
-#   (head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k16,16gr |
+#   (head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k18,18gr |
 #       head -n 40) >top.csv
 #
 # Optional: title='...', width=, height= (pixels).
@@ -43,7 +43,7 @@ nrow = STATS_records + STATS_invalid
 set terminal pngcairo size width, height font "sans,11" noenhanced
 set output out
 set title title font "sans,13"
-set ylabel "capacity fade over the logged span (%)"
+set ylabel "capacity fade over the logged span (points of rated)"
 set xlabel "pack"
 set xtics rotate by 60 right nomirror font "sans,9"
 set ytics nomirror
@@ -54,8 +54,8 @@ set style fill solid 0.9 border lc rgb "#555555"
 set boxwidth 0.75
 set key top left Left reverse box opaque title "dominant stressor" \
     samplen 1.5
-set label 1 "label: years to 80 % SoH at this pace" at graph 0.99, \
-    graph 0.96 right font "sans,9"
+set label 1 "label: years to 80 % SoH at this pace (none told for " . \
+    "cold-charge)" at graph 0.99, graph 0.96 right font "sans,9"
 
 plot in using 0:(column("fade_pct")):(colour(strcol("dominant"))): \
 	xtic(strcol("device")) with boxes lc rgb variable notitle, \

@@ -102,7 +102,7 @@ LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 	c.delim = delims[b0 & 3];
 	if (b0 & 4)
 		c.dec = c.delim == ',' ? '.' : ',';
-	c.charge_negative = (b0 >> 3) & 1;
+	c.charge_sign = (b0 >> 3) & 1 ? CLEAN_SIGN_NEGATIVE : CLEAN_SIGN_AUTO;
 	switch ((b0 >> 4) & 3) {
 	case 1:
 		c.device = "FZ-1";

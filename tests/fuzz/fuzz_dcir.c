@@ -70,7 +70,7 @@ push(void *ctx, void *dp, const struct cw_sample *s)
 	ref = st.r * exp(-(c->ea_kj * 1000.0 / DCIR_RGAS) *
 	    (1.0 / (st.temp + 273.15) - 1.0 / (c->ref_temp_c + 273.15)));
 	FZ_CHECK(st.r_ref == ref || fabs(st.r_ref - ref) <= 1e-12 * ref);
-	dcir_series_add(&d->ser, st.t, st.r_ref, r->maxpts);
+	dcir_series_add(&d->ser, st.t, st.r_ref, st.soc, r->maxpts);
 	FZ_CHECK(d->ser.n <= r->maxpts && d->ser.n <= d->ser.steps);
 	FZ_CHECK(d->ser.steps == d->found);
 }

@@ -13,19 +13,25 @@
  *   the span the device covers;
  * - dominant is one of the words SPEC.md allows, or empty;
  * - for tame input (every number |x| < 1e6) every reported number is
- *   finite or missing (NaN), never infinite.
+ *   finite or missing (NaN), never infinite;
+ * - the shares add up to 1;
+ * - the dwell table (lib/dwell.c) of the same rows: every cell at least
+ *   0, idle hours at most the hours, all of them at most the span.
  */
+#include "dwell.h"
 #include "fuzz_engine.h"
 #include "wear.h"
 
 struct dev {
 	struct devent e;
 	struct wear_dev w;
+	struct dwell_dev dw;
 	int tame;
 };
 
 struct run {
 	struct wear_conf conf;
+	struct dwell_conf dc;
 	double capacity;
 };
 
@@ -36,6 +42,7 @@ init(void *ctx, void *dp)
 	struct dev *d = dp;
 
 	wear_init(&d->w, &r->conf);
+	memset(&d->dw, 0, sizeof(d->dw));
 	d->tame = 1;
 }
 
@@ -50,6 +57,7 @@ push(void *ctx, void *dp, const struct cw_sample *s)
 	    (!cw_isnum(s->temp) || fz_tame(s->temp)) &&
 	    (!cw_isnum(s->soc) || fz_tame(s->soc));
 	wear_push(&d->w, &r->conf, s->t, s->v, s->i, s->temp, s->soc);
+	dwell_push(&d->dw, &r->dc, s->t, s->i, s->temp, s->soc);
 }
 
 /* X is missing, or a number at least 0 (finite when TAME). */
@@ -74,13 +82,14 @@ finish(void *ctx, void *dp)
 	int t, ok;
 
 	wear_finish(&d->w, &r->conf);
-	wear_report(&r->conf, &d->w.acc, r->capacity, &x);
+	wear_report(&r->conf, &d->w.acc, NULL, r->capacity, &x);
 	t = d->tame;
 	FZ_CHECK(nonneg(x.days, 1) && nonneg(x.charge_ah, t));
 	FZ_CHECK(nonneg(x.efc, t) && nonneg(x.max_depth_pct, t));
-	FZ_CHECK(nonneg(x.hours_soc_ge_95, 1));
-	FZ_CHECK(nonneg(x.hours_temp_ge_45, 1));
+	FZ_CHECK(nonneg(x.hours_near_full, 1));
+	FZ_CHECK(nonneg(x.hours_hot, 1));
 	FZ_CHECK(nonneg(x.cold_charge_ah, t) && nonneg(x.hot_charge_ah, t));
+	FZ_CHECK(nonneg(x.cool_charge_ah, t));
 	FZ_CHECK(nonneg(x.topoff_cycles, 1));
 	FZ_CHECK(nonneg(x.fade_pct, t) && nonneg(x.damage, t));
 	FZ_CHECK(nonneg(x.days_to_eol, 0));
@@ -97,22 +106,37 @@ finish(void *ctx, void *dp)
 		FZ_CHECK(x.fade_pct <= 100 + 1e-9);
 	span_h = d->w.acc.have ? (double)(d->w.acc.last - d->w.acc.first) /
 	    (3600.0 * CW_US_PER_S) : 0;
-	if (cw_isnum(x.hours_soc_ge_95))
-		FZ_CHECK(x.hours_soc_ge_95 <= span_h * (1 + 1e-9) + 1e-9);
-	if (cw_isnum(x.hours_temp_ge_45))
-		FZ_CHECK(x.hours_temp_ge_45 <= span_h * (1 + 1e-9) + 1e-9);
+	if (cw_isnum(x.hours_near_full))
+		FZ_CHECK(x.hours_near_full <= span_h * (1 + 1e-9) + 1e-9);
+	if (cw_isnum(x.hours_hot))
+		FZ_CHECK(x.hours_hot <= span_h * (1 + 1e-9) + 1e-9);
 	FZ_CHECK(x.dominant != NULL);
 	for (ok = 0, k = 0; k < sizeof(dom) / sizeof(dom[0]); k++)
 		ok |= strcmp(x.dominant, dom[k]) == 0;
 	FZ_CHECK(ok);
 	if (t) {
 		const double v[] = { x.share_cycling, x.share_high_soc,
-		    x.share_heat, x.max_charge_c, x.mean_charge_c, x.fade_ah };
+		    x.share_heat, x.max_charge_c, x.mean_charge_c, x.fade_ah,
+		    x.share_age, x.soh_pct };
 
 		for (k = 0; k < sizeof(v) / sizeof(v[0]); k++)
 			FZ_CHECK(!isinf(v[k]));
+		/* The shares add up to 1 (SPEC.md). */
+		if (cw_isnum(x.share_age) && isfinite(x.damage))
+			FZ_CHECK(fabs(x.share_age + x.share_cycling +
+			    x.share_high_soc + x.share_heat - 1) <= 1e-9 *
+			    (fabs(x.share_age) + fabs(x.share_cycling) +
+			    fabs(x.share_high_soc) + fabs(x.share_heat)));
 	}
 	FZ_CHECK(d->w.acc.rows == d->e.nrows);
+	for (k = 0; k < DWELL_NSOC * DWELL_NTEMP; k++) {
+		double h = d->dw.hours[k / DWELL_NTEMP][k % DWELL_NTEMP];
+		double i = d->dw.idle_hours[k / DWELL_NTEMP][k % DWELL_NTEMP];
+
+		FZ_CHECK(h >= 0 && i >= 0 && i <= h * (1 + 1e-12) &&
+		    isfinite(h));
+	}
+	FZ_CHECK(d->dw.covered_h <= span_h * (1 + 1e-9) + 1e-9);
 	wear_free(&d->w);
 }
 
@@ -142,6 +166,7 @@ LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 	r.conf.max_gap = gaps[(b2 >> 2) & 3] * CW_US_PER_S;
 	r.conf.topoff.max_gap = r.conf.max_gap;
 	r.capacity = caps[(b2 >> 4) & 3];
+	dwell_conf_set(&r.dc, &r.conf.lim, r.conf.min_current, r.conf.max_gap);
 	e.statesz = sizeof(struct dev);
 	e.init = init;
 	e.push = push;

@@ -67,8 +67,11 @@ def log(name, t, i, soc, raw, integer):
     frames.append(out)
     return out
 
+caps = {}
+
 def dock(name, raw, integer):
     cap = rng.uniform(1.5, 20.0)
+    caps[name] = cap
     load = rng.uniform(0.02, 0.05) * cap
     chg = rng.uniform(0.2, 0.5) * cap
     thr = rng.uniform(96.0, 98.5)
@@ -103,6 +106,7 @@ def dock(name, raw, integer):
 
 def full(name, raw, integer):
     cap = rng.uniform(2.0, 20.0)
+    caps[name] = cap
     soc = 40.0
     cur, lvl = [0.0], [soc]
     while soc < 100.0:
@@ -121,6 +125,7 @@ def full(name, raw, integer):
 
 def deep(name, raw, integer):
     cap = rng.uniform(5.0, 20.0)
+    caps[name] = cap
     soc = 20.0
     cur, lvl = [0.0], [soc]
     for c in range(3):
@@ -172,9 +177,17 @@ allrows[['device', 'time', 'voltage_v', 'i', 'temp_c', 'soc']].rename(
     columns={'i': 'current_a', 'soc': 'soc_pct'}).to_csv(
     tmp + '/in.csv', index=False, float_format='%.6g')
 json.dump(truth, open(tmp + '/truth.json', 'w'))
+with open(tmp + '/fleet.csv', 'w') as f:
+    f.write('device,capacity_ah\n')
+    for d in sorted(caps):
+        f.write('%s,%.6f\n' % (d, caps[d]))
 PY
-cw-topoff -s "$tmp/in.csv" >"$tmp/sum.csv"
-cw-topoff -e "$tmp/in.csv" >"$tmp/ev.csv"
+# The standby loads run up to C/20 (1 A on a 20 Ah pack): the standby
+# level from the fleet file's capacities, C/10, between them and the use
+# at C/2.
+opts="--fleet $tmp/fleet.csv --standby-rate 0.1"
+cw-topoff -s $opts "$tmp/in.csv" >"$tmp/sum.csv"
+cw-topoff -e $opts "$tmp/in.csv" >"$tmp/ev.csv"
 /usr/bin/python3 - "$tmp" <<'PY'
 import json, sys
 import pandas as pd

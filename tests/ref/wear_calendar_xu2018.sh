@@ -9,6 +9,25 @@
 #   P35   50 % SoC, 35 C  (heat)
 #   F25  100 % SoC, 25 C  (high SoC)
 #   F35  100 % SoC, 35 C  (both)
+#   C10   30 % SoC, 10 C  (emptier and cooler: negative shares)
+# The shares (SPEC.md, cw-wear): the calendar term A s tau split into A
+# (share_age) and the Shapley split of the excess, A (s-1) + A (s-1)
+# (tau-1) / 2 to share_high_soc and A (tau-1) + A (s-1) (tau-1) / 2 to
+# share_heat, each over f; checked to 1e-9 (the issue asks for 1e-3), and
+# that they add up to 1 to 1e-9.  dominant: the largest of the SoC and
+# heat shares when at least 0.25, else none (SPEC.md).
+# Packs in service, through the fleet file, 365 days at 50 %, 25 C:
+#   S90   measured SoH 90 %: f0 from L(f0) = 0.10 (brentq), the year's
+#         fade L(f0 + f) - L(f0) in points, soh_pct 90 - that, and
+#         days_to_eol to L = 0.20 at the year's pace; prior "soh"
+#   A365  in service a year before the first row, 200 full cycles before
+#         (efc_prior), --cycle-life 500: f0 = k_t * 365 d + 200 * f20 /
+#         500 (rest and cycles at reference, f20 = L^-1(0.20)); "age"
+#   NEW   not in the fleet file: f0 = 0, "new"
+# The constants below are typed from the paper's parameter table as
+# recalled (k_s, k_T, k_t, alpha_sei, beta_sei), not re-read from it for
+# this check: they agree with lib/xu2018.c, so this check proves the
+# equations and the split, not the constants.
 # End of life at 20 % fade (80 % state of health): common practice, no
 # source.
 set -eu
@@ -23,10 +42,18 @@ awk 'BEGIN {
 		printf "P35,%d,3.8,0,35,50\n", t
 		printf "F25,%d,4.2,0,25,100\n", t
 		printf "F35,%d,4.2,0,35,100\n", t
+		printf "C10,%d,3.6,0,10,30\n", t
+		printf "S90,%d,3.8,0,25,50\n", t
+		printf "A365,%d,3.8,0,25,50\n", t
+		printf "NEW,%d,3.8,0,25,50\n", t
 	}
 }' >"$tmp/in.csv"
-cw-wear "$tmp/in.csv" >"$tmp/out.csv"
-/usr/bin/python3 - "$tmp/out.csv" <<'PY'
+printf 'device,soh_pct,in_service,efc_prior\nS90,90,,\nA365,,2025-01-01,200\n' \
+    >"$tmp/fleet.csv"
+cw-wear --fleet "$tmp/fleet.csv" "$tmp/in.csv" >"$tmp/out.csv"
+cw-wear --fleet "$tmp/fleet.csv" --cycle-life 500 "$tmp/in.csv" \
+    >"$tmp/rated.csv"
+/usr/bin/python3 - "$tmp/out.csv" "$tmp/rated.csv" <<'PY'
 import csv, math, sys
 from scipy.optimize import brentq
 
@@ -45,8 +72,9 @@ def L(f): return 1 - a_sei * math.exp(-b_sei * f) - (1 - a_sei) * math.exp(-f)
 t = 365 * 86400.0
 f_eol = brentq(lambda f: L(f) - 0.20, 1e-9, 5.0, xtol=1e-15)
 cases = {"P25": (0.5, 25.0), "P35": (0.5, 35.0),
-         "F25": (1.0, 25.0), "F35": (1.0, 35.0)}
+         "F25": (1.0, 25.0), "F35": (1.0, 35.0), "C10": (0.3, 10.0)}
 rows = {r["device"]: r for r in csv.DictReader(open(sys.argv[1]))}
+rated = {r["device"]: r for r in csv.DictReader(open(sys.argv[2]))}
 bad = 0
 def check(dev, col, want, rel=1e-7, absol=1e-12):
     global bad
@@ -58,27 +86,62 @@ def check(dev, col, want, rel=1e-7, absol=1e-12):
     print("%s %s %s: got %r, want %r" % ("ok  " if ok else "FAIL", dev, col, got, want))
     bad += not ok
 for dev, (s, c) in cases.items():
-    f = k_t * t * S_s(s) * S_T(c)
-    f_s1 = k_t * t * min(S_s(s), 1) * S_T(c)
-    f_T1 = k_t * t * S_s(s) * min(S_T(c), 1)
+    A, ss, tau = k_t * t, S_s(s), S_T(c)
+    f = A * ss * tau
+    sh = {"share_age": A / f, "share_cycling": 0.0,
+          "share_high_soc": (A * (ss - 1) + A * (ss - 1) * (tau - 1) / 2) / f,
+          "share_heat": (A * (tau - 1) + A * (ss - 1) * (tau - 1) / 2) / f}
     check(dev, "days", 365.0)
     check(dev, "efc", 0.0)
     check(dev, "max_depth_pct", 0.0)
     check(dev, "charge_ah", 0.0)
-    check(dev, "hours_soc_ge_95", 365 * 24.0 if s >= 0.95 else 0.0)
-    check(dev, "hours_temp_ge_45", 0.0)
+    check(dev, "hours_near_full", 365 * 24.0 if s >= 0.95 else 0.0)
+    check(dev, "hours_hot", 0.0)
     check(dev, "damage", f)
     check(dev, "fade_pct", 100 * L(f))
-    check(dev, "share_cycling", 0.0)
-    check(dev, "share_high_soc", (f - f_s1) / f)
-    check(dev, "share_heat", (f - f_T1) / f)
+    check(dev, "soh_pct", 100 * (1 - L(f)))
+    for k, v in sh.items():
+        check(dev, k, v, rel=0, absol=1e-9)
+    tot = sum(float(rows[dev][k]) for k in sh)
+    ok = abs(tot - 1) <= 1e-9
+    print("%s %s shares add up to %.15g" % ("ok  " if ok else "FAIL", dev, tot))
+    bad += not ok
     check(dev, "days_to_eol", max(f_eol - f, 0) / (f / t) / 86400)
-    dom = "none" if f <= k_t * t * (1 + 1e-9) else \
-        max([("high-soc", (f - f_s1) / f), ("heat", (f - f_T1) / f)],
-            key=lambda x: x[1])[0]
-    ok = rows[dev]["dominant"] == dom
+    best = max([("high-soc", sh["share_high_soc"]), ("heat", sh["share_heat"])],
+               key=lambda x: x[1])
+    dom = best[0] if best[1] >= 0.25 else "none"
+    ok = rows[dev]["dominant"] == dom and rows[dev]["prior"] == "new"
     print("%s %s dominant: got %r, want %r" % ("ok  " if ok else "FAIL", dev, rows[dev]["dominant"], dom))
     bad += not ok
+# Packs in service.
+f = k_t * t
+f0 = brentq(lambda x: L(x) - 0.10, 0.0, 5.0, xtol=1e-15)
+check("S90", "damage_prior", f0, rel=1e-9)
+check("S90", "fade_pct", 100 * (L(f0 + f) - L(f0)), rel=1e-7)
+check("S90", "soh_pct", 100 * (1 - L(f0 + f)), rel=1e-9)
+check("S90", "days_to_eol", (f_eol - f0 - f) / (f / t) / 86400, rel=1e-7)
+check("NEW", "damage_prior", 0.0)
+check("NEW", "fade_pct", 100 * L(f))
+for dev, pr in (("S90", "soh"), ("A365", "age"), ("NEW", "new")):
+    ok = rows[dev]["prior"] == pr
+    print("%s %s prior: got %r, want %r" % ("ok  " if ok else "FAIL", dev, rows[dev]["prior"], pr))
+    bad += not ok
+# A365 rated to 500 cycles: the cycle damage is scaled so that 500 full
+# cycles at reference reach f20; the calendar term is not scaled.
+f0 = k_t * 365 * 86400 + 200 * f_eol / 500
+def check_r(col, want, rel=1e-7):
+    global bad
+    got = float(rated["A365"][col])
+    ok = abs(got - want) <= rel * abs(want)
+    print("%s A365 rated %s: got %r, want %r" % ("ok  " if ok else "FAIL", col, got, want))
+    bad += not ok
+check_r("damage_prior", f0, rel=1e-9)
+check_r("fade_pct", 100 * (L(f0 + f) - L(f0)))
+check_r("soh_pct", 100 * (1 - L(f0 + f)), rel=1e-9)
+# The year's fade of a pack at SoH 90 % is far below a new pack's (the
+# film's early loss is behind it): about 1.2 points against 5.8.
+print("S90 fade %.4f points in a year, a new pack %.4f" % (
+    float(rows["S90"]["fade_pct"]), float(rows["NEW"]["fade_pct"])))
 # The published model at the reference point: about 5.8 % fade in a year
 # of rest (worked by hand from the equations: f = 0.013056).
 check("P25", "fade_pct", 5.79, rel=2e-3)

@@ -90,10 +90,19 @@ cyc = 100 * S_d(0.5) * S_s(0.65) * S_T(40.0)
 check("unscaled", "HOT", "efc", 50.0)
 check("unscaled", "HOT", "damage", cyc + cal("HOT"))
 check("unscaled", "HOT", "share_cycling", 100 * S_d(0.5) / (cyc + cal("HOT")))
-f_s1 = 100 * S_d(0.5) * S_T(40.0) + np.trapz(
-    k_t * np.minimum(S_s(np.array(data["HOT"][1])), 1) * S_T(np.array(data["HOT"][2])),
-    np.array(data["HOT"][0]))
-check("unscaled", "HOT", "share_high_soc", 1 - f_s1 / (cyc + cal("HOT")))
+# The Shapley split of SPEC.md: each term A s tau gives A (s-1) +
+# A (s-1) (tau-1) / 2 to share_high_soc, A (tau-1) + the same half to
+# share_heat; the cycles' A is 100 S_d(0.5), the calendar's k_t dt.
+def parts(A, s, tau):
+    both = A * (s - 1) * (tau - 1) / 2
+    return A * (s - 1) + both, A * (tau - 1) + both
+t, s, c = (np.array(x) for x in data["HOT"])
+cs, ct = parts(100 * S_d(0.5), S_s(0.65), S_T(40.0))
+ks, kt_ = parts(k_t, S_s(s), S_T(c))
+f = cyc + cal("HOT")
+check("unscaled", "HOT", "share_high_soc", (cs + np.trapz(ks, t)) / f)
+check("unscaled", "HOT", "share_heat", (ct + np.trapz(kt_, t)) / f)
+check("unscaled", "HOT", "share_age", k_t * (t[-1] - t[0]) / f)
 # --cycle-life 500: the scale makes 500 S_d(1) reach f_eol.
 scale = f_eol / (500 * S_d(1.0))
 for dev, n in (("L500", 500), ("L250", 250)):

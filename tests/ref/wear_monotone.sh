@@ -48,7 +48,7 @@ bad = 0
 for name, pts in sweeps.items():
     got = [rows["%s-%d" % (name, i)] for i in range(len(pts))]
     for col, strict in (("damage", True), ("fade_pct", True),
-                        ("hours_soc_ge_95", False), ("hours_temp_ge_45", False)):
+                        ("hours_near_full", False), ("hours_hot", False)):
         v = [float(r[col]) for r in got]
         ok = all((b > a) if strict else (b >= a) for a, b in zip(v, v[1:]))
         print("%s %s %s: %s" % ("ok  " if ok else "FAIL", name, col, " ".join("%.6g" % x for x in v)))

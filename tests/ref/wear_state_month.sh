@@ -56,7 +56,7 @@ def load(path):
     with open(path, newline="") as f:
         return {r["device"]: r for r in csv.DictReader(f)}
 
-TEXT = ("device", "first", "last", "dominant")
+TEXT = ("device", "first", "last", "dominant", "prior")
 
 def worst(ref, got):
     """The largest relative difference over every device and number."""
@@ -85,8 +85,8 @@ for name, path, bound in (("night by night (--state)", sys.argv[2], 5e-3),
     assert w <= bound, name
 
 # 3. The days apart, summed, against one pass.
-SUMS = ("charge_ah", "efc", "hours_soc_ge_95", "hours_temp_ge_45",
-        "cold_charge_ah", "topoff_cycles", "damage")
+SUMS = ("charge_ah", "efc", "hours_near_full", "hours_hot",
+        "cold_charge_ah", "cool_charge_ah", "topoff_cycles", "damage")
 tot = {}
 for path in sys.argv[4:]:
     for dev, r in load(path).items():

@@ -360,8 +360,11 @@ test_nonpositive(void **state)
 	assert_int_equal(r.n.n[DCIR_NONPOS], 2);
 }
 
-/* Beyond the cap, every other point goes and the stride doubles: the
- * kept points are the steps whose number is a multiple of the stride. */
+/*
+ * Beyond the cap, buckets double: 1000 steps a second apart, cap 64: at
+ * buckets of 16 s, 1000 / 16 = 62.5, so 63 points, the first of each
+ * bucket (t = 16 j s); at 8 s there would be 125.
+ */
 static void
 test_series_thinning(void **state)
 {
@@ -372,14 +375,155 @@ test_series_thinning(void **state)
 	(void)state;
 	memset(&s, 0, sizeof s);
 	for (k = 0; k < 1000; k++)
-		dcir_series_add(&s, (cw_time)k * S, (double)k, 64);
+		dcir_series_add(&s, (cw_time)k * S, (double)k, CW_MISSING, 64);
 	assert_true(s.steps == 1000);
-	assert_true(s.n <= 64 && s.n > 32);
-	assert_true(s.stride == 16);
+	assert_int_equal(s.n, 63);
+	assert_int_equal(s.level, 4);
 	for (i = 0; i < s.n; i++)
-		assert_true(s.t[i] == (cw_time)(i * s.stride) * S &&
-		    s.r[i] == (double)(i * s.stride));
+		assert_true(s.pt[i].t == (cw_time)(i * 16) * S &&
+		    s.pt[i].r == (double)(i * 16));
 	assert_true(s.first == 0 && s.last == 999 * S);
+	assert_true(s.bin[DCIR_NBIN].n == 1000);
+	dcir_series_free(&s);
+}
+
+/* A deterministic pseudo-random source (the C standard's rand()). */
+static unsigned long lcg = 1;
+
+static unsigned
+rnd(unsigned n)
+{
+	lcg = lcg * 1103515245UL + 12345UL;
+	return (unsigned)((lcg / 65536UL) % 32768UL) % n;
+}
+
+/*
+ * Split-invariant: 3000 steps at irregular times and SoC, cap 100, cut
+ * into two at 40 places and into five pieces once, joined: always the
+ * same points, counts and times as one pass.
+ */
+static void
+test_series_split(void **state)
+{
+	static cw_time t[3000];
+	static double soc[3000];
+	struct dcir_series one, a, b, p[5];
+	size_t k, i, cut;
+	int j;
+
+	(void)state;
+	for (k = 0, t[0] = 0; k < 3000; k++) {
+		t[k] = (k ? t[k - 1] : 0) + (cw_time)(rnd(4) == 0 ? 0 :
+		    rnd(20000)) * S / 10;
+		soc[k] = rnd(8) == 0 ? CW_MISSING : 60 + rnd(400) / 10.0;
+	}
+	memset(&one, 0, sizeof one);
+	for (k = 0; k < 3000; k++)
+		dcir_series_add(&one, t[k], (double)k, soc[k], 100);
+	assert_true(one.n <= 100 && one.n > 50);
+	for (j = 0; j < 41; j++) {
+		cut = j < 40 ? (size_t)j * 75 : 2999;
+		memset(&a, 0, sizeof a);
+		memset(&b, 0, sizeof b);
+		for (k = 0; k < 3000; k++)
+			dcir_series_add(k < cut ? &a : &b, t[k], (double)k,
+			    soc[k], 100);
+		dcir_series_join(&a, &b, 100);
+		assert_int_equal(a.n, one.n);
+		assert_int_equal(a.level, one.level);
+		assert_true(a.steps == one.steps && a.first == one.first &&
+		    a.last == one.last);
+		for (i = 0; i < one.n; i++)
+			assert_true(a.pt[i].t == one.pt[i].t &&
+			    a.pt[i].r == one.pt[i].r &&
+			    a.pt[i].bin == one.pt[i].bin);
+		for (i = 0; i <= DCIR_NBIN; i++)
+			assert_true(a.bin[i].n == one.bin[i].n &&
+			    (a.bin[i].n == 0 || (a.bin[i].first ==
+			    one.bin[i].first && a.bin[i].last ==
+			    one.bin[i].last)));
+		dcir_series_free(&a);
+	}
+	memset(p, 0, sizeof p);
+	for (k = 0; k < 3000; k++)
+		dcir_series_add(&p[k * 5 / 3000], t[k], (double)k, soc[k],
+		    100);
+	for (j = 4; j > 0; j--)
+		dcir_series_join(&p[j - 1], &p[j], 100);
+	assert_int_equal(p[0].n, one.n);
+	for (i = 0; i < one.n; i++)
+		assert_true(p[0].pt[i].t == one.pt[i].t &&
+		    p[0].pt[i].r == one.pt[i].r);
+	dcir_series_free(&p[0]);
+	dcir_series_free(&one);
+}
+
+/*
+ * The --soc auto window: steps at SoC 72 to 98 (20 of them) and 5 at 30:
+ * every window from 69 to 72 holds the 20; the one whose middle is
+ * nearest 50 is 69 (69..99).  With 30 more steps at 40, the windows
+ * from 11 to 30 hold 35 (those and the 5 at 30): the one whose middle is
+ * nearest 50 is 30 (30..60).  A fit over the window leaves the other
+ * steps out.
+ */
+static void
+test_series_window(void **state)
+{
+	struct dcir_series s;
+	struct dcir_trend_conf c;
+	struct dcir_trend tr;
+	int k;
+
+	(void)state;
+	memset(&s, 0, sizeof s);
+	dcir_trend_conf_default(&c);
+	assert_int_equal(dcir_series_window(&s), -1);
+	for (k = 0; k < 20; k++)
+		dcir_series_add(&s, k * DAY, 0.05, k % 2 ? 72.0 : 98.9, 2048);
+	for (k = 0; k < 5; k++)
+		dcir_series_add(&s, (20 + k) * DAY, 0.5, 30.5, 2048);
+	assert_int_equal(dcir_series_window(&s), 69);
+	dcir_trend_fit_window(&s, &c, 69, &tr);
+	assert_true(tr.fitted && tr.steps == 20 && tr.used == 20);
+	assert_true(tr.last == 19 * DAY);
+	assert_true(fabs(tr.slope) < 1e-15);
+	dcir_trend_fit(&s, &c, &tr);
+	assert_true(tr.steps == 25);
+	for (k = 0; k < 30; k++)
+		dcir_series_add(&s, (25 + k) * DAY, 0.05, 40.0, 2048);
+	assert_int_equal(dcir_series_window(&s), 30);
+	assert_int_equal(dcir_soc_bin(100.0), 99);
+	assert_int_equal(dcir_soc_bin(-1.0), 0);
+	assert_int_equal(dcir_soc_bin(CW_MISSING), DCIR_NBIN);
+	dcir_series_free(&s);
+}
+
+/*
+ * End of life only on a sure slope: a flat line of 0.05 ohm with a tiny
+ * tilt of 1e-6 ohm a day under +-0.005 ohm of scatter (pseudo-random):
+ * over 30 days the pairwise slopes spread about +-3e-4, so Sen's interval
+ * includes zero: growth and its bounds are given, the lower one below
+ * zero, and no eol_date.
+ */
+static void
+test_trend_unsure(void **state)
+{
+	struct dcir_series s;
+	struct dcir_trend_conf c;
+	struct dcir_trend tr;
+	int d;
+
+	(void)state;
+	memset(&s, 0, sizeof s);
+	dcir_trend_conf_default(&c);
+	for (d = 0; d < 30; d++)
+		dcir_series_add(&s, d * DAY, 0.05 + (rnd(1001) - 500.0) * 1e-5 +
+		    1e-6 * d, 50.0, 2048);
+	dcir_trend_fit(&s, &c, &tr);
+	assert_true(tr.fitted);
+	assert_true(tr.slope_lo < 0 && tr.slope_hi > 0);
+	assert_true(tr.growth_lo_30d < 0 && tr.growth_hi_30d > 0);
+	assert_false(tr.has_eol);
 	dcir_series_free(&s);
 }
 
@@ -401,11 +545,12 @@ test_trend_line(void **state)
 	memset(&s, 0, sizeof s);
 	dcir_trend_conf_default(&c);
 	for (d = 0; d < 100; d++)
-		dcir_series_add(&s, d * DAY, 0.040 + 0.0001 * d, 2048);
+		dcir_series_add(&s, d * DAY, 0.040 + 0.0001 * d, 50.0,
+		    2048);
 	/* Glitches: a contact that read ten times the resistance, and one
 	 * that read nearly nothing. */
-	s.r[30] = 0.4;
-	s.r[70] = 0.001;
+	s.pt[30].r = 0.4;
+	s.pt[70].r = 0.001;
 	dcir_trend_fit(&s, &c, &tr);
 	assert_true(tr.fitted);
 	assert_true(tr.used == 100);
@@ -438,12 +583,12 @@ test_trend_gates(void **state)
 	/* Nine steps: fewer than ten. */
 	memset(&s, 0, sizeof s);
 	for (d = 0; d < 9; d++)
-		dcir_series_add(&s, d * DAY, 0.05, 2048);
+		dcir_series_add(&s, d * DAY, 0.05, 50.0, 2048);
 	dcir_trend_fit(&s, &c, &tr);
 	assert_false(tr.fitted);
 	assert_false(cw_isnum(tr.r_start));
 	/* Ten: enough. */
-	dcir_series_add(&s, 9 * DAY, 0.05, 2048);
+	dcir_series_add(&s, 9 * DAY, 0.05, 50.0, 2048);
 	dcir_trend_fit(&s, &c, &tr);
 	assert_true(tr.fitted);
 	/* Flat: no growth, no end of life. */
@@ -454,7 +599,7 @@ test_trend_gates(void **state)
 	/* Ten steps within six days: shorter than seven. */
 	memset(&s, 0, sizeof s);
 	for (d = 0; d < 10; d++)
-		dcir_series_add(&s, d * DAY * 6 / 9, 0.05, 2048);
+		dcir_series_add(&s, d * DAY * 6 / 9, 0.05, 50.0, 2048);
 	dcir_trend_fit(&s, &c, &tr);
 	assert_false(tr.fitted);
 	dcir_series_free(&s);
@@ -462,7 +607,7 @@ test_trend_gates(void **state)
 	/* Falling resistance: growth negative, no end of life. */
 	memset(&s, 0, sizeof s);
 	for (d = 0; d < 20; d++)
-		dcir_series_add(&s, d * DAY, 0.05 - 0.0001 * d, 2048);
+		dcir_series_add(&s, d * DAY, 0.05 - 0.0001 * d, 50.0, 2048);
 	dcir_trend_fit(&s, &c, &tr);
 	assert_true(tr.fitted && tr.growth_pct < 0 && !tr.has_eol);
 	dcir_series_free(&s);
@@ -487,6 +632,9 @@ main(void)
 		cmocka_unit_test(test_gap_and_unsteady),
 		cmocka_unit_test(test_nonpositive),
 		cmocka_unit_test(test_series_thinning),
+		cmocka_unit_test(test_series_split),
+		cmocka_unit_test(test_series_window),
+		cmocka_unit_test(test_trend_unsure),
 		cmocka_unit_test(test_trend_line),
 		cmocka_unit_test(test_trend_gates),
 	};

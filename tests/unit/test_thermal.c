@@ -17,6 +17,7 @@
 #include <stdarg.h>
 #include <stddef.h>
 #include <stdint.h>
+#include <string.h>
 #include <cmocka.h>
 
 #include "opt.h"
@@ -555,6 +556,82 @@ test_merge_soc(void **st)
 	near(got[0].soc_end, 31.4, 0);
 }
 
+/*
+ * The charge protocol of the JEITA scheme (values from memory of the
+ * guideline: 0.5 C in the cool zone, 4.10 V per cell in the warm zone;
+ * margins 5 % and 0.02 V are this project's, thermal.h).  A 14 Ah,
+ * 10-cell pack: the cool limit is 0.5 * 14 * 1.05 = 7.35 A, the warm
+ * limit 41.2 V.  Rows {t, I, T, SoC} with the voltage fed beside them.
+ */
+static void
+test_protocol(void **state)
+{
+	static const double cool[][4] = {
+		{ 0, 0, 20, NA }, { 60, 4.2, 5, NA }, { 120, 4.2, 5, NA },
+		{ 180, 4.2, 5, NA }, { 240, 0, 20, NA },
+	};
+	struct thermal_conf c;
+	struct thermal_dev d;
+	struct thermal_event ev;
+	size_t k;
+
+	(void)state;
+	setup_conf(&c);
+	/* 0.3 C in the cool zone: within; the event keeps i_max, v_max. */
+	thermal_init(&d);
+	assert_false(cw_isnum(d.cap_ah));
+	d.cap_ah = 14;
+	d.cells = 10;
+	for (k = 0; k < 5; k++)
+		thermal_push_v(&d, &c, (cw_time)(cool[k][0] * S), cool[k][1],
+		    cool[k][2], cool[k][3], 39.0 + (double)k / 10);
+	thermal_finish(&d, &c);
+	assert_int_equal(ngot, 1);
+	near(got[0].i_max, 4.2, 0);
+	near(got[0].v_max, 39.3, 1e-12);
+	assert_int_equal(got[0].protocol, THERMAL_P_WITHIN);
+	assert_int_equal(d.protocol[THERMAL_P_WITHIN], 1);
+	/* The verdicts on events built by hand. */
+	memset(&ev, 0, sizeof(ev));
+	ev.kind = THERMAL_CHARGE;
+	ev.zone = THERMAL_COOL;
+	ev.i_max = 14;		/* 1 C */
+	ev.v_max = 39;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10),
+	    THERMAL_P_OVER_CURRENT);
+	ev.i_max = 7.34;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10), THERMAL_P_WITHIN);
+	ev.i_max = 7.36;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10),
+	    THERMAL_P_OVER_CURRENT);
+	assert_int_equal(thermal_protocol(&c, &ev, NA, 10), THERMAL_P_UNKNOWN);
+	assert_int_equal(thermal_protocol(&c, &ev, 0, 10), THERMAL_P_UNKNOWN);
+	/* Warm: 4.15 V per cell over, 4.11 within, cells unknown unknown. */
+	ev.zone = THERMAL_WARM;
+	ev.i_max = 14;
+	ev.v_max = 41.5;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10),
+	    THERMAL_P_OVER_VOLTAGE);
+	ev.v_max = 41.1;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10), THERMAL_P_WITHIN);
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 0), THERMAL_P_UNKNOWN);
+	ev.v_max = NA;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10), THERMAL_P_UNKNOWN);
+	/* No charging at all below T1 and above T4, known pack or not. */
+	ev.zone = THERMAL_BELOW_MIN;
+	ev.i_max = 0.1;
+	assert_int_equal(thermal_protocol(&c, &ev, NA, 0),
+	    THERMAL_P_NO_CHARGE);
+	ev.zone = THERMAL_ABOVE_MAX;
+	assert_int_equal(thermal_protocol(&c, &ev, 14, 10),
+	    THERMAL_P_NO_CHARGE);
+	assert_string_equal(thermal_protocol_name(THERMAL_P_NO_CHARGE),
+	    "no-charge-allowed");
+	assert_string_equal(thermal_protocol_name(THERMAL_P_OVER_CURRENT),
+	    "over-current");
+	assert_string_equal(thermal_protocol_name(THERMAL_NPROTO), "?");
+}
+
 int
 main(void)
 {
@@ -576,6 +653,7 @@ main(void)
 		cmocka_unit_test(test_max_gap),
 		cmocka_unit_test(test_unjudged),
 		cmocka_unit_test(test_merge_soc),
+		cmocka_unit_test(test_protocol),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

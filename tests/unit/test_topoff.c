@@ -43,8 +43,9 @@ struct sim {
 
 /* What the detector emitted. */
 struct rec {
-	size_t nc, nh;
+	size_t nc, nh, nu;
 	struct topoff_cycle c[MAXEV];
+	struct topoff_cycle u[MAXEV];	/* use dips */
 	struct topoff_hold h[MAXEV];
 	struct topoff *from;	/* the state the last callback named */
 };
@@ -59,6 +60,17 @@ on_cycle(void *ctx, struct topoff *st, const struct topoff_cycle *c)
 
 	assert_true(r->nc < MAXEV);
 	r->c[r->nc++] = *c;
+	r->from = st;
+}
+
+static void
+on_use(void *ctx, struct topoff *st, const struct topoff_cycle *c)
+{
+	struct rec *r = ctx;
+
+	assert_true(r->nu < MAXEV);
+	assert_true(c->use);
+	r->u[r->nu++] = *c;
 	r->from = st;
 }
 
@@ -78,7 +90,16 @@ conf_init(struct topoff_conf *c)
 	topoff_conf_default(c);
 	c->on_cycle = on_cycle;
 	c->on_hold = on_hold;
+	c->on_use = on_use;
 	c->ctx = &rec;
+	/*
+	 * The model pack of 1 Ah drains at 0.5 A (0.5 % a row, 50 %/h) in
+	 * these cases, to keep the steps exact: that is its standby here, so
+	 * the standby level sits above it, at 1 A and 60 %/h, below the 3 A
+	 * (300 %/h) rides of test_use_dips.
+	 */
+	c->standby_a = 1.0;
+	c->standby_fall = 60.0;
 	memset(&rec, 0, sizeof(rec));
 }
 
@@ -103,6 +124,14 @@ sim_step(struct sim *s, double i_a)
 	/* 100 % / 3600 s = 1 % / 36 s, exact for the steps used here. */
 	s->soc += i_a * ((double)s->dt / (36.0 * S)) / s->cap_ah;
 	s->rows[s->n++] = (struct row){ s->t, CW_MISSING, i_a, s->soc };
+}
+
+/* A row whose current the gauge did not report: NaN in the row. */
+static void
+sim_step_nan(struct sim *s, double i_a)
+{
+	sim_step(s, i_a);
+	s->rows[s->n - 1].i = CW_MISSING;
 }
 
 static void
@@ -324,6 +353,100 @@ add_noise(struct sim *s, double soc_amp, double i_amp)
 		s->rows[k].soc += noise(soc_amp);
 		s->rows[k].i += noise(i_amp);
 	}
+}
+
+/*
+ * Dips by use apart from top-offs (topoff.h), 36 s rows of a 1 Ah pack:
+ * from 96 % charged at 1 A to 100, then in turn
+ *  1. drain at -0.5 A (standby) for 2 rows to 99, recharge 1 row: a
+ *     top-off, depth 1;
+ *  2. a ride at -3 A (below -1 A, the standby level here) for 1 row to
+ *     97, a pause at 0, recharge 3 rows: a use dip, depth 3;
+ *  3. 2 rows of drain without current (99.5, 99.0: 0.5 % in 36 s is
+ *     50 %/h, under 60, timed from the first row at the level before),
+ *     recharge 1 row: a top-off, depth 1;
+ *  4. 1 row without current falling 3 % (300 %/h): a use row by the fall
+ *     rate; recharge 3 rows: a use dip, depth 3;
+ * each recharge ended by rows at rest; then drain out of the band.
+ */
+static void
+build_uses(struct sim *s)
+{
+	sim_init(s, 96.0, 36 * S);
+	sim_steps(s, 1.0, 4);
+	sim_steps(s, 0.0, 3);
+	sim_steps(s, -0.5, 2);
+	sim_steps(s, 1.0, 1);
+	sim_steps(s, 0.0, 3);
+	sim_steps(s, -3.0, 1);
+	sim_steps(s, 0.0, 1);
+	sim_steps(s, 1.0, 3);
+	sim_steps(s, 0.0, 3);
+	sim_step_nan(s, -0.5);
+	sim_step_nan(s, -0.5);
+	sim_steps(s, 1.0, 1);
+	sim_steps(s, 0.0, 3);
+	sim_step_nan(s, -3.0);
+	sim_steps(s, 1.0, 3);
+	sim_steps(s, 0.0, 3);
+	sim_steps(s, -0.5, 14);
+}
+
+static void
+test_use_dips(void **unused)
+{
+	struct topoff_conf c;
+	struct topoff st;
+	struct sim s;
+	size_t k;
+
+	(void)unused;
+	conf_init(&c);
+	build_uses(&s);
+	run(&s, &c, &st);
+	assert_int_equal(rec.nh, 1);
+	assert_int_equal(rec.nc, 2);
+	assert_int_equal(rec.nu, 2);
+	for (k = 0; k < 2; k++) {
+		near(rec.c[k].depth, 1.0, 1e-9);
+		assert_int_equal(rec.c[k].use, 0);
+		near(rec.u[k].depth, 3.0, 1e-9);
+		/* 3 rows at 1 A of 36 s: 0.03 Ah. */
+		near(rec.u[k].charge_ah, 0.03, 1e-12);
+	}
+	/* In order: top-off, ride, top-off, fall. */
+	assert_true(rec.c[0].end < rec.u[0].start + 1);
+	assert_true(rec.u[0].end <= rec.c[1].start);
+	assert_true(rec.c[1].end <= rec.u[1].start);
+	assert_int_equal(rec.h[0].cycles, 2);
+	assert_int_equal(rec.h[0].use_dips, 2);
+	near(rec.h[0].depth_max, 1.0, 1e-9);
+	assert_int_equal(st.tot.use_dips, 2);
+	assert_int_equal(st.tot.cycles, 2);
+
+	/* This device's standby level of 5 A takes the ride for standby. */
+	conf_init(&c);
+	topoff_init(&st);
+	st.standby_a = 5.0;
+	for (k = 0; k < s.n; k++)
+		topoff_push(&st, &c, s.rows[k].t, s.rows[k].v, s.rows[k].i,
+		    s.rows[k].soc);
+	topoff_finish(&st, &c);
+	assert_int_equal(rec.nc, 3);
+	assert_int_equal(rec.nu, 1);
+	/* A fall rate of 40 %/h takes the 50 %/h drain for use too. */
+	conf_init(&c);
+	c.standby_fall = 40.0;
+	run(&s, &c, &st);
+	assert_int_equal(rec.nc, 1);
+	assert_int_equal(rec.nu, 3);
+	/* Without on_use, use dips are only counted. */
+	conf_init(&c);
+	c.on_use = NULL;
+	run(&s, &c, &st);
+	assert_int_equal(rec.nc, 2);
+	assert_int_equal(rec.nu, 0);
+	assert_int_equal(rec.h[0].use_dips, 2);
 }
 
 /*
@@ -932,6 +1055,7 @@ main(void)
 		cmocka_unit_test(test_signal_change),
 		cmocka_unit_test(test_raw_and_resampled),
 		cmocka_unit_test(test_two_devices),
+		cmocka_unit_test(test_use_dips),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

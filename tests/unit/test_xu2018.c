@@ -118,7 +118,7 @@ test_fade(void **st)
 	assert_true(xu2018_damage_at(P, 0.0) == 0.0);
 }
 
-/* The table: xu2018 first and found by name; its capped forms. */
+/* The table: xu2018 first and found by name; its split by cause. */
 static void
 test_table(void **st)
 {
@@ -131,13 +131,19 @@ test_table(void **st)
 	m = model_find("xu2018");
 	m->cycle(1.0, 1.0, 35.0, &e);
 	near(e.full, 1.6820276496988864 * 1.9552361 / 17000, 1e-6);
-	near(e.depth_only, 1.0 / 17000, 1e-12);
-	near(e.soc_capped, 1.9552361 / 17000, 1e-6);
-	near(e.temp_capped, 1.6820276496988864 / 17000, 1e-12);
-	/* Below the references the capped forms equal the full one. */
+	/* The Shapley split of model.h, by hand: s = 1.6820276 (SoC 100 %),
+	 * tau = 1.9552361 (35 C), A = 1 / 17000 (a full cycle). */
+	near(e.ref, 1.0 / 17000, 1e-12);
+	near(e.soc, (0.6820276496988864 + 0.6820276496988864 * 0.9552361 /
+	    2) / 17000, 1e-6);
+	near(e.temp, (0.9552361 + 0.6820276496988864 * 0.9552361 / 2) /
+	    17000, 1e-6);
+	near(e.ref + e.soc + e.temp, e.full, 1e-14);
+	/* Emptier and cooler than reference: both excesses negative. */
 	m->calendar(0.2, 10.0, &e);
-	assert_true(e.full == e.soc_capped && e.full == e.temp_capped);
-	assert_true(e.depth_only == 0.0);
+	assert_true(e.soc < 0 && e.temp < 0);
+	assert_true(e.ref == xu2018_published.kt);
+	near(e.ref + e.soc + e.temp, e.full, 1e-14);
 	near(m->damage_at(m->fade(0.05)), 0.05, 1e-10);
 }
 

@@ -2,6 +2,7 @@
 # delimiter is not a comma reads a point or a comma as the decimal mark.
 # By hand: 41,822 V (10 cells: in 15..50 V), -0,121 A, 18,95 F = -7.25 C
 # ((18.95 - 32) * 5/9, the definition of the degree Fahrenheit).
+# source: hand
 cd "$TMPDIR_CASE" || exit 1
 printf 'local_time;pack_id;volts;amps;temp_f;soc\n2026-01-12T00:00:02+01:00;EB-0002;41,822;-0,121;18,95;99\n2026-01-12T00:00:12+01:00;EB-0002;41.8;-0.1;19;99\n' >semi.csv
 printf 'time\tdevice\tvoltage_v\tcurrent_a\n2026-01-12 00:00:02\tX\t3,7\t1.5\n' >tab.csv

@@ -1,6 +1,9 @@
 # --cells scales the default voltage bounds (1.5..5.0 V per cell) and
 # --bounds overrides any bound, in canonical units after conversion; a
 # temperature bound takes a unit suffix.  Bounds are inclusive.
+# source: hand (the default bounds of cw-clean(1), 1.5..5.0 V per cell,
+#   applied row by row; 14 F = -10 C, 140 F = 60 C by C = (F - 32) * 5/9;
+#   263.15 K = -10 C, 333.15 K = 60 C by K = C + 273.15)
 cd "$TMPDIR_CASE" || exit 1
 # One pack, rows at 1 s; the voltage column (V) is the 5th field.
 printf 'device,time,voltage_v,current_a,temp_c,soc_pct\n' >a.csv

@@ -4,6 +4,7 @@
 # of a kelvin and of a degree Celsius; a SoC fraction 1 is 100 %.
 # Epoch 1772323200 s is 2026-03-01T00:00:00Z (Python datetime.fromtimestamp
 # (1772323200, timezone.utc); tests/ref/clean_time.sh checks many more).
+# source: hand
 cd "$TMPDIR_CASE" || exit 1
 echo '== mV, mA, dK, frac, epoch ms'
 # 2931 dK = 293.1 K = 19.95 C; 0.835 = 83.5 %.

@@ -1,5 +1,7 @@
 # -d ';' and tab with --decimal-comma, as spreadsheet exports in many
 # locales write them; quoted fields keep their delimiter.
+# source: hand (every value is the field read with a decimal comma: "3,812" is
+#   3.812)
 cd "$TMPDIR_CASE" || exit 1
 printf 'Pack;Time;Voltage (V);Current (A);Temp (C);SoC (%%)\n"P;1";2026-03-01T00:00:00Z;3,812;-2,35;20,5;83,25\nP2;2026-03-01T00:00:00Z;3,9;1;-5,5;90\n' >semi.csv
 cw-clean -d ';' --decimal-comma semi.csv

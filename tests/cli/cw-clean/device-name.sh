@@ -1,5 +1,6 @@
 # --device NAME for a log without a device column, from a file and from
 # standard input; -c device= and --device together are a usage error.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 printf 'time,voltage_v,current_a\n1772323200,3.8,-1\n1772323260,3.79,-1\n' >a.csv
 cw-clean --device TERM-12 a.csv

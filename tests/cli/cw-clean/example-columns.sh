@@ -3,6 +3,7 @@
 # the manual's.  By hand: 1772352000000 ms = 2026-03-01T08:00:00Z;
 # 3812 mV = 3.812 V; -1350 mA = -1.35 A; 2846 dK = 284.6 K = 11.45 C
 # (K = C + 273.15).
+# source: hand
 spec=device=node,time=stamp:ms,voltage=u_pack:mV
 spec=$spec,current=i_pack:mA,temp=t_pack:dK
 cw-clean -c "$spec" testdata/clean-gauge-ms.csv >"$TMPDIR_CASE/out.csv"

@@ -3,6 +3,7 @@
 # manual and run twice: on a good night it writes clean/fleet.csv; on a
 # night with a truncated upload it exits 1, names the file, and the
 # previous clean/fleet.csv stays as it was.
+# source: spec
 top=$(pwd)
 line=$(grep '^30 1 \* \* \* cd /srv/packs && ' "$top/man/cw-clean.1")
 cmd=${line#30 1 \* \* \* cd /srv/packs && }

@@ -7,6 +7,7 @@
 # row (0.03 V a minute); the run is framed by 00:00:00 (the first row's
 # values) and 00:03:00 (the last row's values, 20 s of 2 A over the
 # minute: 0.667 A), and 00:01:00 carries 40 s of 2 A (1.333 A).
+# source: hand
 top=$(pwd)
 cd "$TMPDIR_CASE" || exit 1
 mkdir incoming

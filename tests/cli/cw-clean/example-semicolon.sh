@@ -2,6 +2,7 @@
 # time at +01:00, its device from the file name, a 10-cell pack; output
 # compared with the manual's.  By hand: 08:00 at +01:00 is 07:00Z;
 # "38,25" is 38.25 V, inside 15..50 V for 10 cells.
+# source: hand
 cw-clean -d ';' --decimal-comma --tz +01:00 --cells 10 \
     --device @file testdata/depot/DEPOT-3.csv >"$TMPDIR_CASE/out.csv"
 echo "rc=$?"

@@ -3,6 +3,7 @@
 # By hand: C/20 = 0.7 A.  00:10 (41.3 V, 0.5 A) is full: 100.  Then
 # 30 min at -7 A = -3.5 Ah = -25 % of 14 Ah: 75 at 00:40; 30 more min at
 # -7 A: 50 at 01:10.  00:05 (41.3 V but 3 A) is not full.
+# source: hand
 top=$(pwd)
 cd "$TMPDIR_CASE" || exit 1
 cat >log.csv <<'CSV'

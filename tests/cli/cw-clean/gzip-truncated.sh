@@ -1,5 +1,6 @@
 # A truncated gzip stream: exit 1, a message naming the file, and every
 # row read before the cut written (valid CSV, the reorder window drained).
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 awk 'BEGIN { print "device,time,voltage_v,current_a";
     for (i = 0; i < 20000; i++) print "A," 1000 + i ",3.8,1" }' | gzip >big.gz

@@ -1,6 +1,7 @@
 # Gzip input is recognised by its magic bytes, not its name; concatenated
 # gzip members are read through, their repeated header lines skipped;
 # plain and gzip files mix; gzip on standard input too.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 printf 'device,time,voltage_v,current_a\nA,100,3.8,1\nA,110,3.8,1\n' >p1.csv
 printf 'device,time,voltage_v,current_a\nA,120,3.8,1\nB,5,3.9,2\n' >p2.csv

@@ -1,5 +1,6 @@
 # A required column that cannot be found: exit 1, and the message names
 # the field and every header seen, and says how to name it with -c.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 printf 'device,when,volts,amps\nX1,1772323200,3.9,1\n' >a.csv
 cw-clean a.csv

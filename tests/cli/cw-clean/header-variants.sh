@@ -4,6 +4,7 @@
 #   EB-1,2026-03-01T00:00:00Z,3.812,-2.35,20,83
 # (68 F = 20 C by F = C * 9/5 + 32; 293.15 K and 2931.5 dK = 20 C by
 # K = C + 273.15; 3812 mV = 3.812 V; -2350 mA = -2.35 A; 0.83 = 83 %).
+# source: hand
 cd "$TMPDIR_CASE" || exit 1
 one() {
 	printf '%s\n%s\n' "$1" "$2" >log.csv

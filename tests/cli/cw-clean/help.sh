@@ -1,5 +1,6 @@
 # -h and --help print the usage to standard output and exit 0; the usage
 # names every long option that cw-clean(1) documents.
+# source: spec
 cw-clean -h
 cw-clean -h >"$TMPDIR_CASE/h.txt"
 cw-clean --help | cmp - "$TMPDIR_CASE/h.txt" && echo "--help is the same"

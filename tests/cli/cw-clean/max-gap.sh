@@ -1,6 +1,19 @@
 # --max-gap: nothing is interpolated across a longer interval; the grid
 # starts again at the first grid point at or after the row that ends the
 # gap.  Default 15m.
+# source: hand (cw-clean(1) Resampling and Gaps).  Default 15m, by hand:
+#  00:00:00  the first row's values.
+#  00:01:00  V = 3.70 + 0.02 * 60/90 = 3.713333333, T = 20 + 60/90; I = 60 s
+#            of the 2 A row 00:01:30 / 60 = 2.
+#  00:02:00  V = 3.72 + 0.08 * 30/510 = 3.724705882 (00:01:30..00:10:00,
+#            510 s), T = 21 + 30/510 = 21.05882353; I = 30 s at 2 A and
+#            30 s at 1 A = 1.5.  00:03..00:09 likewise, I = 1.
+#  00:10:00  on a row: its values; the run ends there (the next row is 20
+#            min on, past 15m).  00:30:00 on the row that starts the next
+#            run: its values.
+#  00:31:00  V = 3.91 + 0.01 * 20/40 = 3.915, I = 0.5.
+#  00:32:00  frames the run after its last row (00:31:20): that row's V and
+#            T, I = 20 s at 0.5 A / 60 = 0.1666666667.
 cd "$TMPDIR_CASE" || exit 1
 cat >a.csv <<'CSV'
 device,time,voltage_v,current_a,temp_c

@@ -2,6 +2,7 @@
 # rejected (exactly the fraction passes).  The output still goes to
 # standard output, an -o file is left as it was, the rejects file is
 # written.  4 data lines, 2 rejected: 0.5 of them.
+# source: hand
 cd "$TMPDIR_CASE" || exit 1
 printf 'device,time,voltage_v,current_a\nA,1,3.8,1\nA,2,38,1\nA,3,3.8,1\nA,4,38,1\n' >a.csv
 echo '== default 0.5: 2 of 4 is not more than half'

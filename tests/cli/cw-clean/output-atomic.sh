@@ -1,6 +1,7 @@
 # -o FILE: written atomically.  A good run replaces the file; a failed
 # run (a truncated gzip, a missing column) leaves the old file as it was
 # and no temporary behind.  -o - is standard output.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 mkdir out
 printf 'device,time,voltage_v,current_a\nA,1,3.8,1\nA,2,3.8,1\n' >good.csv

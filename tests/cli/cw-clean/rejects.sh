@@ -3,6 +3,8 @@
 # the physical line where a record starts), and -v counts that add up:
 # data lines = accepted + rejected.  The repeated header is skipped and
 # not written.  Both checks are recomputed here from the files.
+# source: spec (the counts are recomputed by the case from the files it
+#   writes)
 cd "$TMPDIR_CASE" || exit 1
 cat >a.csv <<'CSV'
 device,time,voltage_v,current_a,temp_c,soc_pct

@@ -2,6 +2,7 @@
 # seen for its device) is put back in order; a row later than that is
 # rejected as out-of-order, even when it could still be slotted in.
 # Devices have windows of their own.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 # A: 150 arrives after 200, 50 s late: put back.  130 arrives after 200
 # too, 70 s late: rejected, though nothing after 110 has left the window

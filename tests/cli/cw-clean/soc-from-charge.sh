@@ -7,6 +7,7 @@
 #   00:38  6 min at -1 A: -5 %: 85.
 #   00:44  4.18 V, -0.09 A: full again, 100 (not 85 - 0.45).
 #   00:50  6 min at -1 A from 100: 95.
+# source: hand
 cd "$TMPDIR_CASE" || exit 1
 cat >a.csv <<'CSV'
 device,time,voltage_v,current_a,temp_c,soc_pct

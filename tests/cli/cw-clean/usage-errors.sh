@@ -1,6 +1,7 @@
 # Usage errors exit 2, never read a bad value as 0: a bad number, a bad
 # duration, an unknown option, a missing argument, a bad -c spec.  Each
 # line shows the exit status; the messages are in the .err file.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 printf 'device,time,voltage_v,current_a\nA,1,3.8,1\n' >a.csv
 for args in "--cells x" "--cells 1e3x" "--full-voltage 4.2V" \

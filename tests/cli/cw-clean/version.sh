@@ -1,2 +1,3 @@
 # --version prints the program, the suite and its version, exits 0.
+# source: spec
 cw-clean --version

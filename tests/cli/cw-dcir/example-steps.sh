@@ -7,4 +7,5 @@
 # r_ohm = 0.150 * exp(3608.1 * (1/285.15 - 1/298.15)) = 0.26044 and
 # r_ref 0.150.  The glitch on CART-03 2026-03-19 08:00:30 reads 0.114
 # ohm; EB-0042 on day 10 (5 C) and day 20 (SoC 92) is missing.
+# source: hand
 cw-dcir testdata/dcir-fleet.csv

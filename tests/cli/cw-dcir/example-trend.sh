@@ -8,4 +8,5 @@
 # (its slope is rounding noise, no end of life before year 9999) with 36
 # steps: 4 rejected, 2 at 5 C, 2 at SoC 92.  TERM-12 has 6 steps, fewer
 # than 10: empty estimates.  86 steps in all, 82 accepted.
+# source: hand
 cw-dcir -t -v testdata/dcir-fleet.csv

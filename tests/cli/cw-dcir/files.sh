@@ -1,5 +1,7 @@
 # The fleet split in two files mid-event (inside a CART-03 event), and
 # the same through standard input as two gzip members: the same steps.
+# source: spec (the steps of a split fleet equal those of the whole file; no
+#   number to derive)
 f=testdata/dcir-fleet.csv
 head -n 100 "$f" >"$TMPDIR_CASE/a.csv"
 { head -n 1 "$f"; tail -n +101 "$f"; } >"$TMPDIR_CASE/b.csv"

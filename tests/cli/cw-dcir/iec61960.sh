@@ -8,6 +8,8 @@
 # from rest, so it is found too: (3.781 - 3.8) / (-0.5 - 0) = 0.038.  The
 # return to rest after the 1 s pulse is not steady before it (-v: 1
 # unsteady).
+# source: standard IEC 61960 (d.c. internal resistance: R = (U1 - U2) / (I2 -
+#   I1)), values worked by hand below
 f=$TMPDIR_CASE/iec.csv
 echo device,time,voltage_v,current_a,temp_c,soc_pct >"$f"
 t=0

@@ -7,6 +7,7 @@
 #           the next (empty, then -2 A) are untestable -> 2 pairs
 #   GOOD    complete                            -> accepted, 0.05
 # The rows stay in the stream (sampin counts the empty values).
+# source: hand
 {
 echo device,time,voltage_v,current_a,temp_c,soc_pct
 for d in V-POST V-PRE I-POST GOOD; do

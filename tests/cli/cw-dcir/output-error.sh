@@ -1,6 +1,7 @@
 # -o FILE is written atomically: on a data error (here a second input
 # without current_a) FILE keeps its old contents and no temporary file is
 # left beside it; on success it is replaced.
+# source: spec
 cd "$TMPDIR_CASE" || exit 2
 top=$OLDPWD
 echo old contents >out.csv

@@ -1,4 +1,5 @@
 # Bad option values are usage errors (exit 2), never silently 0.
+# source: spec
 for o in "--min-step 0" "--min-step x" "--soc 80,20" "--soc 10" \
     "--soc -1,50" "--temp 45,10" "--eol 100" "--ea -1" "--ea 30kJ" \
     "--max-dt 0" "--steady 0" "--steady 33" "--confidence 1" \

@@ -8,6 +8,7 @@
 # So 3 accepted, 2 soc-outside, 2 temp-outside, 1 soc-unknown,
 # 1 temp-unknown, and 8 gap: each return to rest comes 85 s after its
 # step (more than --max-dt 15s), and the last step has none.
+# source: hand
 f=$TMPDIR_CASE/w.csv
 echo device,time,voltage_v,current_a,temp_c,soc_pct >"$f"
 t=0

@@ -5,6 +5,8 @@
 # C-D are the start-point halves, D-G, G-H, H-I the residue.
 # The standard has no hysteresis: 0 and 1 (all reversals here are >= 3)
 # give the same.  Points A..I one minute apart.
+# source: standard ASTM E1049-85 (reapproved 2017), 5.4.4, the worked example
+#   of Fig. 6
 f=$TMPDIR_CASE/fig6.csv
 printf 'device,time,soc_pct\n' >"$f"
 i=0

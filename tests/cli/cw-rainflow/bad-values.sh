@@ -1,6 +1,7 @@
 # Empty and non-numeric signal values are skipped and counted (-v), never
 # read as 0: with them the counts equal those of the stream without them.
 # A row with a bad time is skipped by the reader with a message.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 f=bad.csv
 cat >"$f" <<'CSV'

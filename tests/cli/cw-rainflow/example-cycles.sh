@@ -4,4 +4,8 @@
 # 08:30 to 08:50: its 40-100 cycle ends at 08:30, the first row of the
 # hold.  SC-0203's 52-64 cycle closes only at the end, when the last
 # valley (50) is no longer provisional.
+# source: hand (the turning points of testdata/rainflow-fleet.py through ASTM
+#   E1049-85 5.4.4; the ranges and counts are those of
+#   example-summary-pipeline.sh and example-histogram.sh, worked there; the
+#   cycle's temp_c, the mean of its rows' readings, is snapshot)
 cw-rainflow testdata/rainflow-fleet.csv

@@ -5,4 +5,5 @@
 #            mean range 125 / 2 = 62.5
 #   EB-0101  cycle 50, halves 70, 75: 2 cycles, efc 1.225, mean 61.25
 #   SC-0203  cycles 8, 12, half 20: 2.5 cycles, efc 0.3, mean 12
+# source: hand
 cw-clean --cells 10 testdata/rainflow-raw.csv | cw-rainflow --summary

@@ -5,5 +5,6 @@
 # 29, 30 and the last, 33 (0.9 C up): 14 in all, (14 - 1) / 2 = 6.5
 # cycles; 12 half ranges of 1.2 and one of 0.9, so the mean range is
 # (12 * 1.2 + 0.9) / 2 / 6.5 = 1.176923077.
+# source: hand
 cw-rainflow --signal temp_c --hysteresis 0.5 -s \
     testdata/rainflow-fleet.csv

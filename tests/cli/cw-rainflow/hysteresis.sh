@@ -1,6 +1,7 @@
 # Hysteresis: reversals smaller than X are ignored (SPEC.md).
 # EB-0101's gauge wobbles 60 -> 60.5 -> 55: a reversal of 0.5, ignored by
 # the default 1, a cycle of 0.5 (mean 60.25) with --hysteresis 0.1.
+# source: hand
 cw-rainflow testdata/rainflow-fleet.csv | grep -c '^EB-0101,0.5,'
 cw-rainflow --hysteresis 0.1 testdata/rainflow-fleet.csv | grep '^EB-0101,0.5,'
 # A reversal of exactly X counts (it is not smaller): 0, 10, 9, 11, 0.

@@ -1,6 +1,8 @@
 # Devices interleaved in one stream count as each device alone: every
 # device's rows, cut out into a file of their own, give the same rows
 # (per cycle, and summary) as that device's rows of the whole stream.
+# source: spec (each device alone equals its rows of the whole stream; no
+#   number to derive)
 f=testdata/rainflow-fleet.csv
 cw-rainflow "$f" >"$TMPDIR_CASE/all.csv"
 cw-rainflow -s "$f" >"$TMPDIR_CASE/alls.csv"

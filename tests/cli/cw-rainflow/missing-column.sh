@@ -1,6 +1,7 @@
 # A stream without the signal column is an error naming the column
 # (exit 1); so is one without device or time.  Nothing but the header
 # was written.
+# source: spec
 printf 'device,time,voltage_v\nA,0,3.7\n' | cw-rainflow
 echo "rc=$?"
 printf 'device,time,soc_pct\nA,0,50\n' | cw-rainflow --signal cell_mv

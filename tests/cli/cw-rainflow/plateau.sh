@@ -2,6 +2,7 @@
 # first row.  0 (3 rows) -> 10 (3 rows) -> 0: two halves of 10, the peak
 # at its first row (00:03), the final valley at its first row (00:06).
 # The same history without the repeated rows gives the same rows.
+# source: hand
 f=$TMPDIR_CASE/p.csv
 printf 'device,time,soc_pct\n' >"$f"
 i=0

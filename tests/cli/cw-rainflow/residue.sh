@@ -4,6 +4,8 @@
 # last -2 meets the first) rotated to its maximum, 5, -1, 3, -4, 4, -2,
 # 1, -3, 5, closes -1/3 (4), -2/1 (3), 4/-3 (7) and 5/-4 (9): 4 full
 # cycles, half the 8 turning points of a period.
+# source: standard ASTM E1049-85 Fig. 6 history; the full and repeat residues
+#   worked by hand below
 f=$TMPDIR_CASE/fig6.csv
 printf 'device,time,soc_pct\n' >"$f"
 i=0

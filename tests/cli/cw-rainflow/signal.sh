@@ -1,6 +1,7 @@
 # --signal COLUMN: any numeric column, a stream column or another one.
 # efc is only for soc_pct (empty otherwise).  cell_mv: 3500, 4100, 3600
 # -> halves of 600 and 500 with the default hysteresis of 1 (mV here).
+# source: hand
 f=$TMPDIR_CASE/s.csv
 cat >"$f" <<'CSV'
 device,time,voltage_v,cell_mv,soc_pct

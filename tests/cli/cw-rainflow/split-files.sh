@@ -3,6 +3,7 @@
 # valley (30, 08:10) in the first file and its peak (80, 09:50) in the
 # second.  Two files, two gzip members on stdin, and a gzip file plus a
 # plain one all give the rows of the whole file.
+# source: spec (split input equals the whole file; no number to derive)
 f=testdata/rainflow-fleet.csv
 a=$TMPDIR_CASE/a.csv
 b=$TMPDIR_CASE/b.csv

@@ -2,6 +2,7 @@
 # rows already written to standard output stay valid CSV, the residue is
 # not counted from a history known to be cut short, and with -o the file
 # is not put in place.
+# source: spec
 f=$TMPDIR_CASE/t.csv
 printf 'device,time,soc_pct\n' >"$f"
 i=0

@@ -1,6 +1,7 @@
 # A write error (a full disk: /dev/full) is a data error, exit 1, with a
 # message: at the end of the input, and in the middle of it (20000 rows
 # of 0/100 close about 10000 cycles, more than the writer's buffer).
+# source: spec
 cw-rainflow -s testdata/rainflow-fleet.csv >/dev/full
 echo "rc=$?"
 awk 'BEGIN { print "device,time,soc_pct"

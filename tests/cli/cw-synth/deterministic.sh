@@ -1,5 +1,6 @@
 # The same seed gives byte-identical files (gzip streams included); a
 # different seed gives different logs; the seed range's ends work.
+# source: spec
 t=$TMPDIR_CASE
 cw-synth -n 4 -d 2 -s 99 -f both -o "$t/one"
 cw-synth -n 4 -d 2 -s 99 -f both -o "$t/two"

@@ -5,6 +5,10 @@
 # that the documented cw-clean line makes from format A has the header of
 # the sample stream and one row per data line that was not rejected; the
 # fault counts (the seed is the default, so they are the same each run).
+# source: snapshot: the fault counts of the default seed are whatever its
+#   random stream draws (tests/ref/synth_faults.sh finds the faults in the
+#   files and checks them against the truth files); the file lists and the
+#   balance rows + rejects = lines are the manual's, checked here
 top=$(pwd)
 mandoc -Tutf8 man/cw-synth.1 | col -b |
     sed -n '/^EXAMPLES/,/^SEE ALSO/p' |

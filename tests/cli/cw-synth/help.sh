@@ -1,5 +1,6 @@
 # -h and --help print the same usage on stdout and exit 0; --version
 # prints the program's name and version (the number masked here).
+# source: spec
 cw-synth -h
 echo "rc=$?"
 cw-synth -h >"$TMPDIR_CASE/h"

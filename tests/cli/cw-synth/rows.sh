@@ -2,6 +2,8 @@
 # rows, in time order, every device once per period (3 devices at 60 s:
 # 1 + 3 x 1440 = 4321 lines); -p takes a unit; with faults, the lines
 # are 1 + repeated headers + rows - gap rows + duplicates.
+# source: hand (without faults: 1 + devices x 86400 / period lines; with
+#   faults the balance is recomputed by the case from the truth files)
 t=$TMPDIR_CASE
 cw-synth -n 3 -d 2 -p 1m -F none -o "$t/clean"
 for f in "$t"/clean/*.a.csv.gz; do

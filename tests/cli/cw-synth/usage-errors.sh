@@ -1,4 +1,5 @@
 # Usage errors exit 2 with a message naming the option; nothing is made.
+# source: spec
 for args in "-x" "--days 0" "--days 2.5" "-n abc" "--period 7" \
     "--period 1.5" "--period 2h" "--start 2026-02-30" "--start 26-01-01" \
     "--faults dupe=1" "--faults dup=2" "--faults dup=0.6,trunc=0.5" \

@@ -4,6 +4,7 @@
 # source).  Readings exactly at 10 and 45 C are inside with limits in
 # either unit; 9.9 and 45.1 are outside in both.  Kelvin too:
 # 283.15K = 10C, 318.15K = 45C (K = C + 273.15, SI).
+# source: hand
 f=$TMPDIR_CASE/f.csv
 echo device,time,current_a,temp_c >"$f"
 for t in 10 45 9.9 45.1; do

@@ -3,6 +3,7 @@
 # CC: 2 A for 30 min at 5 C in rows 60 s apart: 2 A * 0.5 h = 1 Ah.
 # Uneven: 3 A for 10 s, 1.2 A for 50 s, 0.5 A for 120 s, all at 50 C:
 # 30 + 60 + 60 = 150 As = 0.04166666667 Ah over 180 s.
+# source: hand
 f=$TMPDIR_CASE/a.csv
 echo device,time,current_a,temp_c,soc_pct >"$f"
 echo CC,1767225600,0,20,30 >>"$f"

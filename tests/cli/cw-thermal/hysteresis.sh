@@ -2,6 +2,7 @@
 # stay one event, 10.5 (= T2 + 0.5) ends it.  Hot side: 45.1, 44.6, 45.2
 # stay one event, 44.5 (= T3 - 0.5) ends it; then 44.9 is inside the
 # window and starts nothing.  --merge 0 so that only hysteresis joins.
+# source: hand
 f=$TMPDIR_CASE/h.csv
 echo device,time,current_a,temp_c >"$f"
 s=0

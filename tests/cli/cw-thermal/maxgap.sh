@@ -6,6 +6,7 @@
 # does not end an event: 0..960 s, 900 + 60 As = 0.2667 Ah.  With
 # --max-gap 10m it does: 0..0 (zero length, dropped by --min-duration)
 # and 900..960 s, and --merge 1h does not join across the gap.
+# source: hand
 f=$TMPDIR_CASE/g.csv
 echo device,time,current_a,temp_c >"$f"
 for s in 0 60 120 1080 1140 1200; do echo "GAP,$s,1,5"; done >>"$f"

@@ -4,6 +4,7 @@
 # is shorter than --min-duration 60s and dropped.  --merge 3m joins them
 # into one spanning 0..420 s with the charge between (7 intervals of
 # 60 s = 420 As).  --min-duration 0 keeps the blip.  -v counts both.
+# source: hand
 f=$TMPDIR_CASE/m.csv
 echo device,time,current_a,temp_c >"$f"
 for r in 0:5 60:5 120:5 180:20 240:20 300:20 360:5 420:5 480:20 \

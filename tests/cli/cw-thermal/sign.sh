@@ -3,6 +3,7 @@
 # window, nothing; -1 A at -25 C is a use event with negative charge;
 # +1 A at -25 C is a below-min charge event.  Each 2 intervals of 60 s:
 # 120 As = 0.03333333333 Ah.
+# source: hand
 f=$TMPDIR_CASE/s.csv
 echo device,time,current_a,temp_c >"$f"
 for d in "P5 1 5" "N5 -1 5" "N-25 -1 -25" "P-25 1 -25"; do

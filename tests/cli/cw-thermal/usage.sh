@@ -1,4 +1,5 @@
 # Usage errors exit 2 with a message; -h and --version exit 0.
+# source: spec
 cw-thermal -h; echo "rc=$?"
 cw-thermal --version >/dev/null; echo "rc=$?"
 cw-thermal --limits 10,0,45,60 </dev/null; echo "rc=$?"
@@ -14,3 +15,10 @@ cw-thermal --hysteresis 1Q </dev/null; echo "rc=$?"
 cw-thermal --nosuch </dev/null; echo "rc=$?"
 cw-thermal -q </dev/null; echo "rc=$?"
 cw-thermal --limits </dev/null; echo "rc=$?"
+cw-thermal --capacity 0 </dev/null; echo "rc=$?"
+cw-thermal --cells 0 </dev/null; echo "rc=$?"
+cw-thermal --cool-rate x </dev/null; echo "rc=$?"
+cw-thermal --warm-voltage 0 </dev/null; echo "rc=$?"
+cw-thermal --cool-margin -1 </dev/null; echo "rc=$?"
+cw-thermal --warm-margin 2 </dev/null; echo "rc=$?"
+cw-thermal --fleet /nonexistent/reg.csv </dev/null; echo "rc=$?"

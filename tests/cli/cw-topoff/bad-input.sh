@@ -1,4 +1,5 @@
 # Bad input (SPEC.md exit codes: 1 data error, 2 usage error).
+# source: spec
 top=$(pwd)
 cd "$TMPDIR_CASE" || exit 1
 # Neither soc_pct nor voltage_v: exit 1, named in the message, with and

@@ -3,4 +3,5 @@
 # starts at its first row at 90 % or more (17:05, 91 %) and ends at the
 # last (07:25, 90 %); EB-0107's hold runs from 19:10 (91.9 %) to 20:15
 # (90.4 %), still without micro-cycles.
+# source: hand
 cw-topoff --full 90 --min-depth 2 testdata/topoff-dock.csv

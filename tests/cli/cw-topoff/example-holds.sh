@@ -7,4 +7,5 @@
 # restart point); EB-0107 one hold, unplugged when full: no micro-cycle,
 # no top-off charge.  CART-02 has no SoC: not judged without
 # --full-voltage.
+# source: hand
 cw-topoff testdata/topoff-dock.csv

@@ -3,6 +3,7 @@
 # split at midnight into dock-mon.csv.gz and dock-tue.csv.gz (each with
 # its header); TERM-31's and CART-02's holds cross midnight and must stay
 # one hold each: the summary equals that of the whole file.
+# source: spec (two nights equal the whole file; no number to derive)
 top=$(pwd)
 cd "$TMPDIR_CASE" || exit 1
 f=$top/testdata/topoff-dock.csv

@@ -15,6 +15,7 @@
 # (4 * 240 s) and half of the 8 intervals with one end there (00:09-10,
 # 14-15, 15-16, 20-21, 24-25, 29-30, 36-37, 41-42: 8 * 30 s): 1200 s of
 # 2700 s = 0.4444444444.
+# source: hand
 cw-topoff testdata/topoff-hand.csv
 echo
 cw-topoff -e testdata/topoff-hand.csv

@@ -1,6 +1,7 @@
 # --help against cw-topoff(1): the synopsis as the manual renders it, every
 # option of OPTIONS in the help and no other, each with the manual's
 # default (tests/tools/helpman.sh); -h prints the same as --help.
+# source: spec
 sh tests/tools/helpman.sh cw-topoff
 echo "rc=$?"
 cw-topoff -h >"$TMPDIR_CASE/h"

@@ -4,6 +4,7 @@
 # rests; four times, then unplugged (-1.2 A).  Worked by hand: one hold
 # from the first row to the last at 95 or more, four micro-cycles of depth
 # 2 (100 - 98), each 2 rows * 0.6 A * 60 s = 0.02 Ah, 0.08 Ah in the hold.
+# source: hand
 f=$TMPDIR_CASE/i.csv
 awk 'BEGIN {
 	print "device,time,current_a,soc_pct"

@@ -10,6 +10,7 @@
 # (100, 99, 98, 97, 96, 97, 96, 95); no micro-cycle.  topoff_ah is 0 for
 # U1 and U2; for D1 it holds the one regenerative pulse in each hold,
 # 0.6 A * 60 s = 0.01 Ah (charge after a rest counts, as documented).
+# source: hand
 f=$TMPDIR_CASE/n.csv
 awk 'BEGIN {
 	print "device,time,current_a,soc_pct"

@@ -1,5 +1,6 @@
 # -o writes atomically: on success the file appears whole; on a data
 # error an existing file keeps its contents and no temporary is left.
+# source: spec
 cd "$TMPDIR_CASE" || exit 1
 top=$OLDPWD
 cw-topoff -o out.csv "$top/testdata/topoff-hand.csv"; echo "rc=$?"

@@ -2,6 +2,7 @@
 # handbuilt.sh) split at 00:20, in the second micro-cycle's drop, the
 # second part with its own header as a second log would have.  The holds,
 # micro-cycles and summary must be those of the whole file.
+# source: spec (split input equals the whole file, worked in handbuilt.sh)
 top=$(pwd)
 cd "$TMPDIR_CASE" || exit 1
 f=$top/testdata/topoff-hand.csv

@@ -1,4 +1,5 @@
 # Usage errors exit 2 with a hint; -h and --version exit 0.
+# source: spec
 cw-topoff -h; echo "rc=$?"
 cw-topoff --version >/dev/null; echo "rc=$?"
 cw-topoff --full abc </dev/null; echo "rc=$?"

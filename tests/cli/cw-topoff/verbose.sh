@@ -3,6 +3,7 @@
 # at all.  Rows of A without SoC inside its hold keep the hold's level
 # (3: at 60, 180, 300 s); the one at 420 s, after the hold ended at 94 %
 # (360 s), is not judged; B's 3 rows are not judged (no --full-voltage).
+# source: hand
 f=$TMPDIR_CASE/s.csv
 printf 'device,time,voltage_v,current_a,soc_pct\n' >"$f"
 printf 'A,0,4.2,0,100\nA,60,4.2,0,\nA,120,4.2,0,99\nA,180,4.2,0,\n' >>"$f"

@@ -6,6 +6,7 @@
 # at 41.0 V or more (41.5 V at 00:01) to the last (41.2 V at 02:13), three
 # micro-cycles of depth 100 * (42.0 - 41.6) / 41.0 = 0.9756097561 % of the
 # full voltage, each (0.6 + 0.3) A * 60 s = 0.015 Ah.
+# source: hand
 cd "$TMPDIR_CASE" || exit 1
 f=v.csv
 awk 'BEGIN {

@@ -1,5 +1,6 @@
 # cw-wear(1) EXAMPLES: the days on four cores with GNU parallel, each to
 # its states, then merged: the report of one run over both days.
+# source: spec (the merged states equal one run; no number shown)
 cd "$TMPDIR_CASE" || exit 1
 f=$OLDPWD/testdata/wear-fleet.csv
 awk -F, 'NR == 1 || $2 < "2026-03-03"' "$f" >day1.csv

@@ -1,9 +1,10 @@
 # States that are cut short, damaged, of another version, made with other
 # settings or overlapping are refused (exit 1) and never taken for an
 # empty state; the --state file is left as it was.
+# source: spec
 f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
-cw-wear --state "$d/good.state" "$f" >/dev/null
+cw-wear --state "$d/good.state" "$f" 2>&1 >/dev/null | sed "s|$d/||" >&2
 cp "$d/good.state" "$d/copy.state"
 # Run cw-wear, show its messages without the scratch folder, its status.
 try() {
@@ -23,8 +24,10 @@ cmp "$d/empty.state" /dev/null && echo "empty file left as it was"
 # One digit changed.
 sed '2s/,1,/,2,/' "$d/good.state" >"$d/digit.state"
 try --state "$d/digit.state" "$f"
-# Another version.
-sed 's/cw-wear-state-1/cw-wear-state-2/' "$d/good.state" >"$d/v2.state"
+# Another version: a later one, and version 1 (refused with what to do).
+sed 's/cw-wear-state-2/cw-wear-state-3/' "$d/good.state" >"$d/v2.state"
+try --state "$d/v2.state" "$f"
+sed 's/cw-wear-state-2/cw-wear-state-1/' "$d/good.state" >"$d/v2.state"
 try --state "$d/v2.state" "$f"
 # Other settings than the state's.
 try --state "$d/copy.state" --hysteresis 2 "$f"

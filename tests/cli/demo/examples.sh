@@ -2,6 +2,8 @@
 # scripts/morning-report.sh, as written there, on a small invented fleet
 # without faults (4 packs, 2 days); the CSVs they make and the size of each
 # plot (a PNG's IHDR width and height).
+# source: snapshot: the CSVs and plot sizes of a small invented fleet, pinned
+#   as the scripts make them
 png() {
 	od -An -tu1 -N24 "$1" | tr -s ' \n' '  ' | awk -v f="$1" '{
 	    png = ($1 == 137 && $2 == 80 && $3 == 78 && $4 == 71)
@@ -23,9 +25,9 @@ cw-wear --cycle-life 500 -o out/cw-wear.csv log.csv || exit 1
 cw-thermal -o out/cw-thermal.csv log.csv || exit 1
 
 echo "== plot-fade.gp"
-(head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k16,16gr |
+(head -n 1 wear.csv; tail -n +2 wear.csv | sort -t, -k18,18gr |
     head -n 40) >top.csv
-cut -d, -f1,16 top.csv
+cut -d, -f1,18 top.csv
 gnuplot -e "in='wear.csv'; out='fade.png'" "scripts/plot-fade.gp"
 png fade.png
 gnuplot -e "in='top.csv'; out='top.png'" "scripts/plot-fade.gp"
@@ -65,6 +67,20 @@ wc -l <charging.csv
 gnuplot -e "in='charging.csv'; out='charge-temp.png'" \
     "scripts/plot-charge-temp.gp"
 png charge-temp.png
+
+echo "== plot-dwell.gp"
+cw-wear --dwell log.csv | awk -F, -v dev=EB-0001 -v days=2 '
+    BEGIN { n = split("0 10 25 35 45", e, " ")
+        for (k = 1; k <= n; k++) ti[e[k]] = k
+        print "soc_i,temp_i,soc_band,temp_band," \
+            "hours_per_pack_day,idle_pct" }
+    $1 == dev { t = $4 == "" ? "<" $5 : $5 == "" ? ">" $4 : $4 "-" $5
+        print ($2 == 95 ? 5 : $2 / 20) "," ($4 == "" ? 0 : ti[$4]) \
+            "," $2 "-" $3 "," t "," $6 / days "," 100 * $7 / $6 }' \
+    >dwell.csv
+cat dwell.csv
+gnuplot -e "in='dwell.csv'; out='dwell.png'" "scripts/plot-dwell.gp"
+png dwell.png
 
 echo "== morning-report.sh"
 "scripts/morning-report.sh" -n 2 out fleet.csv

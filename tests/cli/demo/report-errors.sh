@@ -1,5 +1,6 @@
 # scripts/morning-report.sh on bad input: no folder, a bad -n, a folder
 # without the tools' outputs, a cw-wear.csv without a column it needs.
+# source: spec
 scripts/morning-report.sh; echo "exit $?"
 scripts/morning-report.sh -n 0 "$TMPDIR_CASE"; echo "exit $?"
 scripts/morning-report.sh -n x "$TMPDIR_CASE"; echo "exit $?"

@@ -2,6 +2,9 @@
 # folder: the morning report it prints, the files it leaves, the header
 # of each CSV, the size of each plot (a PNG's IHDR width and height), and
 # that morning-report.txt holds what was printed.
+# source: snapshot: the morning report of a tiny invented fleet made by
+#   cw-synth and run through every tool, pinned as printed; its figures are
+#   not worked by hand (each tool's own cases and reference checks cover them)
 DEMO_NOBUILD=1 DEMO_DIR=$TMPDIR_CASE DEMO_DEVICES=4 DEMO_DAYS=2 \
     scripts/demo.sh >"$TMPDIR_CASE/printed" 2>"$TMPDIR_CASE/log" ||
     { cat "$TMPDIR_CASE/log" >&2; exit 1; }

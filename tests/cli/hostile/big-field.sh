@@ -4,6 +4,7 @@
 # counts and the widest line), not shown.  A million-digit number takes
 # minutes under memcheck (ASan covers this case in SANITIZE=1):
 # cli: no-valgrind
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 big=$(awk 'BEGIN { while (n++ < 1048576) printf "7" }')

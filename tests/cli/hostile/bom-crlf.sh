@@ -1,6 +1,8 @@
 # A UTF-8 byte order mark and CRLF line ends, as spreadsheet exports
 # write them, plain and gzipped: every tool gives the same output as for
 # the plain file (cw-clean: --cells 10, the packs of that fleet).
+# source: spec (every tool's output equals that of the plain file; no number
+#   to derive)
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 src="$top/testdata/rainflow-fleet.csv"

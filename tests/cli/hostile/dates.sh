@@ -4,6 +4,8 @@
 # year and 9999-12-31 are valid.  A leap second (23:59:60) is read as the
 # first instant of the next minute (ts.h), so a row stamped 00:00:00 right
 # after it is a duplicate for cw-clean.
+# source: standard ISO 8601 and the Gregorian calendar (month lengths, leap
+#   years); the leap second rule is ts.h's
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 {

@@ -2,6 +2,7 @@
 # device that logged nothing): no header, no rows.  Nothing is lost, so
 # each tool writes its header and exits 0; with -v it says it read
 # nothing.
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 : >empty.csv

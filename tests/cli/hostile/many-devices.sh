@@ -3,6 +3,7 @@
 # name order.  Line counts and order only.  Too slow for memcheck (ASan
 # covers it in make check SANITIZE=1):
 # cli: no-valgrind
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 awk 'BEGIN { print "device,time,voltage_v,current_a,temp_c,soc_pct"

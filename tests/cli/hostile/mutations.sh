@@ -4,6 +4,9 @@
 # crash or hang: every run exits 0 or 1, and every message is "TOOL: ..."
 # (with FILE:LINE when it is about a place in the input).  Counts only;
 # the messages vary.  The fuzzers (make fuzz) go much further.
+# source: snapshot: the exit counts of 24 mutated logs from a fixed seed; what
+#   they must show (no crash, no stray message, whole CSV) is the contract,
+#   the exact counts are not known beforehand
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 $PY - "$top/testdata/wear-fleet.csv" "$top/testdata/rainflow-raw.csv" <<'PYEOF'

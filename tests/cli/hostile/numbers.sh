@@ -4,6 +4,7 @@
 # as a value: the stream tools count them as not a number (-v) and go on;
 # cw-clean rejects each such row as bad-number (rejects file shown).
 # Underflow (1e-400) is 0, a valid number (out of range for a voltage).
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 {

@@ -2,6 +2,7 @@
 # run that fails on a data error (a truncated gzip input), an input that
 # cannot be opened, or a required column missing keeps the old FILE
 # byte for byte, and its temporary (.FILE.tmpXXXXXX beside it) is gone.
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 awk 'BEGIN { print "device,time,voltage_v,current_a,temp_c,soc_pct"

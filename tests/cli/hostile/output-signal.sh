@@ -4,6 +4,7 @@
 # certainly mid-run (it has read rows and waits for more) when the signal
 # comes; the script waits until the temporary exists before sending it.
 # cli: no-valgrind
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 awk 'BEGIN { print "device,time,voltage_v,current_a,temp_c,soc_pct"

@@ -5,6 +5,7 @@
 # the old FILE is kept and the temporary removed.
 # The ulimit would make valgrind itself fail to write, so:
 # cli: no-valgrind
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 # Forty renamed copies of the invented fleets: every tool writes well

@@ -3,6 +3,7 @@
 # the middle of a field.  The good rows are used; the broken record is
 # reported with the line it starts on and counted (cw-clean: rejected as
 # malformed, its text kept in the rejects file).
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 {

@@ -1,6 +1,8 @@
 # 64 KiB of random bytes (a fixed seed), plain and behind a valid header:
 # no tool may crash or hang; each reports what it cannot use with
 # FILE:LINE and exits 1 (no usable header) or 0 (rows skipped, counted).
+# source: spec (exit codes and messages for 64 KiB of noise: 1 without a
+#   usable header, 0 with one)
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 $PY -c '

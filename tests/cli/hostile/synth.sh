@@ -5,6 +5,7 @@
 # signal, no temporary file is left, and every file already in the folder
 # is complete (gzip -t).
 # cli: no-valgrind
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 for args in "-n 0" "-n x" "-n 1e99" "-d 0" "-d -1" "-S 2026-02-30" \

@@ -3,6 +3,7 @@
 # message names the file, and the rows before the damage are kept (the
 # CSV written so far stays whole).  cw-clean, which streams, must have
 # written every complete row of the good part.
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 {

@@ -3,6 +3,7 @@
 # columns they do not know; cw-clean rejects a row whose width is not the
 # header's as malformed.  The message listing the headers seen stays
 # short.
+# source: spec
 . tests/cli/hostile/common.inc
 cd "$TMPDIR_CASE" || exit 1
 {

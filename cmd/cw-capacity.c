@@ -1,0 +1,522 @@
+/*
+ * cw-capacity: measured capacity per charge or discharge segment of the
+ * sample stream, by coulomb counting; or with --trend its fade per device
+ * and the state of health against the rated capacity.  The engine is
+ * lib/capacity.c (segments, the estimate, the trend) and lib/theilsen.c
+ * (the robust fit); this file holds the options and the output.
+ */
+#include <errno.h>
+#include <getopt.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "capacity.h"
+#include "csvout.h"
+#include "cw.h"
+#include "dcir.h"
+#include "devtab.h"
+#include "fleet.h"
+#include "ocv.h"
+#include "opt.h"
+#include "outf.h"
+#include "sampin.h"
+
+#define EST_HEADER "device,start,end,direction,soc_from_pct,soc_to_pct," \
+	"charge_ah,capacity_ah,temp_c,rows,resolution_pct"
+#define REJECT_HEADER "device,start,end,direction,soc_from_pct," \
+	"soc_to_pct,charge_ah,temp_c,rows,reason"
+#define TREND_HEADER "device,estimates,first,last,capacity_start_ah," \
+	"capacity_end_ah,fade_pct,fade_pct_per_30d,soh_pct,eol_date," \
+	"slope_ah_per_day,slope_lo_ah_per_day,slope_hi_ah_per_day," \
+	"fit_estimates,rated_ah"
+
+/* Estimates kept per device for the trend before thinning sets in. */
+#define MAX_POINTS_DEFAULT 2048
+
+/* The per-device state: the devent first, as devtab wants. */
+struct dev {
+	struct devent e;
+	int init;
+	int cells;
+	struct cap_dev cd;
+	struct cap_ocvdev od;
+	struct dcir_series ser;
+};
+
+struct tool {
+	struct cap_conf conf;
+	struct cap_trend_conf tconf;
+	struct cap_counts cnt;
+	struct csvout out;
+	struct csvout rej;
+	int has_rej;
+	struct fleet *fleet;
+	struct ocv *ocv;
+	double rated;
+	int cells;
+	size_t max_points;
+	int trend;
+};
+
+enum {
+	OPT_CELLS = 256, OPT_CONFIDENCE, OPT_EOL, OPT_FLEET, OPT_JUMP,
+	OPT_MAX_GAP, OPT_MAX_POINTS, OPT_MAX_REST, OPT_MIN_CURRENT,
+	OPT_MIN_ESTIMATES, OPT_MIN_SWING, OPT_OCV, OPT_OCV_REST, OPT_OCV_SPAN,
+	OPT_RATED, OPT_REJECTS, OPT_TEMP, OPT_VERSION
+};
+
+static void	usage(FILE *fp);
+static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
+static int	on_est(struct tool *t, struct dev *d, const struct cap_est *e);
+static void	write_est(struct csvout *w, const struct dev *d,
+		    const struct cap_est *e, int reject);
+static void	write_trend(struct tool *t, struct dev *d);
+static void	report(const struct tool *t, const struct devtab *devs,
+		    const struct sampin_stats *st);
+static void	free_devs(struct devtab *devs);
+
+static void
+usage(FILE *fp)
+{
+	fprintf(fp,
+	    "usage: cw-capacity [-htv] [--cells N] [--confidence P] "
+	    "[--eol PCT]\n"
+	    "                   [--fleet FILE] [--jump PTS] [--max-gap DUR] "
+	    "[--max-points N]\n"
+	    "                   [--max-rest DUR] [--min-current A] "
+	    "[--min-estimates N]\n"
+	    "                   [--min-swing PCT] [-o FILE] [--ocv FILE] "
+	    "[--ocv-rest DUR]\n"
+	    "                   [--ocv-span DUR] [--rated AH] "
+	    "[--rejects FILE]\n"
+	    "                   [--temp LO,HI | any] [--version] "
+	    "[FILE ...]\n");
+	fputs(
+"\n"
+"Measured capacity by coulomb counting over charge and discharge segments,\n"
+"and its fade per device.\n"
+"\n"
+"      --cells N           cells in series, for --ocv (default 1)\n"
+"      --confidence P      confidence level of the slope's interval\n"
+"                          (default 0.95)\n"
+"      --eol PCT           end of life at PCT percent of the rated\n"
+"                          capacity (default 80)\n"
+"      --fleet FILE        the fleet file; its capacity_ah is the rating\n"
+"  -h, --help              print this help and exit\n"
+"      --jump PTS          SoC points a step may differ from what its\n"
+"                          charge explains before it is a jump (default 2)\n"
+"      --max-gap DUR       rows further apart end a segment (default 15m)\n"
+"      --max-points N      estimates kept per device for the trend\n"
+"                          (default 2048)\n"
+"      --max-rest DUR      longest pause inside a segment (default 5m)\n"
+"      --min-current A     smallest current of a segment's rows\n"
+"                          (default 0.1)\n"
+"      --min-estimates N   fewest estimates for a trend (default 5)\n"
+"      --min-swing PCT     smallest SoC change of an estimate (default 20)\n"
+"  -o, --output FILE       write to FILE atomically, not standard output\n"
+"      --ocv FILE          SoC from the rest voltage by this OCV table,\n"
+"                          not from soc_pct\n"
+"      --ocv-rest DUR      rest before a voltage is an OCV point\n"
+"                          (default 30m)\n"
+"      --ocv-span DUR      longest time between two OCV points (default 1d)\n"
+"      --rated AH          rated capacity of every pack (default none)\n"
+"      --rejects FILE      write the rejected segments and why to FILE\n"
+"  -t, --trend             one row per device with the trend\n"
+"      --temp LO,HI        temperature window (default 10,45); any: none\n"
+"  -v, --verbose           report counts on standard error\n"
+"      --version           print the version and exit\n"
+"\n"
+"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one).\n"
+"Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
+}
+
+static int
+on_row(void *ctx, void *dev, const struct cw_sample *s)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+	struct cap_est e;
+
+	if (!d->init) {
+		d->init = 1;
+		cap_dev_init(&d->cd, fleet_capacity(t->fleet, d->e.name,
+		    d->e.namelen, t->rated));
+		d->cells = fleet_cells(t->fleet, d->e.name, d->e.namelen,
+		    t->cells);
+	}
+	if (t->ocv != NULL) {
+		if (cap_ocv_feed(&t->conf, t->ocv, &d->od, s->t,
+		    s->v / d->cells, s->i, s->temp, &t->cnt, &e) == 1)
+			return on_est(t, d, &e);
+		return 0;
+	}
+	if (cap_feed(&t->conf, &d->cd, s->t, s->i, s->temp, s->soc, &t->cnt,
+	    &e) == 1)
+		return on_est(t, d, &e);
+	return 0;
+}
+
+/* An estimate or a rejected segment of D. */
+static int
+on_est(struct tool *t, struct dev *d, const struct cap_est *e)
+{
+	if (e->reason != CAP_OK) {
+		if (t->has_rej)
+			write_est(&t->rej, d, e, 1);
+	} else if (t->trend)
+		dcir_series_add(&d->ser, e->start + (e->end - e->start) / 2,
+		    e->capacity_ah, CW_MISSING, t->max_points);
+	else
+		write_est(&t->out, d, e, 0);
+	if (t->out.err || t->rej.err) {
+		/* Say so here: sampin_run() only passes the exit code on. */
+		cw_warn("write error: %s", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	return 0;
+}
+
+static void
+write_est(struct csvout *w, const struct dev *d, const struct cap_est *e,
+    int reject)
+{
+	csvout_strn(w, d->e.name, d->e.namelen);
+	csvout_time(w, e->start);
+	csvout_time(w, e->end);
+	csvout_str(w, e->dir > 0 ? "charge" : "discharge");
+	csvout_num(w, e->soc_from);
+	csvout_num(w, e->soc_to);
+	csvout_num(w, e->charge_ah);
+	if (!reject)
+		csvout_num(w, e->capacity_ah);
+	csvout_num(w, e->temp_c);
+	csvout_int(w, (long long)e->rows);
+	if (reject)
+		csvout_str(w, cap_reason_name[e->reason]);
+	else
+		csvout_num(w, e->resolution_pct);
+	csvout_endrow(w);
+}
+
+static void
+write_trend(struct tool *t, struct dev *d)
+{
+	struct cap_trend tr;
+	struct csvout *w = &t->out;
+
+	cap_trend_fit(&d->ser, d->cd.rated_ah, &t->tconf, &tr);
+	csvout_strn(w, d->e.name, d->e.namelen);
+	csvout_int(w, (long long)d->ser.steps);
+	if (d->ser.steps > 0) {
+		csvout_time(w, d->ser.first);
+		csvout_time(w, d->ser.last);
+	} else {
+		csvout_empty(w);
+		csvout_empty(w);
+	}
+	csvout_num(w, tr.cap_start);
+	csvout_num(w, tr.cap_end);
+	csvout_num(w, tr.fade_pct);
+	csvout_num(w, tr.fade_30d);
+	csvout_num(w, tr.soh_pct);
+	if (tr.has_eol)
+		csvout_date(w, tr.eol_t);
+	else
+		csvout_empty(w);
+	csvout_num(w, tr.slope);
+	csvout_num(w, tr.slope_lo);
+	csvout_num(w, tr.slope_hi);
+	if (tr.fitted)
+		csvout_int(w, (long long)tr.used);
+	else
+		csvout_empty(w);
+	csvout_num(w, d->cd.rated_ah);
+	csvout_endrow(w);
+}
+
+static void
+report(const struct tool *t, const struct devtab *devs,
+    const struct sampin_stats *st)
+{
+	const unsigned long *n = t->cnt.n, *cut = t->cnt.cut;
+	unsigned long seg = 0, thinned = 0, few = 0;
+	size_t i, nd = devtab_count(devs);
+	int k;
+
+	sampin_report(st, NULL);
+	for (k = 0; k < CAP_NREASON; k++)
+		seg += n[k];
+	cw_warn("%zu device%s; %lu segments, %lu accepted", nd,
+	    nd == 1 ? "" : "s", seg, n[CAP_OK]);
+	cw_warn("rejected: %lu swing, %lu gap, %lu jump, %lu no-soc, "
+	    "%lu temp, %lu no-current, %lu sign", n[CAP_SWING], n[CAP_GAP],
+	    n[CAP_JUMP], n[CAP_NO_SOC], n[CAP_TEMP], n[CAP_NO_I],
+	    n[CAP_SIGN]);
+	cw_warn("segments ended by: %lu gap, %lu jump, %lu no-soc, %lu temp, "
+	    "%lu no-current", cut[CAP_GAP], cut[CAP_JUMP], cut[CAP_NO_SOC],
+	    cut[CAP_TEMP], cut[CAP_NO_I]);
+	if (!t->trend)
+		return;
+	for (i = 0; i < nd; i++) {
+		const struct dev *d = devtab_at(devs, i);
+
+		if (d->ser.n < d->ser.steps)
+			thinned++;
+		if (d->ser.steps < t->tconf.min_estimates)
+			few++;
+	}
+	cw_warn("trend: %lu device%s with fewer than %lu estimates, %lu "
+	    "thinned to at most %zu", few, few == 1 ? "" : "s",
+	    t->tconf.min_estimates, thinned, t->max_points);
+}
+
+static void
+free_devs(struct devtab *devs)
+{
+	size_t i, n = devtab_count(devs);
+
+	for (i = 0; i < n; i++)
+		dcir_series_free(&((struct dev *)devtab_at(devs, i))->ser);
+	devtab_free(devs);
+}
+
+int
+main(int argc, char *argv[])
+{
+	static const struct option longopts[] = {
+		{ "cells", required_argument, NULL, OPT_CELLS },
+		{ "confidence", required_argument, NULL, OPT_CONFIDENCE },
+		{ "eol", required_argument, NULL, OPT_EOL },
+		{ "fleet", required_argument, NULL, OPT_FLEET },
+		{ "help", no_argument, NULL, 'h' },
+		{ "jump", required_argument, NULL, OPT_JUMP },
+		{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+		{ "max-points", required_argument, NULL, OPT_MAX_POINTS },
+		{ "max-rest", required_argument, NULL, OPT_MAX_REST },
+		{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
+		{ "min-estimates", required_argument, NULL, OPT_MIN_ESTIMATES },
+		{ "min-swing", required_argument, NULL, OPT_MIN_SWING },
+		{ "ocv", required_argument, NULL, OPT_OCV },
+		{ "ocv-rest", required_argument, NULL, OPT_OCV_REST },
+		{ "ocv-span", required_argument, NULL, OPT_OCV_SPAN },
+		{ "output", required_argument, NULL, 'o' },
+		{ "rated", required_argument, NULL, OPT_RATED },
+		{ "rejects", required_argument, NULL, OPT_REJECTS },
+		{ "temp", required_argument, NULL, OPT_TEMP },
+		{ "trend", no_argument, NULL, 't' },
+		{ "verbose", no_argument, NULL, 'v' },
+		{ "version", no_argument, NULL, OPT_VERSION },
+		{ NULL, 0, NULL, 0 }
+	};
+	struct tool t;
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	struct devtab *devs;
+	struct outf *of, *rf = NULL;
+	struct cap_est e;
+	const char *outpath = NULL, *rejpath = NULL, *fleetpath = NULL;
+	const char *ocvpath = NULL;
+	double w[2];
+	void **sorted;
+	size_t i, n;
+	int ch, rc;
+
+	cw_setprog("cw-capacity");
+	memset(&t, 0, sizeof(t));
+	cap_conf_default(&t.conf);
+	cap_trend_conf_default(&t.tconf);
+	t.max_points = MAX_POINTS_DEFAULT;
+	t.rated = CW_MISSING;
+	t.cells = 1;
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":ho:tv", longopts, NULL)) !=
+	    -1) {
+		switch (ch) {
+		case 'h':
+			usage(stdout);
+			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
+		case 'o':
+			outpath = optarg;
+			break;
+		case 't':
+			t.trend = 1;
+			break;
+		case 'v':
+			cw_verbose = 1;
+			break;
+		case OPT_CELLS:
+			t.cells = (int)opt_long_arg("--cells", optarg, 1, 1000);
+			break;
+		case OPT_CONFIDENCE:
+			t.tconf.conf = opt_num_arg("--confidence", optarg,
+			    0.5, 1);
+			if (t.tconf.conf <= 0.5 || t.tconf.conf >= 1)
+				cw_usage_error("--confidence: %s is not "
+				    "between 0.5 and 1 (exclusive)", optarg);
+			break;
+		case OPT_EOL:
+			t.tconf.eol_pct = opt_num_arg("--eol", optarg, 0, 100);
+			if (t.tconf.eol_pct <= 0 || t.tconf.eol_pct >= 100)
+				cw_usage_error("--eol: %s is not between 0 "
+				    "and 100 (exclusive)", optarg);
+			break;
+		case OPT_FLEET:
+			fleetpath = optarg;
+			break;
+		case OPT_JUMP:
+			t.conf.jump = opt_num_arg("--jump", optarg, 0, 100);
+			break;
+		case OPT_MAX_GAP:
+			t.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			break;
+		case OPT_MAX_POINTS:
+			t.max_points = (size_t)opt_long_arg("--max-points",
+			    optarg, 16, 1L << 24);
+			break;
+		case OPT_MAX_REST:
+			t.conf.max_rest = opt_dur_arg("--max-rest", optarg, 0);
+			break;
+		case OPT_MIN_CURRENT:
+			t.conf.min_current = opt_num_arg("--min-current",
+			    optarg, 0, 1e6);
+			if (t.conf.min_current <= 0)
+				cw_usage_error("--min-current: %s is not above "
+				    "0", optarg);
+			break;
+		case OPT_MIN_ESTIMATES:
+			t.tconf.min_estimates = (unsigned long)opt_long_arg(
+			    "--min-estimates", optarg, 2, 1000000000L);
+			break;
+		case OPT_MIN_SWING:
+			t.conf.min_swing = opt_num_arg("--min-swing", optarg,
+			    0, 100);
+			if (t.conf.min_swing <= 0)
+				cw_usage_error("--min-swing: %s is not above 0",
+				    optarg);
+			break;
+		case OPT_OCV:
+			ocvpath = optarg;
+			break;
+		case OPT_OCV_REST:
+			t.conf.ocv_rest = opt_dur_arg("--ocv-rest", optarg, 0);
+			break;
+		case OPT_OCV_SPAN:
+			t.conf.ocv_span = opt_dur_arg("--ocv-span", optarg, 0);
+			break;
+		case OPT_RATED:
+			t.rated = opt_num_arg("--rated", optarg, 0, 1e9);
+			if (t.rated <= 0)
+				cw_usage_error("--rated: %s is not above 0",
+				    optarg);
+			break;
+		case OPT_REJECTS:
+			rejpath = optarg;
+			break;
+		case OPT_TEMP:
+			if (strcmp(optarg, "any") == 0) {
+				t.conf.temp_any = 1;
+				break;
+			}
+			opt_list_arg("--temp", optarg, w, 2, 1, 1);
+			t.conf.temp_any = 0;
+			t.conf.temp_lo = w[0];
+			t.conf.temp_hi = w[1];
+			break;
+		case OPT_VERSION:
+			cw_print_version();
+		default:
+			opt_getopt_fail(ch, argv);
+		}
+	}
+	argc -= optind;
+	argv += optind;
+	if (rejpath != NULL && strcmp(rejpath, "-") == 0)
+		cw_usage_error("--rejects: standard output holds the "
+		    "estimates; name a file");
+
+	if (fleetpath != NULL)
+		t.fleet = fleet_load(fleetpath);
+	if (ocvpath != NULL)
+		t.ocv = ocv_load(ocvpath);
+	devs = devtab_new(sizeof(struct dev));
+	of = outf_open(outpath);
+	csvout_init(&t.out, outf_fp(of));
+	csvout_header(&t.out, t.trend ? TREND_HEADER : EST_HEADER);
+	if (rejpath != NULL) {
+		rf = outf_open(rejpath);
+		csvout_init(&t.rej, outf_fp(rf));
+		csvout_header(&t.rej, REJECT_HEADER);
+		t.has_rej = 1;
+	}
+
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
+	    SAMP_SOC);
+	if (!t.conf.temp_any)
+		sc.need |= SAMP_BIT(SAMP_TEMP);
+	sc.row = on_row;
+	sc.ctx = &t;
+	sc.devs = devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (rc == 0) {
+		/* The segments still open at the end of the input, in the
+		 * order the devices came. */
+		n = devtab_count(devs);
+		for (i = 0; i < n && rc == 0; i++) {
+			struct dev *d = devtab_at(devs, i);
+
+			if (d->init && (t.ocv != NULL ? cap_ocv_finish(&t.conf,
+			    &d->od, &t.cnt, &e) : cap_finish(&t.conf, &d->cd,
+			    &t.cnt, &e)) == 1)
+				rc = on_est(&t, d, &e);
+		}
+	}
+	if (cw_verbose)
+		report(&t, devs, &st);
+	if (t.cnt.against >= 100 && t.cnt.against > 2 * t.cnt.with)
+		cw_warn("the SoC stepped against the current on %lu rows, with "
+		    "it on %lu: is current_a positive while charging? "
+		    "(cw-clean --charge-negative)", t.cnt.against,
+		    t.cnt.with);
+	if (rc != 0) {
+		/* Complete rows written so far stay; the output is not
+		 * committed, so -o FILE keeps its old contents. */
+		csvout_flush(&t.out);
+		csvout_free(&t.out);
+		if (t.has_rej)
+			csvout_free(&t.rej);
+		free_devs(devs);
+		fleet_free(t.fleet);
+		ocv_free(t.ocv);
+		return rc;
+	}
+	if (t.trend) {
+		sorted = devtab_sorted(devs);
+		n = devtab_count(devs);
+		for (i = 0; i < n; i++)
+			write_trend(&t, sorted[i]);
+		free(sorted);
+	}
+	if (csvout_flush(&t.out) != 0) {
+		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
+		    "standard output", strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	if (t.has_rej && csvout_flush(&t.rej) != 0) {
+		cw_warn("%s: write error: %s", rejpath, strerror(errno));
+		return CW_EXIT_DATA;
+	}
+	if (t.has_rej && outf_commit(rf) != 0)
+		return CW_EXIT_DATA;
+	if (outf_commit(of) != 0)
+		return CW_EXIT_DATA;
+	csvout_free(&t.out);
+	if (t.has_rej)
+		csvout_free(&t.rej);
+	free_devs(devs);
+	fleet_free(t.fleet);
+	ocv_free(t.ocv);
+	return CW_EXIT_OK;
+}

@@ -1,0 +1,64 @@
+/*
+ * statefmt.h: what the text forms of saved device states (cw-wear and
+ * cw-dcir --state, --state-out, --merge) have in common: a growable row
+ * buffer, fields written so that they read back to the same bits (%.17g
+ * for doubles, integer microseconds for times, NaN as an empty field),
+ * strict parsers of them, and the check that ends every row: the FNV-1a
+ * 64-bit hash of the row's text before it, in 16 hexadecimal digits.
+ */
+#ifndef STATEFMT_H
+#define STATEFMT_H
+
+#include <stddef.h>
+#include <stdint.h>
+#include <stdio.h>
+
+#include "csvin.h"
+
+/* Kinds of fields. */
+enum {
+	SFMT_DBL,		/* double, finite */
+	SFMT_DBLN,		/* double, empty for NaN */
+	SFMT_TIME,		/* cw_time, integer microseconds */
+	SFMT_UL,		/* unsigned long */
+	SFMT_INT,		/* int in lo..hi */
+	SFMT_SIZE		/* size_t */
+};
+
+/* A growable text buffer for one row; zeroed is empty. */
+struct sfmt_buf {
+	char *s;
+	size_t n, cap;
+};
+
+void	sfmt_add(struct sfmt_buf *b, const char *s, size_t n);
+void	sfmt_str(struct sfmt_buf *b, const char *s);
+void	sfmt_i64(struct sfmt_buf *b, long long x);
+void	sfmt_ul(struct sfmt_buf *b, unsigned long x);
+/* X with %.17g; NaN as nothing when NAN_OK. */
+void	sfmt_dbl(struct sfmt_buf *b, double x, int nan_ok);
+/* The field of KIND at P. */
+void	sfmt_field(struct sfmt_buf *b, int kind, const void *p);
+/* A device name, quoted as RFC 4180 asks when it has to be. */
+void	sfmt_name(struct sfmt_buf *b, const char *s, size_t n);
+uint64_t sfmt_fnv(const char *s, size_t n);
+/* Append ",check\n" to the row in B and write it: 0, or -1. */
+int	sfmt_end_row(FILE *fp, struct sfmt_buf *b);
+/*
+ * Whether the last field of REC is the check of the text before it (the
+ * raw record up to its last comma); 1 or 0.
+ */
+int	sfmt_row_ok(const struct csvin_rec *rec);
+
+/* Strict integers: an optional '-', then digits, nothing else; 0 or -1. */
+int	sfmt_get_i64(const char *s, size_t n, long long *out);
+int	sfmt_get_ul(const char *s, size_t n, unsigned long *out);
+/* Parse S[0..N) as a field of KIND (an int within LO..HI) into P. */
+int	sfmt_get_field(int kind, const char *s, size_t n, int lo, int hi,
+	    void *p);
+/* Whether two doubles or times of KIND are the same (NaN equal NaN). */
+int	sfmt_same(int kind, const void *a, const void *b);
+/* A double or time setting of KIND, for messages ("none" for NaN). */
+void	sfmt_show(int kind, const void *p, char *t, size_t n);
+
+#endif

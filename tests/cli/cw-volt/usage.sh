@@ -1,0 +1,17 @@
+# Usage errors exit 2 with a message; -h and --version exit 0.
+# source: spec
+cw-volt -h >/dev/null; echo "rc=$?"
+cw-volt --version >/dev/null; echo "rc=$?"
+cw-volt --max 2.5 </dev/null; echo "rc=$?"
+cw-volt --min 4.3 </dev/null; echo "rc=$?"
+cw-volt --max 4.2V </dev/null; echo "rc=$?"
+cw-volt --max -1 </dev/null; echo "rc=$?"
+cw-volt --hysteresis 2 </dev/null; echo "rc=$?"
+cw-volt --hysteresis -0.1 </dev/null; echo "rc=$?"
+cw-volt --cells 0 </dev/null; echo "rc=$?"
+cw-volt --cells 2.5 </dev/null; echo "rc=$?"
+cw-volt --min-duration 5x </dev/null; echo "rc=$?"
+cw-volt --max-gap 0 </dev/null; echo "rc=$?"
+cw-volt --min-current -1 </dev/null; echo "rc=$?"
+cw-volt --nosuch </dev/null; echo "rc=$?"
+cw-volt --fleet </dev/null; echo "rc=$?"
