@@ -5,6 +5,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <time.h>
 
 #include "clean.h"
 #include "csvout.h"
@@ -14,9 +15,10 @@
 #include "ts.h"
 
 enum {
-	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_DECIMAL_COMMA,
-	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_MAX_GAP, OPT_MAX_REJECT,
-	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SOC_FROM_CHARGE, OPT_STEP,
+	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_CHARGE_SIGN,
+	OPT_DECIMAL_COMMA,
+	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_GROWING, OPT_MAX_GAP, OPT_MAX_JUMP,
+	OPT_MAX_REJECT, OPT_MAX_TIME, OPT_NOW, OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SOC_FROM_CHARGE, OPT_STEP,
 	OPT_TZ,
 	OPT_VERSION
 };
@@ -25,14 +27,19 @@ static const struct option longopts[] = {
 	{ "bounds", required_argument, NULL, OPT_BOUNDS },
 	{ "cells", required_argument, NULL, OPT_CELLS },
 	{ "charge-negative", no_argument, NULL, OPT_CHARGE_NEGATIVE },
+	{ "charge-sign", required_argument, NULL, OPT_CHARGE_SIGN },
 	{ "columns", required_argument, NULL, 'c' },
 	{ "decimal-comma", no_argument, NULL, OPT_DECIMAL_COMMA },
 	{ "delimiter", required_argument, NULL, 'd' },
 	{ "device", required_argument, NULL, OPT_DEVICE },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
+	{ "growing", no_argument, NULL, OPT_GROWING },
 	{ "help", no_argument, NULL, 'h' },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+	{ "max-jump", required_argument, NULL, OPT_MAX_JUMP },
 	{ "max-reject", required_argument, NULL, OPT_MAX_REJECT },
+	{ "max-time", required_argument, NULL, OPT_MAX_TIME },
+	{ "now", no_argument, NULL, OPT_NOW },
 	{ "output", required_argument, NULL, 'o' },
 	{ "rejects", required_argument, NULL, OPT_REJECTS },
 	{ "reorder", required_argument, NULL, OPT_REORDER },
@@ -56,9 +63,11 @@ usage(FILE *fp, int status)
 {
 	fprintf(fp,
 "usage: cw-clean [-hv] [-c spec] [-d delim] [-o file] [--bounds field=lo:hi]\n"
-"                [--cells n] [--charge-negative] [--decimal-comma]\n"
-"                [--device name | @file] [--full-voltage volts]\n"
-"                [--max-gap duration] [--max-reject fraction]\n"
+"                [--cells n] [--charge-negative] [--charge-sign sign]\n"
+"                [--decimal-comma]\n"
+"                [--device name | @file] [--full-voltage volts] [--growing]\n"
+"                [--max-gap duration] [--max-jump duration]\n"
+"                [--max-reject fraction] [--max-time time | --now]\n"
 "                [--rejects file] [--reorder duration] [--sentinel list]\n"
 "                [--soc-from-charge ah] [--step duration] [--tz +hh:mm]\n"
 "                [file ...]\n"
@@ -75,8 +84,12 @@ usage(FILE *fp, int status)
 "      --decimal-comma     numbers use ',' as the decimal mark (default: '.',\n"
 "                          or either mark when the delimiter is not ',')\n"
 "      --device name       device name for logs without a device column;\n"
-"                          @file takes each file's base name\n"
+"                          @file takes each file's base name without the\n"
+"                          extensions .gz .bz2 .xz .zst .z, .csv .tsv .txt .log\n"
+"                          .dat and a date .YYYY-MM-DD or .YYYYMMDD\n"
 "      --charge-negative   the log counts charging current as negative\n"
+"      --charge-sign sign  auto, positive or negative: the sign of charging\n"
+"                          current in the log (default auto: per file)\n"
 "      --tz +hh:mm         offset of local times without a zone (default UTC)\n"
 "      --cells n           series cells per pack (voltage bounds 1.5..5.0 V per cell)\n"
 "      --bounds f=lo:hi    plausible range of voltage, current, temp or soc\n"
@@ -85,6 +98,16 @@ usage(FILE *fp, int status)
 "                          out-of-range (default -32768,65535; or none)\n"
 "      --step duration     resample each device onto this grid\n"
 "      --max-gap duration  never interpolate across a longer gap (default 15m)\n"
+"      --max-time time     reject rows stamped after time (ISO 8601 or epoch\n"
+"                          seconds) as future (default: no fixed bound)\n"
+"      --now               --max-time of the moment the run starts\n"
+"      --max-jump duration reject as future a row more than this past its\n"
+"                          device's newest time (a new device: the run's)\n"
+"                          unless the device's next row confirms the gap\n"
+"                          (default 7d; 0: off)\n"
+"      --growing           the files may still be written to: a last line\n"
+"                          without a line end is held back and counted\n"
+"                          (default: taken, with a warning)\n"
 "      --soc-from-charge ah  derive SoC by coulomb counting for a pack of ah\n"
 "      --full-voltage v    full-charge voltage for --soc-from-charge\n"
 "                          (default 4.15 V per cell)\n"
@@ -188,6 +211,9 @@ report(const struct clean_stats *st)
 	    "line%s skipped", st->written, st->written == 1 ? "" : "s",
 	    st->devices, st->devices == 1 ? "" : "s", st->header_repeats,
 	    st->header_repeats == 1 ? "" : "s");
+	if (st->unended > 0 || st->held > 0)
+		cw_warn("last lines without a line end: %lu taken, %lu held "
+		    "back (--growing)", st->unended, st->held);
 }
 
 int
@@ -232,7 +258,18 @@ main(int argc, char *argv[])
 			cells = (double)opt_long_arg("--cells", optarg, 1, 1000);
 			break;
 		case OPT_CHARGE_NEGATIVE:
-			c.charge_negative = 1;
+			c.charge_sign = CLEAN_SIGN_NEGATIVE;
+			break;
+		case OPT_CHARGE_SIGN:
+			if (strcmp(optarg, "auto") == 0)
+				c.charge_sign = CLEAN_SIGN_AUTO;
+			else if (strcmp(optarg, "positive") == 0)
+				c.charge_sign = CLEAN_SIGN_POSITIVE;
+			else if (strcmp(optarg, "negative") == 0)
+				c.charge_sign = CLEAN_SIGN_NEGATIVE;
+			else
+				cw_usage_error("--charge-sign: '%s' is not "
+				    "auto, positive or negative", optarg);
 			break;
 		case OPT_DECIMAL_COMMA:
 			c.dec = ',';
@@ -248,8 +285,23 @@ main(int argc, char *argv[])
 		case OPT_FULL_VOLTAGE:
 			full_v = opt_num_arg("--full-voltage", optarg, 0.1, 1e4);
 			break;
+		case OPT_GROWING:
+			c.growing = 1;
+			break;
 		case OPT_MAX_GAP:
 			c.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			break;
+		case OPT_MAX_JUMP:
+			c.max_jump = opt_dur_arg("--max-jump", optarg, 1);
+			break;
+		case OPT_MAX_TIME:
+			if (ts_parse(optarg, strlen(optarg), TS_AUTO, 0,
+			    &c.max_time) < 0)
+				cw_usage_error("--max-time: '%s' is not an ISO "
+				    "8601 time or epoch seconds", optarg);
+			break;
+		case OPT_NOW:
+			c.max_time = (cw_time)time(NULL) * CW_US_PER_S;
 			break;
 		case OPT_MAX_REJECT:
 			max_reject = opt_num_arg("--max-reject", optarg, 0, 1);

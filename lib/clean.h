@@ -16,16 +16,39 @@
 
 enum clean_reason {
 	CR_MALFORMED, CR_MISSING, CR_BADNUM, CR_BADTIME, CR_RANGE,
-	CR_DUPLICATE, CR_ORDER, CR_EMPTY, CR_NREASON
+	CR_DUPLICATE, CR_ORDER, CR_FUTURE, CR_EMPTY, CR_NREASON
 };
 
 extern const char *const clean_reason_name[CR_NREASON];
+
+/* --charge-sign: how the log counts charging current. */
+enum {
+	CLEAN_SIGN_AUTO,	/* decided per file from the data */
+	CLEAN_SIGN_POSITIVE,	/* as the sample stream: positive */
+	CLEAN_SIGN_NEGATIVE	/* turned */
+};
+
+/*
+ * --charge-sign auto reads up to CLEAN_SIGN_ROWS data rows of each named
+ * file ahead (a second open of the file; standard input is not read
+ * ahead) and counts the rows whose current agrees or disagrees in sign
+ * with the change of SoC since the device's previous row (of voltage,
+ * where the file has no SoC).  A sign is decided when one count is at
+ * least CLEAN_SIGN_MIN and CLEAN_SIGN_RATIO times the other.
+ */
+#define CLEAN_SIGN_ROWS		200000
+#define CLEAN_SIGN_ENOUGH	2000	/* evidence rows: stop reading ahead */
+#define CLEAN_SIGN_MIN		20
+#define CLEAN_SIGN_RATIO	4
+
+/* --max-jump default: 7 days (common practice, no source). */
+#define CLEAN_MAX_JUMP	((cw_time)7 * 86400 * CW_US_PER_S)
 
 struct clean_conf {
 	struct colmap_spec spec;
 	const char *device;	/* --device NAME */
 	int device_from_file;	/* --device @file */
-	int charge_negative;
+	int charge_sign;	/* CLEAN_SIGN_, default auto */
 	char delim;		/* '\0': from each file's header */
 	char dec;		/* '\0': '.', or either mark when the
 				 * delimiter is not ',' */
@@ -36,6 +59,17 @@ struct clean_conf {
 	int nsentinel;
 	double soc_ah;		/* --soc-from-charge, 0 when off */
 	double full_v;		/* full-charge voltage */
+	/*
+	 * Impossible stamps (a gauge clock reset to 2100): a row after
+	 * max_time (--max-time, INT64_MAX when not given) is rejected as
+	 * "future"; so is a row more than max_jump (--max-jump, 0 off) past
+	 * its device's newest accepted time (a device's first row: the
+	 * newest of the run) unless the device's next row confirms the jump
+	 * (a real gap).  Such a row is held, never accepted alone, so it
+	 * cannot make the rows after it look out of order.
+	 */
+	cw_time max_time, max_jump;
+	int growing;		/* --growing: hold a cut last line back */
 };
 
 struct clean_stats {
@@ -46,6 +80,8 @@ struct clean_stats {
 	unsigned long written;	/* sample rows written */
 	unsigned long header_repeats;
 	unsigned long devices;
+	unsigned long unended;	/* last lines without a line end, taken */
+	unsigned long held;	/* the same, held back (--growing) */
 };
 
 void	clean_conf_default(struct clean_conf *c);
