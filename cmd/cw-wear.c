@@ -80,7 +80,8 @@ enum {
 	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
 	OPT_FLEET, OPT_FULL,
 	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_MAX_GAP, OPT_MERGE,
-	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_RESIDUE, OPT_STATE,
+	OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL, OPT_PARTITION, OPT_RESIDUE,
+	OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
 };
 
@@ -98,6 +99,7 @@ static const struct option longopts[] = {
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
 	{ "merge", no_argument, NULL, OPT_MERGE },
 	{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
+	{ "partition", no_argument, NULL, OPT_PARTITION },
 	{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
 	{ "model", required_argument, NULL, OPT_MODEL },
 	{ "output", required_argument, NULL, 'o' },
@@ -140,9 +142,9 @@ usage(FILE *fp)
 	    "[--max-gap DUR]\n"
 	    "               [--merge] [--min-current A] [--min-depth PCT] "
 	    "[--model NAME]\n"
-	    "               [-o FILE] [--residue half|full|repeat] "
-	    "[--state FILE]\n"
-	    "               [--state-out] [--version] [file ...]\n"
+	    "               [-o FILE] [--partition] [--residue half|full|repeat]\n"
+	    "               [--state FILE] [--state-out] [--version] "
+	    "[file ...]\n"
 	    "\n"
 	    "Wear stress, modelled fade and its causes per pack, from the "
 	    "sample stream.\n"
@@ -178,6 +180,14 @@ usage(FILE *fp)
 	    "(default 0.5)\n"
 	    "      --model NAME          the degradation model "
 	    "(default xu2018)\n"
+	    "      --partition           with --merge, standard input holds the "
+	    "states\n"
+	    "                            of some devices only (a reducer's "
+	    "share): end\n"
+	    "                            rows checked for form, not for the "
+	    "rows they count\n"
+	    "                            (default: whole states, row counts "
+	    "checked)\n"
 	    "  -o, --output FILE         write to FILE atomically, not "
 	    "standard output\n"
 	    "      --residue half|full|repeat\n"
@@ -670,7 +680,7 @@ main(int argc, char *argv[])
 	double cycle_life = 0, calendar_life = 0;
 	size_t n, k;
 	unsigned fixed = 0;
-	int ch, rc, merge = 0, state_out = 0, dwell = 0;
+	int ch, rc, merge = 0, state_out = 0, dwell = 0, partition = 0;
 
 	cw_setprog("cw-wear");
 	wear_conf_default(&r.conf);
@@ -731,6 +741,9 @@ main(int argc, char *argv[])
 		case OPT_MERGE:
 			merge = 1;
 			break;
+		case OPT_PARTITION:
+			partition = 1;
+			break;
 		case OPT_MIN_CURRENT:
 			r.conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
@@ -773,6 +786,8 @@ main(int argc, char *argv[])
 	if (state != NULL && out != NULL && strcmp(out, "-") != 0 &&
 	    outf_same(state, out))
 		cw_usage_error("--state and -o name the same file");
+	if (partition && !merge)
+		cw_usage_error("--partition goes with --merge");
 	if (dwell && (state != NULL || state_out || merge))
 		cw_usage_error("--dwell does not go with --state, --state-out "
 		    "or --merge (a dwell table is not kept in a state)");
@@ -821,11 +836,12 @@ main(int argc, char *argv[])
 		/* File operands are whole states; a stream may be sorted. */
 		for (k = 0; k < (size_t)argc; k++) {
 			rc = wstate_read(&rd, argv[k],
-			    strcmp(argv[k], "-") != 0);
+			    strcmp(argv[k], "-") != 0 || !partition);
 			if (rc != 0)
 				exit(rc);
 		}
-		if (argc == 0 && (rc = wstate_read(&rd, "-", 0)) != 0)
+		if (argc == 0 && (rc = wstate_read(&rd, "-", !partition)) !=
+		    0)
 			exit(rc);
 		if ((rc = flush(&r)) != 0)
 			exit(rc);
