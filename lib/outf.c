@@ -257,8 +257,9 @@ open_any(const char *path, int state)
 	if (have && !S_ISREG(st.st_mode)) {
 		/*
 		 * A device or a FIFO is written in place: renaming over it
-		 * would replace it with a plain file.  A FIFO is opened
-		 * without waiting for a reader, which it must have.
+		 * would replace it with a plain file.  One's own FIFO waits
+		 * for its reader (a pipeline started in any order); another
+		 * user's in a shared folder is refused.
 		 */
 		if (S_ISFIFO(st.st_mode) && shared_dir(dir, &st, &dst))
 			cw_die(CW_EXIT_DATA, "%s: a FIFO of another user in a "
@@ -266,13 +267,9 @@ open_any(const char *path, int state)
 		if (!S_ISFIFO(st.st_mode) && !S_ISCHR(st.st_mode))
 			cw_die(CW_EXIT_DATA, "%s: neither a plain file, a "
 			    "FIFO nor a character device", path);
-		fd = open(target, O_WRONLY | O_NONBLOCK | O_NOCTTY);
-		if (fd < 0 && errno == ENXIO)
-			cw_die(CW_EXIT_DATA, "%s: a FIFO that nobody reads "
-			    "(the run would wait for ever)", path);
+		fd = open(target, O_WRONLY | O_NOCTTY);
 		if (fd < 0)
 			cw_die(CW_EXIT_DATA, "%s: %s", path, strerror(errno));
-		fcntl(fd, F_SETFL, fcntl(fd, F_GETFL) & ~O_NONBLOCK);
 		o = slot();
 		o->fp = fdopen(fd, "w");
 		if (o->fp == NULL)
