@@ -5,6 +5,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <time.h>
 
 #include "clean.h"
 #include "csvout.h"
@@ -17,9 +18,10 @@
 enum {
 	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_CHARGE_SIGN,
 	OPT_DECIMAL_COMMA,
-	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_KEEP, OPT_MAX_GAP, OPT_MAX_REJECT,
-	OPT_REJECTS, OPT_REORDER, OPT_SENTINEL, OPT_SKIP_JUNK,
-	OPT_SOC_FROM_CHARGE, OPT_STEP, OPT_TZ,
+	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_GROWING, OPT_KEEP, OPT_MAX_GAP,
+	OPT_MAX_JUMP, OPT_MAX_REJECT, OPT_MAX_TIME, OPT_NOW, OPT_REJECTS,
+	OPT_REORDER, OPT_SENTINEL, OPT_SKIP_JUNK, OPT_SOC_FROM_CHARGE,
+	OPT_STEP, OPT_TZ,
 	OPT_VERSION
 };
 
@@ -33,10 +35,14 @@ static const struct option longopts[] = {
 	{ "delimiter", required_argument, NULL, 'd' },
 	{ "device", required_argument, NULL, OPT_DEVICE },
 	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
+	{ "growing", no_argument, NULL, OPT_GROWING },
 	{ "help", no_argument, NULL, 'h' },
 	{ "keep", required_argument, NULL, OPT_KEEP },
 	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
+	{ "max-jump", required_argument, NULL, OPT_MAX_JUMP },
 	{ "max-reject", required_argument, NULL, OPT_MAX_REJECT },
+	{ "max-time", required_argument, NULL, OPT_MAX_TIME },
+	{ "now", no_argument, NULL, OPT_NOW },
 	{ "output", required_argument, NULL, 'o' },
 	{ "rejects", required_argument, NULL, OPT_REJECTS },
 	{ "reorder", required_argument, NULL, OPT_REORDER },
@@ -63,9 +69,10 @@ usage(FILE *fp, int status)
 "usage: cw-clean [-hv] [-c spec] [-d delim] [-o file] [--bounds field=lo:hi]\n"
 "                [--cells n] [--charge-negative] [--charge-sign sign]\n"
 "                [--decimal-comma]\n"
-"                [--device name | @file] [--full-voltage volts]\n"
+"                [--device name | @file] [--full-voltage volts] [--growing]\n"
 "                [--keep col[,col...]]\n"
-"                [--max-gap duration] [--max-reject fraction]\n"
+"                [--max-gap duration] [--max-jump duration]\n"
+"                [--max-reject fraction] [--max-time time | --now]\n"
 "                [--rejects file] [--reorder duration] [--sentinel list]\n"
 "                [--skip-junk] [--soc-from-charge ah] [--step duration]\n"
 "                [--tz +hh:mm]\n"
@@ -83,7 +90,9 @@ usage(FILE *fp, int status)
 "      --decimal-comma     numbers use ',' as the decimal mark (default: '.',\n"
 "                          or either mark when the delimiter is not ',')\n"
 "      --device name       device name for logs without a device column;\n"
-"                          @file takes each file's base name\n"
+"                          @file takes each file's base name without the\n"
+"                          extensions .gz .bz2 .xz .zst .z, .csv .tsv .txt .log\n"
+"                          .dat and a date .YYYY-MM-DD or .YYYYMMDD\n"
 "      --charge-negative   the log counts charging current as negative\n"
 "      --charge-sign sign  auto, positive or negative: the sign of charging\n"
 "                          current in the log (default auto: per file)\n"
@@ -100,6 +109,16 @@ usage(FILE *fp, int status)
 "                          (counted on stderr; without it: exit 1)\n"
 "      --step duration     resample each device onto this grid\n"
 "      --max-gap duration  never interpolate across a longer gap (default 15m)\n"
+"      --max-time time     reject rows stamped after time (ISO 8601 or epoch\n"
+"                          seconds) as future (default: no fixed bound)\n"
+"      --now               --max-time of the moment the run starts\n"
+"      --max-jump duration reject as future a row more than this past its\n"
+"                          device's newest time (a new device: the run's)\n"
+"                          unless the device's next row confirms the gap\n"
+"                          (default 7d; 0: off)\n"
+"      --growing           the files may still be written to: a last line\n"
+"                          without a line end is held back and counted\n"
+"                          (default: taken, with a warning)\n"
 "      --soc-from-charge ah  derive SoC by coulomb counting for a pack of ah\n"
 "      --full-voltage v    full-charge voltage for --soc-from-charge\n"
 "                          (default 4.15 V per cell)\n"
@@ -203,6 +222,9 @@ report(const struct clean_stats *st)
 	    "line%s skipped", st->written, st->written == 1 ? "" : "s",
 	    st->devices, st->devices == 1 ? "" : "s", st->header_repeats,
 	    st->header_repeats == 1 ? "" : "s");
+	if (st->unended > 0 || st->held > 0)
+		cw_warn("last lines without a line end: %lu taken, %lu held "
+		    "back (--growing)", st->unended, st->held);
 }
 
 int
@@ -278,8 +300,23 @@ main(int argc, char *argv[])
 			if (clean_keep_parse(&c, optarg, &err) < 0)
 				cw_usage_error("--keep: %s: '%s'", err, optarg);
 			break;
+		case OPT_GROWING:
+			c.growing = 1;
+			break;
 		case OPT_MAX_GAP:
 			c.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			break;
+		case OPT_MAX_JUMP:
+			c.max_jump = opt_dur_arg("--max-jump", optarg, 1);
+			break;
+		case OPT_MAX_TIME:
+			if (ts_parse(optarg, strlen(optarg), TS_AUTO, 0,
+			    &c.max_time) < 0)
+				cw_usage_error("--max-time: '%s' is not an ISO "
+				    "8601 time or epoch seconds", optarg);
+			break;
+		case OPT_NOW:
+			c.max_time = (cw_time)time(NULL) * CW_US_PER_S;
 			break;
 		case OPT_MAX_REJECT:
 			max_reject = opt_num_arg("--max-reject", optarg, 0, 1);

@@ -42,7 +42,11 @@ struct dev {
 	struct devent e;
 	int started;
 	int loaded;		/* from a --state file, up to UPTO */
+	int past;		/* a row after UPTO came */
+	int seen_end;		/* a row at UPTO came: the state's last */
 	cw_time upto;
+	cw_time stale_first, stale_last;	/* rows up to UPTO */
+	unsigned long nstale;
 	struct wear_dev w;
 };
 
@@ -83,7 +87,7 @@ enum {
 	OPT_FIT_SCALES, OPT_FLEET, OPT_FULL,
 	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_LOCK_WAIT,
 	OPT_MAX_GAP, OPT_MERGE, OPT_MEASURED, OPT_MIN_CURRENT, OPT_MIN_DEPTH,
-	OPT_MODEL, OPT_RESIDUE, OPT_STATE,
+	OPT_MODEL, OPT_PARTITION, OPT_RESIDUE, OPT_STATE,
 	OPT_STATE_OUT, OPT_VERSION
 };
 
@@ -104,6 +108,7 @@ static const struct option longopts[] = {
 	{ "measured", required_argument, NULL, OPT_MEASURED },
 	{ "merge", no_argument, NULL, OPT_MERGE },
 	{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
+	{ "partition", no_argument, NULL, OPT_PARTITION },
 	{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
 	{ "model", required_argument, NULL, OPT_MODEL },
 	{ "output", required_argument, NULL, 'o' },
@@ -124,6 +129,7 @@ static void straddle(struct run *, const struct piece *,
     const struct dev *, const char *);
 static int flush(struct run *);
 static int exists(const char *);
+static void stale_check(struct run *, const char *);
 static void write_row(struct csvout *, const struct run *,
     const struct dev *, const struct wear_result *);
 static void write_states(struct outf *, const char *, struct run *,
@@ -149,9 +155,9 @@ usage(FILE *fp)
 	    "[--measured FILE] [--merge]\n"
 	    "               [--min-current A] [--min-depth PCT] "
 	    "[--model NAME]\n"
-	    "               [-o FILE] [--residue half|full|repeat] "
-	    "[--state FILE]\n"
-	    "               [--state-out] [--version] [file ...]\n"
+	    "               [-o FILE] [--partition] [--residue half|full|repeat]\n"
+	    "               [--state FILE] [--state-out] [--version] "
+	    "[file ...]\n"
 	    "\n"
 	    "Wear stress, modelled fade and its causes per pack, from the "
 	    "sample stream.\n"
@@ -197,6 +203,14 @@ usage(FILE *fp)
 	    "(default 0.5)\n"
 	    "      --model NAME          the degradation model "
 	    "(default xu2018)\n"
+	    "      --partition           with --merge, standard input holds the "
+	    "states\n"
+	    "                            of some devices only (a reducer's "
+	    "share): end\n"
+	    "                            rows checked for form, not for the "
+	    "rows they count\n"
+	    "                            (default: whole states, row counts "
+	    "checked)\n"
 	    "  -o, --output FILE         write to FILE atomically, not "
 	    "standard output\n"
 	    "      --residue half|full|repeat\n"
@@ -225,16 +239,20 @@ on_row(void *ctx, void *state, const struct cw_sample *s)
 		d->started = 1;
 	}
 	if (d->loaded) {
-		/* Rows up to the end of the state are in it already. */
+		/*
+		 * Rows up to the end of the state are in it already when
+		 * they come with its last row (the same day again); see
+		 * stale_check() for the others.
+		 */
 		if (s->t <= d->upto) {
-			r->stale++;
-			if (d->loaded == 1) {
-				r->stale_devs++;
-				d->loaded = 2;
-			}
+			if (d->nstale++ == 0)
+				d->stale_first = s->t;
+			d->stale_last = s->t;
+			d->seen_end |= s->t == d->upto;
 			return 0;
 		}
 		d->loaded = 0;
+		d->past = 1;
 	}
 	wear_push(&d->w, &r->conf, s->t, s->v, s->i, s->temp, s->soc);
 	return 0;
@@ -491,6 +509,65 @@ report(const struct run *r, struct dev **devs, size_t n)
 }
 
 /*
+ * Rows of a device at or before the end of its state STATE: the same rows
+ * again when its last row is among them (skipped, counted); a clock gone
+ * back across the boundary when they are within --max-gap of the end and
+ * newer rows follow (skipped, counted apart); otherwise rows the state does
+ * not hold (a day that came late): an error, nothing written.
+ */
+static void
+stale_check(struct run *r, const char *state)
+{
+	char t[3][TS_FMTMAX];
+	unsigned long late = 0, late_devs = 0, back = 0, back_devs = 0;
+	size_t k;
+
+	for (k = 0; k < devtab_count(r->devs); k++) {
+		struct dev *d = devtab_at(r->devs, k);
+
+		if (d->nstale == 0)
+			continue;
+		if (d->seen_end) {
+			r->stale += d->nstale;
+			r->stale_devs++;
+			continue;
+		}
+		if (d->past && d->stale_first >= d->upto - r->conf.max_gap) {
+			back += d->nstale;
+			back_devs++;
+			continue;
+		}
+		late += d->nstale;
+		if (late_devs++ >= MAXWARN)
+			continue;
+		ts_format(d->stale_first, t[0]);
+		ts_format(d->stale_last, t[1]);
+		ts_format(d->upto, t[2]);
+		cw_warn("%s: %.*s: %lu rows from %s to %s come before the end "
+		    "of its state (%s) but not with its last row: not in the "
+		    "state", state, (int)d->e.namelen, d->e.name, d->nstale,
+		    t[0], t[1], t[2]);
+	}
+	if (late > 0)
+		cw_die(CW_EXIT_DATA, "%s: %lu rows of %lu devices are older "
+		    "than the state and not in it (a day that came late?); "
+		    "nothing written, the state is as it was.  To fold them "
+		    "in, rebuild the state from every day in time order, with "
+		    "each day's cw-wear --state-out and one cw-wear --merge "
+		    "(README, \"A day that comes late\")", state, late,
+		    late_devs);
+	if (back > 0)
+		cw_warn("%s: %lu rows of %lu devices within --max-gap before "
+		    "the end of their state, followed by newer rows (a clock "
+		    "gone back across the boundary?): not in the state, "
+		    "skipped", state, back, back_devs);
+	if (r->stale > 0)
+		cw_warn("%s: %lu rows of %lu devices up to the end of their "
+		    "state came again, its last row among them: already in "
+		    "it, skipped", state, r->stale, r->stale_devs);
+}
+
+/*
  * The prior of device D from the fleet file, unless its state has one
  * (the state's first row is the one the prior was taken for): a measured
  * SoH first, else its time in service before the first row and its
@@ -726,6 +803,7 @@ main(int argc, char *argv[])
 	unsigned fixed = 0;
 	const char *measured = NULL;
 	int ch, rc, merge = 0, state_out = 0, dwell = 0, fitting = 0;
+	int partition = 0;
 	cw_time lock_wait = LOCK_WAIT_DEFAULT;
 
 	cw_setprog("cw-wear");
@@ -796,6 +874,9 @@ main(int argc, char *argv[])
 		case OPT_MERGE:
 			merge = 1;
 			break;
+		case OPT_PARTITION:
+			partition = 1;
+			break;
 		case OPT_MIN_CURRENT:
 			r.conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
@@ -835,8 +916,11 @@ main(int argc, char *argv[])
 	}
 	argc -= optind;
 	argv += optind;
-	if (state != NULL && out != NULL && strcmp(state, out) == 0)
+	if (state != NULL && out != NULL && strcmp(out, "-") != 0 &&
+	    outf_same(state, out))
 		cw_usage_error("--state and -o name the same file");
+	if (partition && !merge)
+		cw_usage_error("--partition goes with --merge");
 	if (dwell && (state != NULL || state_out || merge))
 		cw_usage_error("--dwell does not go with --state, --state-out "
 		    "or --merge (a dwell table is not kept in a state)");
@@ -867,10 +951,18 @@ main(int argc, char *argv[])
 	rd.fixed = fixed;
 	rd.dev = on_state;
 	rd.ctx = &r;
-	/* One run at a time on a state, from its read to its rename. */
-	if (state != NULL)
+	/*
+	 * A state must be a regular file; one run at a time on it, from its
+	 * read to its rename.
+	 */
+	if (state != NULL) {
+		outf_check_state(state);
 		lock_state(state, lock_wait);
-	if (state != NULL && exists(state)) {
+	}
+	if (state != NULL && !exists(state))
+		cw_warn("%s: no such state: a new history starts (as on the "
+		    "first night)", state);
+	else if (state != NULL) {
 		if ((rc = wstate_read(&rd, state, 1)) != 0 ||
 		    (rc = flush(&r)) != 0)
 			exit(rc);
@@ -884,17 +976,18 @@ main(int argc, char *argv[])
 		}
 	}
 	if (state != NULL)
-		sf = outf_open(state);
-	of = outf_open(out);
+		sf = outf_open_state(state);
+	of = state_out ? outf_open_state(out) : outf_open(out);
 	if (merge) {
 		/* File operands are whole states; a stream may be sorted. */
 		for (k = 0; k < (size_t)argc; k++) {
 			rc = wstate_read(&rd, argv[k],
-			    strcmp(argv[k], "-") != 0);
+			    strcmp(argv[k], "-") != 0 || !partition);
 			if (rc != 0)
 				exit(rc);
 		}
-		if (argc == 0 && (rc = wstate_read(&rd, "-", 0)) != 0)
+		if (argc == 0 && (rc = wstate_read(&rd, "-", !partition)) !=
+		    0)
 			exit(rc);
 		if ((rc = flush(&r)) != 0)
 			exit(rc);
@@ -918,10 +1011,8 @@ main(int argc, char *argv[])
 			sampin_report(&st, NULL);
 		if (rc != 0)
 			exit(rc);
-		if (r.stale > 0)
-			cw_warn("%lu rows of %lu devices not after the end of "
-			    "their state in %s skipped (already in it)",
-			    r.stale, r.stale_devs, state);
+		if (state != NULL)
+			stale_check(&r, state);
 	}
 	/* The scales depend on the model, which a state may have set. */
 	if (cycle_life > 0)

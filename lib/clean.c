@@ -17,7 +17,7 @@
 
 const char *const clean_reason_name[CR_NREASON] = {
 	"malformed", "missing-field", "bad-number", "bad-time",
-	"out-of-range", "duplicate", "out-of-order", "empty"
+	"out-of-range", "duplicate", "out-of-order", "future", "empty"
 };
 
 /*
@@ -57,6 +57,13 @@ struct cdev {
 	double soc;		/* coulomb-counted SoC */
 	cw_time soc_t;
 	int soc_known;
+	/* A row far past the device's time line, until its next row. */
+	int held;
+	struct rs_point hp;
+	struct csvin_rec hrec;	/* src, line and raw text, for --rejects */
+	char *hraw;
+	size_t hrawcap;
+	char *hk;		/* its --keep values (kstride bytes) */
 };
 
 struct run {
@@ -65,6 +72,7 @@ struct run {
 	struct csvout *out, *rej;
 	struct devtab *devs;
 	struct csvin *in;
+	cw_time newest;		/* latest time accepted, any device */
 	char dec;		/* decimal mark of this file */
 	struct cdev *last;	/* device of the previous row */
 	struct colmap map;
@@ -101,6 +109,7 @@ struct run {
 	int keepcol[CLEAN_KEEP_MAX];
 	size_t kstride;
 	char *krow;
+	char *ktmp;		/* krow kept while a held row goes in */
 };
 
 /* A device's last row in the read-ahead. */
@@ -129,6 +138,13 @@ static void emit(void *, const struct rs_point *);
 static void drain(struct run *, struct cdev *, cw_time);
 static int same_name(const struct cdev *, const char *, size_t);
 static void guess_next(const struct cdev *);
+static size_t strip_ext(const char *, size_t, const char *const *, size_t);
+static size_t strip_date(const char *, size_t);
+static int place(struct run *, struct cdev *, const struct rs_point *,
+    const struct csvin_rec *);
+static void hold(struct run *, struct cdev *, const struct rs_point *,
+    const struct csvin_rec *);
+static void unhold(struct run *, struct cdev *, int);
 
 void
 clean_conf_default(struct clean_conf *c)
@@ -150,6 +166,8 @@ clean_conf_default(struct clean_conf *c)
 	c->nsentinel = 2;
 	c->reorder = 60 * CW_US_PER_S;
 	c->max_gap = 15 * 60 * CW_US_PER_S;
+	c->max_time = INT64_MAX;
+	c->max_jump = CLEAN_MAX_JUMP;
 }
 
 static int
@@ -169,16 +187,28 @@ reject(struct run *r, const struct csvin_rec *rec, int why)
 	return 0;
 }
 
-/* The base name of PATH without any extensions. */
+/*
+ * The base name of PATH without its known extensions (compression, then
+ * log kinds, each at most once, any case) and then a date part of a daily
+ * file (".YYYY-MM-DD" or ".YYYYMMDD"): "10.0.0.1.csv.gz" is device
+ * "10.0.0.1", "EB-0042.2026-03-01.csv" is "EB-0042", "pack.A.log" is
+ * "pack.A".
+ */
 static void
 file_device(struct run *r, const char *path)
 {
-	const char *b = strrchr(path, '/'), *dot;
+	static const char *const zext[] = { ".gz", ".bz2", ".xz", ".zst",
+	    ".z" };
+	static const char *const lext[] = { ".csv", ".tsv", ".txt", ".log",
+	    ".dat" };
+	const char *b = strrchr(path, '/');
 	size_t n;
 
 	b = b != NULL ? b + 1 : path;
-	dot = strchr(b, '.');
-	n = dot != NULL && dot > b ? (size_t)(dot - b) : strlen(b);
+	n = strlen(b);
+	n = strip_ext(b, n, zext, sizeof(zext) / sizeof(zext[0]));
+	n = strip_ext(b, n, lext, sizeof(lext) / sizeof(lext[0]));
+	n = strip_date(b, n);
 	if (n >= sizeof(r->file_devbuf))
 		n = sizeof(r->file_devbuf) - 1;
 	memcpy(r->file_devbuf, b, n);
@@ -438,6 +468,41 @@ units_check(struct run *r)
 	}
 }
 
+/* N, less a date part ".YYYY-MM-DD" or ".YYYYMMDD" that B[0..N) ends with. */
+static size_t
+strip_date(const char *b, size_t n)
+{
+	static const char *const form[] = { ".dddd-dd-dd", ".dddddddd" };
+	size_t k, m, j;
+
+	for (k = 0; k < 2; k++) {
+		m = strlen(form[k]);
+		if (n <= m)
+			continue;
+		for (j = 0; j < m; j++)
+			if (form[k][j] == 'd' ? (unsigned)(b[n - m + j] -
+			    '0') > 9 : b[n - m + j] != form[k][j])
+				break;
+		if (j == m)
+			return n - m;
+	}
+	return n;
+}
+
+/* N, less one of the extensions EXT[0..NEXT) that B[0..N) ends with. */
+static size_t
+strip_ext(const char *b, size_t n, const char *const *ext, size_t next)
+{
+	size_t k, m;
+
+	for (k = 0; k < next; k++) {
+		m = strlen(ext[k]);
+		if (n > m && strncasecmp(b + n - m, ext[k], m) == 0)
+			return n - m;
+	}
+	return n;
+}
+
 static int
 on_header(void *ctx, const struct csvin_rec *h)
 {
@@ -615,7 +680,7 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	double x[CM_NFIELD];
 	struct cdev *d;
 	const char *name;
-	size_t namelen, k, lo, hi;
+	size_t namelen, k;
 	int i, f, rc;
 
 	r->st->lines++;
@@ -687,6 +752,79 @@ on_row(void *ctx, const struct csvin_rec *rec)
 		r->last = d;
 		guess_next(d);
 	}
+	if (p.t > c->max_time)
+		return reject(r, rec, CR_FUTURE);
+	/*
+	 * A held row is judged by the row after it: far behind it, the held
+	 * one was a clock gone wrong; else the gap was real.
+	 */
+	if (d->held)
+		unhold(r, d, c->max_jump > 0 && p.t < d->hp.t - c->max_jump);
+	if (c->max_jump > 0) {
+		cw_time ref = d->max_seen != INT64_MIN ? d->max_seen :
+		    r->newest;
+
+		if (ref == INT64_MIN || (p.t > ref &&
+		    p.t - ref > c->max_jump)) {
+			hold(r, d, &p, rec);
+			return 0;
+		}
+	}
+	return place(r, d, &p, rec);
+}
+
+/* Keep row P of D (its record REC) until D's next row or the end. */
+static void
+hold(struct run *r, struct cdev *d, const struct rs_point *p,
+    const struct csvin_rec *rec)
+{
+	if (rec->rawlen + 1 > d->hrawcap) {
+		d->hrawcap = rec->rawlen + 1 > 256 ? rec->rawlen + 1 : 256;
+		d->hraw = cw_realloc(d->hraw, d->hrawcap);
+	}
+	memcpy(d->hraw, rec->raw, rec->rawlen);
+	d->hraw[rec->rawlen] = '\0';
+	memset(&d->hrec, 0, sizeof(d->hrec));
+	d->hrec.src = rec->src;
+	d->hrec.line = rec->line;
+	d->hrec.raw = d->hraw;
+	d->hrec.rawlen = rec->rawlen;
+	d->hp = *p;
+	d->held = 1;
+	if (r->kstride > 0) {
+		if (d->hk == NULL)
+			d->hk = cw_malloc(r->kstride);
+		memcpy(d->hk, r->krow, r->kstride);
+	}
+}
+
+/* The held row of D: rejected as future (FUTURE), or taken in. */
+static void
+unhold(struct run *r, struct cdev *d, int future)
+{
+	d->held = 0;
+	if (future) {
+		reject(r, &d->hrec, CR_FUTURE);
+		return;
+	}
+	/* The held row goes in with its own --keep values. */
+	if (r->kstride > 0) {
+		memcpy(r->ktmp, r->krow, r->kstride);
+		memcpy(r->krow, d->hk, r->kstride);
+	}
+	place(r, d, &d->hp, &d->hrec);
+	if (r->kstride > 0)
+		memcpy(r->krow, r->ktmp, r->kstride);
+}
+
+/* Row P of D, read as REC, into D's reorder window (or rejected). */
+static int
+place(struct run *r, struct cdev *d, const struct rs_point *pp,
+    const struct csvin_rec *rec)
+{
+	const struct clean_conf *c = r->c;
+	struct rs_point p = *pp;
+	size_t lo, hi;
 	/* Too late for the window, or a time already seen. */
 	if (p.t <= d->last_out)
 		return reject(r, rec, p.t == d->last_out ? CR_DUPLICATE :
@@ -708,6 +846,8 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	if (lo < d->qn && d->q[lo].t == p.t)
 		return reject(r, rec, CR_DUPLICATE);
 	r->st->accepted++;
+	if (p.t > r->newest)
+		r->newest = p.t;
 	if (c->reorder == 0 && d->qh == d->qn) {
 		release(r, d, &p, r->krow);
 		d->max_seen = p.t;
@@ -1065,6 +1205,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	r.out = out;
 	r.rej = rej;
 	r.devs = devtab_new(sizeof(struct cdev));
+	r.newest = INT64_MIN;
 	r.required = (1u << CM_TIME) | (1u << CM_VOLTAGE) | (1u << CM_CURRENT);
 	if (c->device == NULL && !c->device_from_file)
 		r.required |= 1u << CM_DEVICE;
@@ -1075,8 +1216,10 @@ clean_run(const struct clean_conf *c, char **files, int n,
 		csvout_str(out, c->keep[k]);
 	csvout_endrow(out);
 	r.kstride = (size_t)c->nkeep * CLEAN_KEEP_LEN;
-	if (r.kstride > 0)
+	if (r.kstride > 0) {
 		r.krow = cw_calloc(1, r.kstride);
+		r.ktmp = cw_calloc(1, r.kstride);
+	}
 	if (rej != NULL)
 		csvout_header(rej, "source,line,reason,record");
 	r.negative = c->charge_sign == CLEAN_SIGN_NEGATIVE;
@@ -1084,16 +1227,24 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	r.nfsign = r.fsign ? n : 0;
 	r.files = files;
 	in = csvin_new(c->delim, &ops, &r);
+	csvin_set_growing(in, c->growing);
 	r.in = in;
 	rc = csvin_files(in, files, n);
 	units_check(&r);
 	free((void *)r.fsign);
 	st->header_repeats = csvin_stats(in)->header_repeats;
+	st->unended = csvin_stats(in)->unended;
+	st->held = csvin_stats(in)->held;
 	csvin_free(in);
 	/* What is still in the windows leaves now, device by device. */
 	for (i = 0; i < devtab_count(r.devs); i++) {
 		struct cdev *d = devtab_at(r.devs, i);
 
+		/* A held row with no row after it: far past the run, future. */
+		if (d->held)
+			unhold(&r, d, r.newest != INT64_MIN &&
+			    d->hp.t > r.newest && d->hp.t - r.newest >
+			    c->max_jump);
 		drain(&r, d, INT64_MAX);
 		if (c->step > 0) {
 			r.cur = d;
@@ -1103,9 +1254,12 @@ clean_run(const struct clean_conf *c, char **files, int n,
 			free(d->q);
 		free(d->qk);
 		free(d->kv);
+		free(d->hraw);
+		free(d->hk);
 	}
 	devtab_free(r.devs);
 	free(r.krow);
+	free(r.ktmp);
 	if (st->keep_cut > 1)
 		cw_warn("--keep: %lu values cut in all", st->keep_cut);
 	return rc;

@@ -16,7 +16,7 @@
 
 enum clean_reason {
 	CR_MALFORMED, CR_MISSING, CR_BADNUM, CR_BADTIME, CR_RANGE,
-	CR_DUPLICATE, CR_ORDER, CR_EMPTY, CR_NREASON
+	CR_DUPLICATE, CR_ORDER, CR_FUTURE, CR_EMPTY, CR_NREASON
 };
 
 extern const char *const clean_reason_name[CR_NREASON];
@@ -60,6 +60,8 @@ enum {
  */
 #define CLEAN_KEEP_MAX	8
 #define CLEAN_KEEP_LEN	64
+/* --max-jump default: 7 days (common practice, no source). */
+#define CLEAN_MAX_JUMP	((cw_time)7 * 86400 * CW_US_PER_S)
 
 struct clean_conf {
 	struct colmap_spec spec;
@@ -78,6 +80,17 @@ struct clean_conf {
 	double full_v;		/* full-charge voltage */
 	const char *keep[CLEAN_KEEP_MAX];	/* --keep, as named */
 	int nkeep;
+	/*
+	 * Impossible stamps (a gauge clock reset to 2100): a row after
+	 * max_time (--max-time, INT64_MAX when not given) is rejected as
+	 * "future"; so is a row more than max_jump (--max-jump, 0 off) past
+	 * its device's newest accepted time (a device's first row: the
+	 * newest of the run) unless the device's next row confirms the jump
+	 * (a real gap).  Such a row is held, never accepted alone, so it
+	 * cannot make the rows after it look out of order.
+	 */
+	cw_time max_time, max_jump;
+	int growing;		/* --growing: hold a cut last line back */
 };
 
 struct clean_stats {
@@ -89,6 +102,8 @@ struct clean_stats {
 	unsigned long header_repeats;
 	unsigned long devices;
 	unsigned long keep_cut;	/* --keep values longer than a slot */
+	unsigned long unended;	/* last lines without a line end, taken */
+	unsigned long held;	/* the same, held back (--growing) */
 };
 
 void	clean_conf_default(struct clean_conf *c);

@@ -38,6 +38,7 @@ struct csvin {
 	char **f;
 	size_t fcap, nf;
 	int failed;		/* libcsv reported an error in this record */
+	int growing;		/* csvin_set_growing(): hold a cut last line */
 	/* Per file. */
 	const char *src;
 	unsigned long line;	/* line number of the next record */
@@ -54,6 +55,8 @@ static void split_plain(struct csvin *, const char *, size_t);
 static char guess_delim(const char *, size_t);
 static int read_src(struct csvin *, struct gzsrc *);
 static int term_fn(unsigned char);
+static int unended(struct csvin *, struct gzsrc *, const char *,
+    const char *);
 static int scan_quoted(const struct csvin *, const char *, const char *, int,
     const char **, unsigned long *);
 
@@ -351,6 +354,37 @@ scan_quoted(const struct csvin *r, const char *p, const char *e, int eof,
 	return inq ? -1 : 1;
 }
 
+/*
+ * The last line of a plain (not gzip) source, [S, E), has no line end: a
+ * file cut or still being written.  Whether it is held back (not read).
+ */
+static int
+unended(struct csvin *r, struct gzsrc *src, const char *s, const char *e)
+{
+	const char *p;
+
+	if (!gzsrc_plain(src))
+		return 0;
+	for (p = s; p < e && (*p == '\r' || *p == ' ' || *p == '\t'); p++)
+		continue;
+	if (p == e)
+		return 0;	/* blanks only: no data to take or hold */
+	if (r->growing) {
+		r->st.held++;
+		return 1;
+	}
+	r->st.unended++;
+	cw_warn_at(r->src, r->line, "last line without a line end (a file "
+	    "cut or still being written?): taken as it is");
+	return 0;
+}
+
+void
+csvin_set_growing(struct csvin *r, int on)
+{
+	r->growing = on;
+}
+
 int
 csvin_file(struct csvin *r, const char *path)
 {
@@ -456,6 +490,10 @@ read_src(struct csvin *r, struct gzsrc *src)
 				if (!eof)
 					break;	/* wait for more data */
 				end = e;	/* the last record */
+				if (q > 0 && unended(r, src, s, e)) {
+					s = e;
+					break;
+				}
 			}
 			n = (size_t)(end - s);
 			if (n > 0 && s[n - 1] == '\r')

@@ -44,6 +44,9 @@ struct csvin_stats {
 	unsigned long rows;		/* passed to row() */
 	unsigned long bad;		/* passed to bad() */
 	unsigned long blank;		/* passed to blank() */
+	unsigned long unended;		/* last lines without a line end,
+					 * taken (with a warning) */
+	unsigned long held;		/* the same, held back (growing) */
 };
 
 struct csvin;
@@ -62,6 +65,12 @@ int	csvin_mem(struct csvin *r, const char *name, const void *buf,
 	    size_t n);
 /* Read every file of FILES[0..N), or standard input when N is 0. */
 int	csvin_files(struct csvin *r, char **files, int n);
+/*
+ * ON: the files may still be written to, so the last line of a plain file
+ * without a line end is a line not finished yet: held back (not passed to
+ * any callback) and counted, instead of taken with a warning.
+ */
+void	csvin_set_growing(struct csvin *r, int on);
 const struct csvin_stats *csvin_stats(const struct csvin *r);
 /* The delimiter in use (of the current file, when chosen by header). */
 char	csvin_delim(const struct csvin *r);

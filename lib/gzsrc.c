@@ -177,6 +177,7 @@ decode(struct gzsrc *s, unsigned char *buf, size_t n)
 			if (avail < 2 || s->in[s->inpos] != 0x1f ||
 			    s->in[s->inpos + 1] != 0x8b) {
 				s->mode = GZSRC_M_PLAIN;
+				s->plain = 1;
 				continue;
 			}
 			if (inflateInit2(&s->z, 15 + 16) != Z_OK)
@@ -264,6 +265,12 @@ decode(struct gzsrc *s, unsigned char *buf, size_t n)
 			return -1;
 		}
 	}
+}
+
+int
+gzsrc_plain(const struct gzsrc *s)
+{
+	return s->plain;
 }
 
 /* The binding of gzsrc_bind_mem(). */

@@ -31,6 +31,7 @@ struct gzsrc {
 	const char *name;	/* "-" shows as "stdin" in messages */
 	int is_stdin;
 	int is_mem;		/* gzsrc_open_mem(): all input in in[] */
+	int plain;		/* read as plain text, not gzip */
 	int fd;			/* -1: no more raw input than in[] holds */
 	/* Raw input: bytes [inpos, inlen) of in[] are not consumed yet;
 	 * in[0] is byte inoff of the file. */
@@ -62,6 +63,9 @@ int	gzsrc_open(struct gzsrc *s, const char *path);
  */
 ssize_t	gzsrc_read(struct gzsrc *s, void *buf, size_t n);
 void	gzsrc_close(struct gzsrc *s);
+
+/* Whether S has been read as plain text (no gzip member seen). */
+int	gzsrc_plain(const struct gzsrc *s);
 
 /*
  * Memory sources, for the fuzz harnesses and tests.  gzsrc_open_mem()

@@ -37,6 +37,8 @@ start=${DEMO_START:-2026-01-12}
 seed=${DEMO_SEED:-1}
 dir=${DEMO_DIR:-demo}
 [ -n "$dir" ] || { echo "demo: DEMO_DIR is empty" >&2; exit 2; }
+# A relative folder named like a=b would be an assignment to awk.
+case $dir in /*) ;; *) dir=./$dir ;; esac
 in=$dir/in
 out=$dir/out
 
@@ -227,28 +229,31 @@ rainflow_groups "$out/cw-rainflow.csv" "$in/fleet.csv" "$out/cw-wear.csv" \
     >"$out/rainflow-groups.csv"
 
 # The packs whose resistance grows fastest, for the DCIR plot; in a run
-# too short for any trend, the packs with the most steps.
-top4() {
-	sort -rn | head -n 4 |
-	    awk '{ printf "%s%s", (NR > 1 ? " " : ""), $2 }'
-}
-fast=$(awk -F, 'NR > 1 && $8 != "" { print $8, $1 }' \
-    "$out/cw-dcir-trend.csv" | top4)
-[ -n "$fast" ] || fast=$(awk -F, 'NR > 1 { print $2, $1 }' \
-    "$out/cw-dcir-trend.csv" | top4)
+# too short for any trend, the packs with the most steps.  The names go to
+# gnuplot as a data file, one a line, never as code.
+tab=$(printf '\t')
+top4() { sort -t "$tab" -k1,1rn | head -n 4 | cut -f 2; }
+awk -F, 'NR > 1 && $8 != "" { print $8 "\t" $1 }' "$out/cw-dcir-trend.csv" |
+    top4 >"$out/dcir-packs.txt"
+[ -s "$out/dcir-packs.txt" ] ||
+	awk -F, 'NR > 1 { print $2 "\t" $1 }' "$out/cw-dcir-trend.csv" |
+	    top4 >"$out/dcir-packs.txt"
 
+# gq S: S as the body of a gnuplot single-quoted string ('' is a quote).
+gq() { printf '%s' "$1" | sed "s/'/''/g"; }
+o=$(gq "$out")
 say "gnuplot: $out/*.png"
-job gnuplot -e "in='$out/cw-wear.csv'; out='$out/fade.png'" \
+job gnuplot -e "in='$o/cw-wear.csv'; out='$o/fade.png'" \
     scripts/plot-fade.gp
-job gnuplot -e "steps='$out/cw-dcir.csv'; trend='$out/cw-dcir-trend.csv'; \
-    packs='$fast'; out='$out/dcir.png'" scripts/plot-dcir.gp
-job gnuplot -e "in='$out/cw-wear-measured.csv'; out='$out/measured.png'" \
+job gnuplot -e "steps='$o/cw-dcir.csv'; trend='$o/cw-dcir-trend.csv'; \
+    packsfile='$o/dcir-packs.txt'; out='$o/dcir.png'" scripts/plot-dcir.gp
+job gnuplot -e "in='$o/cw-wear-measured.csv'; out='$o/measured.png'" \
     scripts/plot-measured.gp
-job gnuplot -e "in='$out/rainflow-groups.csv'; out='$out/rainflow.png'" \
+job gnuplot -e "in='$o/rainflow-groups.csv'; out='$o/rainflow.png'" \
     scripts/plot-rainflow.gp
-job gnuplot -e "in='$out/charging-temp.csv'; out='$out/charge-temp.png'" \
+job gnuplot -e "in='$o/charging-temp.csv'; out='$o/charge-temp.png'" \
     scripts/plot-charge-temp.gp
-job gnuplot -e "in='$out/dwell-idle-dock.csv'; out='$out/dwell.png'; \
+job gnuplot -e "in='$o/dwell-idle-dock.csv'; out='$o/dwell.png'; \
     title='Idle-dock packs: hours per pack and day by SoC and temperature'" \
     scripts/plot-dwell.gp
 waitall || die "gnuplot failed"

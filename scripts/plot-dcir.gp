@@ -5,14 +5,16 @@
 #
 #   cw-dcir -o steps.csv log.csv; cw-dcir -t -o trend.csv log.csv
 #   gnuplot -e "steps='steps.csv'; trend='trend.csv'; \
-#       packs='EB-0014 EB-0004'; out='dcir.png'" scripts/plot-dcir.gp
+#       packsfile='packs.txt'; out='dcir.png'" scripts/plot-dcir.gp
 #
-# PACKS is a space-separated list of devices (up to 8), one panel each, two
-# panels a row; the packs with the
-# fastest growth are found with
+# PACKSFILE names the devices (up to 8), one a line, as they are (any
+# byte but a tab or a line end): one panel each, two panels a row.  For
+# names typed by hand, packs='EB-0014 EB-0004' (space-separated) does
+# too; never paste data into a -e string, which gnuplot runs as code.
+# The packs with the fastest growth are found with
 #
-#   awk -F, 'NR > 1 && $8 != "" { print $8, $1 }' trend.csv | sort -rn |
-#       head -n 4
+#   awk -F, 'NR > 1 && $8 != "" { print $8 "\t" $1 }' trend.csv |
+#       sort -t "$(printf '\t')" -k1,1rn | head -n 4 | cut -f 2 >packs.txt
 #
 # The trend line runs from r_start_ohm at the first step to r_end_ohm at
 # the last, as cw-dcir -t reports them.  Optional: title='...', width=,
@@ -24,8 +26,24 @@ if (!exists("packs")) packs = ''
 if (!exists("width")) width = 1200
 if (!exists("title")) title = 'DC resistance at 25 °C per current step, ' . \
     'with Theil-Sen trend (cw-dcir)'
-if (words(packs) == 0) {
-	print "plot-dcir.gp: give packs='DEVICE ...'"
+# The device names, read as data: from PACKSFILE, else the words of PACKS.
+array names[8]
+np = 0
+if (exists("packsfile")) {
+	set datafile separator "\t"
+	set datafile nocolumnheaders
+	set table $discard
+	plot packsfile using (np < 8 && strlen(strcol(1)) > 0 ? \
+	    (np = np + 1, names[np] = strcol(1), 0) : 0):(0) with table
+	unset table
+} else {
+	do for [k = 1:(words(packs) < 8 ? words(packs) : 8)] {
+		np = np + 1
+		names[np] = word(packs, k)
+	}
+}
+if (np == 0) {
+	print "plot-dcir.gp: give packsfile='FILE' (a device a line) or packs='DEVICE ...'"
 	exit status 2
 }
 
@@ -39,7 +57,6 @@ steps_s = "3600 7200 10800 21600 43200 86400 172800 604800 1209600 2419200"
 # Points half transparent (gnuplot's #AARRGGBB, AA the transparency).
 dim(c) = "#a0" . c[2:7]
 
-np = words(packs)
 cols = np < 2 ? 1 : 2
 rows = (np + cols - 1) / cols
 if (!exists("height")) height = 300 * rows + 120
@@ -54,8 +71,12 @@ set xlabel "date (UTC)"
 set ylabel "resistance at 25 °C (mΩ)"
 
 # A steps file without data rows (no step passed the gates) gives one
-# empty panel that says so; stats fails on such a file, so awk counts.
-if (int(system(sprintf("awk 'END { print NR }' < '%s'", steps))) < 2) {
+# empty panel that says so; stats fails on such a file, so the rows are
+# counted into a table (gnuplot warns of a file with no valid points).
+set table $rows
+plot steps using (1):(1) with table
+unset table
+if (|$rows| < 1) {
 	set title sprintf("%s: no accepted steps", steps)
 	set xrange [0:1]
 	set yrange [0:1]
@@ -72,7 +93,7 @@ set format x "%d %b"
 
 set multiplot layout rows, cols title title font "sans,13"
 do for [i = 1:np] {
-	p = word(packs, i)
+	p = names[i]
 	c = word(pal, i)
 	# The pack's trend, its steps' spread and span (stats works on
 	# plain numbers only, within the axis ranges in force).

@@ -53,7 +53,7 @@ def put(name, lines):
 night = blocks(section("Running it every night"))
 script = [b for b in night if b[0] == "#!/bin/sh"]
 cron = [b for b in night if any("flock" in l for l in b)]
-log = [b for b in night if b[0].startswith("nightly: ")]
+log = [b for b in night if any(l.startswith("nightly: ") for l in b)]
 assert len(script) == 1 and len(cron) == 1 and len(log) == 1
 put("nightly.sh", script[0])
 line = [l for l in cron[0] if "flock" in l][0]
@@ -115,7 +115,7 @@ night() {	# night DAY: the crontab command, with DAY given
 	echo "rc $?" >>"$tmp/rcs"
 	set -e
 }
-for d in 2026-01-12 2026-01-13 2026-01-14 2026-01-13 2026-01-15; do
+for d in 2026-01-12 2026-01-13 2026-01-14 2026-01-14 2026-01-15; do
 	night $d
 done
 flock "$home/.lock" sleep 3 &

@@ -4,7 +4,7 @@
 # source: spec
 f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
-cw-wear --state "$d/good.state" "$f" >/dev/null
+cw-wear --state "$d/good.state" "$f" 2>&1 >/dev/null | sed "s|$d/||" >&2
 cp "$d/good.state" "$d/copy.state"
 # Run cw-wear, show its messages without the scratch folder, its status.
 try() {

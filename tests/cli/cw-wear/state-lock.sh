@@ -13,9 +13,9 @@ for k in 2 3 4; do
 done
 # The three nights one after the other, for comparison.
 for k in 2 3 4; do
-	cw-wear --state "$d/seq.state" "$d/d$k.csv" >/dev/null || echo "seq $k"
+	cw-wear --state "$d/seq.state" "$d/d$k.csv" >/dev/null 2>&1 || echo "seq $k"
 done
-cw-wear --state "$d/s.state" "$d/d2.csv" >/dev/null
+cw-wear --state "$d/s.state" "$d/d2.csv" >/dev/null 2>/dev/null
 cp "$d/s.state" "$d/night2.state"
 mkfifo "$d/fifo"
 cw-wear --state "$d/s.state" "$d/fifo" >/dev/null 2>"$d/a.err" &

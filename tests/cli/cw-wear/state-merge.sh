@@ -29,7 +29,7 @@ awk -F, 'NR == 1 || $1 !~ /^(CART|EB)/' "$f" | cw-wear --state-out \
 cw-wear --merge "$d/a.state" "$d/b.state" | cmp - "$d/one.csv" &&
     echo "disjoint devices = one pass"
 # States merged into a --state file, a day at a time.
-cw-wear --merge --state "$d/fleet.state" "$d/day1.state" >/dev/null
+cw-wear --merge --state "$d/fleet.state" "$d/day1.state" 2>&1 >/dev/null | sed "s|$d/||" >&2
 cw-wear --merge --state "$d/fleet.state" "$d/day2.state" |
     cmp - "$d/one.csv" && echo "merged into --state = one pass"
 # Options that only shape the report apply at the merge.
@@ -65,7 +65,7 @@ echo "rc $?"
 sed "s|$d/||" "$d/err" | head -n 2
 tail -n 1 "$d/err"
 cw-wear "$d/early.csv" "$d/late.csv" >"$d/onepass.csv" 2>/dev/null
-cw-wear --state "$d/s.state" "$d/early.csv" >/dev/null
+cw-wear --state "$d/s.state" "$d/early.csv" 2>&1 >/dev/null | sed "s|$d/||" >&2
 cw-wear --state "$d/s.state" "$d/late.csv" 2>"$d/err" |
     cmp - "$d/onepass.csv" && echo "--state = one pass over the rows"
 sed "s|$d/||" "$d/err"

@@ -8,7 +8,7 @@ f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
 awk -F, 'NR == 1 || $2 < "2026-03-03"' "$f" >"$d/day1.csv"
 awk -F, 'NR == 1 || $2 >= "2026-03-03"' "$f" >"$d/day2.csv"
-cw-wear --state "$d/fleet.state" "$d/day1.csv" >"$d/report1.csv"
+cw-wear --state "$d/fleet.state" "$d/day1.csv" 2>&1 >"$d/report1.csv" | sed "s|$d/||" >&2
 echo "rc $?"
 cw-wear --state "$d/fleet.state" "$d/day2.csv" >"$d/report2.csv"
 echo "rc $?"

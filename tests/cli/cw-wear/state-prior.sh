@@ -13,7 +13,7 @@ d=$TMPDIR_CASE
 awk -F, 'NR == 1 || $2 < "2026-03-03"' "$f" >"$d/day1.csv"
 awk -F, 'NR == 1 || $2 >= "2026-03-03"' "$f" >"$d/day2.csv"
 cw-wear --fleet "$r" "$f" | cut -d, -f1-24 >"$d/one.csv"
-cw-wear --fleet "$r" --state "$d/s" "$d/day1.csv" >/dev/null
+cw-wear --fleet "$r" --state "$d/s" "$d/day1.csv" 2>&1 >/dev/null | sed "s|$d/||" >&2
 echo "rc $?"
 cw-wear --state "$d/s" "$d/day2.csv" | cut -d, -f1-24 >"$d/nightly.csv"
 echo "rc $?"

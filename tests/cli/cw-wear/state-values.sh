@@ -7,7 +7,7 @@
 # source: spec
 f=testdata/wear-fleet.csv
 d=$TMPDIR_CASE
-cw-wear --state "$d/good.state" "$f" >/dev/null
+cw-wear --state "$d/good.state" "$f" >/dev/null 2>/dev/null
 # edit COLUMN VALUE [COLUMN VALUE ...]: good.state, row 2 edited, re-signed.
 edit() {
 	/usr/bin/python3 - "$d/good.state" "$@" <<'PY' >"$d/bad.state"
