@@ -118,6 +118,8 @@ struct scandev {
 	double soc, v;
 	cw_time t;
 	int have;
+	double vref;		/* voltage since which the change counts */
+	int iref;		/* the sign of the current since then */
 };
 #define SCAN_STOP	1000	/* a callback's "enough", not an error */
 
@@ -1072,14 +1074,28 @@ scan_row(void *ctx, const struct csvin_rec *rec)
 		namelen = rec->len[k];
 	}
 	d = devtab_get(r->scan_devs, name, namelen, NULL);
+	/*
+	 * The voltage's change counts from a reference that stays while the
+	 * current keeps its sign, so that a slow rise of 1 mV a row adds up
+	 * to the 5 mV that decide (the slack: 3.605 - 3.600 is less than
+	 * 0.005 in binary).
+	 */
+	if (r->scan_by_v && (!d->have || t <= d->t ||
+	    t - d->t > r->c->max_gap || fabs(i) < 0.05 ||
+	    (i > 0) != (d->iref > 0))) {
+		d->vref = d->have && t > d->t && t - d->t <= r->c->max_gap &&
+		    fabs(i) >= 0.05 ? d->v : v;
+		d->iref = i > 0 ? 1 : -1;
+	}
 	if (d->have && t > d->t && t - d->t <= r->c->max_gap &&
 	    fabs(i) >= 0.05) {
-		dx = r->scan_by_v ? v - d->v : soc - d->soc;
-		if (fabs(dx) >= (r->scan_by_v ? 0.005 : 1e-9)) {
+		dx = r->scan_by_v ? v - d->vref : soc - d->soc;
+		if (fabs(dx) >= (r->scan_by_v ? 0.005 - 1e-9 : 1e-9)) {
 			if ((dx > 0) == (i > 0))
 				r->agree++;
 			else
 				r->disagree++;
+			d->vref = v;
 		}
 	}
 	d->have = 1;
@@ -1119,8 +1135,13 @@ scan_signs(const struct clean_conf *c, char **files, int n, unsigned req)
 	signed char *sg;
 	int k, rc, neg, decided;
 
-	if (n == 0)
+	if (n == 0) {
+		if (c->charge_sign == CLEAN_SIGN_AUTO)
+			cw_warn("standard input: not a regular file, so the "
+			    "charge sign cannot be decided ahead: taken as "
+			    "positive (name the file, or give --charge-sign)");
 		return NULL;
+	}
 	sg = cw_calloc((size_t)n, 1);
 	for (k = 0; k < n; k++) {
 		struct run r;
@@ -1135,12 +1156,19 @@ scan_signs(const struct clean_conf *c, char **files, int n, unsigned req)
 		 * (standard input, <(zcat ...)) read ahead would lose its
 		 * rows to the main pass.
 		 */
-		if (strcmp(files[k], "-") == 0 || stat(files[k], &sb) != 0 ||
-		    !S_ISREG(sb.st_mode)) {
-			if (cw_verbose && c->charge_sign == CLEAN_SIGN_AUTO)
-				cw_warn("%s: not a regular file, not read "
-				    "ahead; charge sign taken as positive",
-				    files[k]);
+		if (strcmp(files[k], "-") != 0 && stat(files[k], &sb) != 0)
+			continue;	/* the main pass tells why */
+		if (strcmp(files[k], "-") == 0 || !S_ISREG(sb.st_mode)) {
+			/*
+			 * Said without -v: a log that counts charging
+			 * negative would go through with every sign wrong.
+			 */
+			if (c->charge_sign == CLEAN_SIGN_AUTO)
+				cw_warn("%s: not a regular file, so the charge "
+				    "sign cannot be decided ahead: taken as "
+				    "positive (name the file, or give "
+				    "--charge-sign)", strcmp(files[k], "-") ==
+				    0 ? "standard input" : files[k]);
 			continue;
 		}
 		memset(&r, 0, sizeof(r));
@@ -1171,7 +1199,16 @@ scan_signs(const struct clean_conf *c, char **files, int n, unsigned req)
 				    "(%lu rows' current against the change of "
 				    "%s, %lu with it): turned", files[k], d, why,
 				    a);
-			} else if (cw_verbose)
+			} else if (!decided && d >= CLEAN_SIGN_HINT &&
+			    d >= CLEAN_SIGN_RATIO * a)
+				/* Too few rows to turn, but they lean so. */
+				cw_warn("%s: charge sign undecided, taken as "
+				    "positive, though %lu rows' current went "
+				    "against the change of %s and %lu with it "
+				    "(fewer than %d to decide): check it, or "
+				    "give --charge-sign", files[k], d, why, a,
+				    CLEAN_SIGN_MIN);
+			else if (cw_verbose)
 				cw_warn("%s: charge sign %s (%lu rows' current "
 				    "with the change of %s, %lu against)",
 				    files[k], decided ? "positive" :

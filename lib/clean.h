@@ -40,6 +40,9 @@ enum {
 #define CLEAN_SIGN_ENOUGH	2000	/* evidence rows: stop reading ahead */
 #define CLEAN_SIGN_MIN		20
 #define CLEAN_SIGN_RATIO	4
+/* Fewer than CLEAN_SIGN_MIN, but at least this many against and none
+ * or few with: not turned, but warned about (our choice, no source). */
+#define CLEAN_SIGN_HINT		5
 
 /*
  * Unit plausibility: the first CLEAN_UNIT_ROWS values of voltage, current
