@@ -5,7 +5,7 @@
  * Two configuration bytes pick the delimiter, decimal mark, sign, device
  * source, reorder window, resampling step, gap limit, coulomb counting,
  * time zone and column spec; the rest is the raw log, written to a
- * temporary file.  Oracles, from SPEC.md (cw-clean):
+ * temporary file.  Oracles, from cw-clean(1):
  * - data lines in = rows accepted + rows rejected, and each reason's
  *   count adds up to the rejected rows;
  * - the rejects file holds exactly one record per rejected row;

@@ -5,7 +5,7 @@
  *
  * Configuration: minimum step, pair spacing, steadiness, SoC window or
  * unknown SoC allowed, activation energy, points kept, trend gates.
- * Oracles, from the rules in dcir.h and SPEC.md (cw-dcir):
+ * Oracles, from the rules in dcir.h and cw-dcir(1):
  * - an accepted step has |delta I| >= min_step, 0 < dt <= max_dt,
  *   R = delta V / delta I > 0, SoC and temperature inside the windows,
  *   and r_ref = the Arrhenius formula of R (recomputed here);

@@ -4,7 +4,7 @@
  *
  * Configuration: the limits (defaults, all equal, or tight), hysteresis,
  * minimum current, minimum duration, merge time and gap limit.  Oracles,
- * from the rules in thermal.h and SPEC.md (cw-thermal):
+ * from the rules in thermal.h and cw-thermal(1):
  * - a charge event's zone is not the normal window; a use event's zone
  *   is below-min or above-max; the kind is charge or use;
  * - no event is shorter than the minimum duration, and start <= end;

@@ -4,7 +4,7 @@
  *
  * Configuration: the band (SoC percent, full voltage or none), minimum
  * depth, minimum current and gap limit.  Oracles, from the rules in
- * topoff.h and SPEC.md (cw-topoff):
+ * topoff.h and cw-topoff(1):
  * - a hold has start <= end, at least one row, carried rows among them,
  *   a known signal, as many micro-cycles as were emitted for it, a
  *   deepest cycle no shallower than the minimum depth (up to rounding)

@@ -4,14 +4,14 @@
  * streams, and its report.
  *
  * Configuration: cycle and calendar life, hysteresis, residue mode,
- * minimum current, gap limit, capacity.  Oracles, from SPEC.md (cw-wear)
+ * minimum current, gap limit, capacity.  Oracles, from cw-wear(1)
  * and the meaning of each column:
  * - amounts that cannot be negative are not: days, charge, efc, depth,
  *   hours, cold and hot charge, top-off cycles, fade, damage;
  * - cold and hot charge are parts of all charge; the depth is at most
  *   100 %, fade at most 100 %; hours at high SoC or temperature fit in
  *   the span the device covers;
- * - dominant is one of the words SPEC.md allows, or empty;
+ * - dominant is one of the words cw-wear(1) allows, or empty;
  * - for tame input (every number |x| < 1e6) every reported number is
  *   finite or missing (NaN), never infinite;
  * - the shares add up to 1;
@@ -121,7 +121,7 @@ finish(void *ctx, void *dp)
 
 		for (k = 0; k < sizeof(v) / sizeof(v[0]); k++)
 			FZ_CHECK(!isinf(v[k]));
-		/* The shares add up to 1 (SPEC.md). */
+		/* The shares add up to 1 (cw-wear(1)). */
 		if (cw_isnum(x.share_age) && isfinite(x.damage))
 			FZ_CHECK(fabs(x.share_age + x.share_cycling +
 			    x.share_high_soc + x.share_heat - 1) <= 1e-9 *
