@@ -223,8 +223,12 @@ judge(const struct cap_conf *c, struct cap_dev *d, enum cap_reason end,
 	out->charge_ah = q;
 	if (!d->has_a || fabs(ds) < c->min_swing)
 		out->reason = end;
-	else if (!(ds * d->dir > 0 && q * d->dir > 0))
-		/* A charge that overflowed to NaN is no estimate either. */
+	else if (!(ds * d->dir > 0 && q * d->dir > 0) || !isfinite(q) ||
+	    !isfinite(d->a.dq) || !isfinite(d->b.dq))
+		/*
+		 * A charge that overflowed (to infinity or NaN), or whose
+		 * steps cannot be bounded, is no estimate either.
+		 */
 		out->reason = CAP_SIGN;
 	else {
 		out->reason = CAP_OK;
