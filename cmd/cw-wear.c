@@ -738,9 +738,9 @@ fit_run(struct run *r, struct dev **devs, size_t n, struct csvout *w)
 		m++;
 	}
 	if (meas_fit_scales(&r->conf, o, m, &f) != 0)
-		cw_die(CW_EXIT_DATA, "--fit-scales: %zu packs with both a "
+		cw_die(CW_EXIT_DATA, "--fit-scales: %zu pack%s with both a "
 		    "measured and a modelled fade; the fit needs 2 at least",
-		    m);
+		    m, m == 1 ? "" : "s");
 	if (f.common)
 		cw_warn("--fit-scales: the packs do not tell cycling from "
 		    "calendar aging apart (their modelled fades grow alike "
