@@ -1233,6 +1233,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	struct run r;
 	struct csvin *in;
 	size_t i;
+	cw_time newest;
 	int rc, k;
 
 	memset(st, 0, sizeof(*st));
@@ -1273,15 +1274,21 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	st->unended = csvin_stats(in)->unended;
 	st->held = csvin_stats(in)->held;
 	csvin_free(in);
-	/* What is still in the windows leaves now, device by device. */
+	/*
+	 * What is still in the windows leaves now, device by device.  A
+	 * held row with no row after it is judged against the newest row
+	 * accepted before this loop: one that the loop itself accepts must
+	 * not move the mark, or the verdict would hang on the devices'
+	 * order in the table (a file of one row per device, weeks apart,
+	 * lost all but the first).
+	 */
+	newest = r.newest;
 	for (i = 0; i < devtab_count(r.devs); i++) {
 		struct cdev *d = devtab_at(r.devs, i);
 
-		/* A held row with no row after it: far past the run, future. */
 		if (d->held)
-			unhold(&r, d, r.newest != INT64_MIN &&
-			    d->hp.t > r.newest && d->hp.t - r.newest >
-			    c->max_jump);
+			unhold(&r, d, newest != INT64_MIN && d->hp.t > newest &&
+			    d->hp.t - newest > c->max_jump);
 		drain(&r, d, INT64_MAX);
 		if (c->step > 0) {
 			r.cur = d;
