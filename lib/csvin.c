@@ -13,6 +13,9 @@
  */
 #include <stdlib.h>
 #include <string.h>
+#ifdef __SSE2__
+#include <emmintrin.h>
+#endif
 
 #include <csv.h>
 
@@ -21,6 +24,7 @@
 
 #define CSVIN_MAXREC (64u * 1024 * 1024)	/* longest record accepted */
 #define CSVIN_MEMCHUNK 4096	/* read size from a memory source */
+#define CSVIN_NDPOS 64		/* delimiters a line's scan keeps */
 
 struct csvin {
 	char delim;
@@ -38,6 +42,13 @@ struct csvin {
 	char **f;
 	size_t fcap, nf;
 	int failed;		/* libcsv reported an error in this record */
+	/*
+	 * The delimiters of the line scan_line() found last, as offsets
+	 * from its start: ndpos of them, or -1 when they were not kept
+	 * (more than CSVIN_NDPOS, or a delimiter a line scan cannot see).
+	 */
+	int ndpos;
+	unsigned dpos[CSVIN_NDPOS];
 	int growing;		/* csvin_set_growing(): hold a cut last line */
 	/* Per file. */
 	const char *src;
@@ -50,8 +61,12 @@ struct csvin {
 
 static void field_cb(void *, size_t, void *);
 static void row_cb(int, void *);
-static int record(struct csvin *, const char *, size_t, unsigned long, int);
+static int record(struct csvin *, const char *, size_t, unsigned long, int,
+    int);
 static void split_plain(struct csvin *, const char *, size_t);
+static void split_known(struct csvin *, const char *, size_t);
+static const char *scan_line(struct csvin *, const char *, const char *,
+    int *);
 static char guess_delim(const char *, size_t);
 static int read_src(struct csvin *, struct gzsrc *);
 static int term_fn(unsigned char);
@@ -237,12 +252,123 @@ split_plain(struct csvin *r, const char *rec, size_t n)
 }
 
 /*
+ * As split_plain(), with the delimiters scan_line() found in the line REC
+ * starts: one pass over the record's bytes (the copy) instead of one a
+ * field.  The positions are all before N: a trailing CR cut off the line
+ * is not a delimiter (scan_line() keeps none for a CR delimiter).
+ */
+static void
+split_known(struct csvin *r, const char *rec, size_t n)
+{
+	char *a, *b;
+	size_t k, start;
+
+	if (n + 1 > r->acap) {
+		while (n + 1 > r->acap)
+			r->acap *= 2;
+		r->arena = cw_realloc(r->arena, r->acap);
+	}
+	memcpy(r->arena, rec, n);
+	r->arena[n] = '\0';
+	r->alen = n + 1;
+	while (r->fcap < (size_t)r->ndpos + 1) {
+		r->fcap *= 2;
+		r->off = cw_realloc(r->off, r->fcap * sizeof(*r->off));
+		r->flen = cw_realloc(r->flen, r->fcap * sizeof(*r->flen));
+		r->f = cw_realloc(r->f, r->fcap * sizeof(*r->f));
+	}
+	start = 0;
+	for (k = 0; k <= (size_t)r->ndpos; k++) {
+		a = r->arena + start;
+		b = r->arena + (k < (size_t)r->ndpos ? r->dpos[k] : n);
+		start = (size_t)(b - r->arena) + 1;
+		while (a < b && (*a == ' ' || (*a == '\t' && r->delim != '\t')))
+			a++;
+		while (b > a && (b[-1] == ' ' || (b[-1] == '\t' &&
+		    r->delim != '\t')))
+			b--;
+		*b = '\0';
+		r->off[k] = (size_t)(a - r->arena);
+		r->flen[k] = (size_t)(b - a);
+	}
+	r->nf = (size_t)r->ndpos + 1;
+}
+
+/*
+ * The line from S: the first '\n' in [S, E), or NULL; *QUOTED whether a
+ * quote comes before it (or before E).  The delimiters before the line
+ * end go to r->dpos (r->ndpos, -1 when not kept), for split_known().
+ * With SSE2, 16 bytes are compared at a time with all three bytes, which
+ * replaces a search for each of them (and one for each delimiter) on the
+ * short lines of a gauge log.
+ */
+static const char *
+scan_line(struct csvin *r, const char *s, const char *e, int *quoted)
+{
+	const char *p = s, *nl = NULL;
+	char delim = r->delim;
+	int nd = 0, keep = delim != '\n' && delim != '"' && delim != '\r';
+
+	*quoted = 0;
+#ifdef __SSE2__
+	{
+		const __m128i vn = _mm_set1_epi8('\n'), vq = _mm_set1_epi8('"'),
+		    vd = _mm_set1_epi8(delim);
+
+		while (e - p >= 16) {
+			__m128i v = _mm_loadu_si128((const __m128i *)(const
+			    void *)p);
+			unsigned mn = (unsigned)_mm_movemask_epi8(
+			    _mm_cmpeq_epi8(v, vn));
+			unsigned mq = (unsigned)_mm_movemask_epi8(
+			    _mm_cmpeq_epi8(v, vq));
+			unsigned md = (unsigned)_mm_movemask_epi8(
+			    _mm_cmpeq_epi8(v, vd));
+			/* The bits before the line end, if it is here. */
+			unsigned lim = mn != 0 ? (mn & -mn) - 1 : 0xffffu;
+
+			if ((mq & lim) != 0)
+				*quoted = 1;
+			for (md &= lim; md != 0; md &= md - 1) {
+				if (nd < CSVIN_NDPOS)
+					r->dpos[nd] = (unsigned)(p - s) +
+					    (unsigned)__builtin_ctz(md);
+				nd++;
+			}
+			if (mn != 0) {
+				nl = p + __builtin_ctz(mn);
+				goto done;
+			}
+			p += 16;
+		}
+	}
+#endif
+	for (; p < e; p++) {
+		if (*p == '\n') {
+			nl = p;
+			goto done;
+		}
+		if (*p == '"')
+			*quoted = 1;
+		else if (*p == delim) {
+			if (nd < CSVIN_NDPOS)
+				r->dpos[nd] = (unsigned)(p - s);
+			nd++;
+		}
+	}
+done:
+	r->ndpos = keep && nd <= CSVIN_NDPOS ? nd : -1;
+	return nl;
+}
+
+/*
  * Handle one record REC[0..N) that starts on LINE: blank, header, repeated
- * header, bad, or data.
+ * header, bad, or data.  KNOWN: r->dpos holds its delimiters
+ * (scan_line()).
  */
 static int
 record(struct csvin *r, const char *rec, size_t n, unsigned long line,
-    int quoted)
+    int quoted, int known)
 {
 	struct csvin_rec cr;
 	size_t i, done;
@@ -250,6 +376,7 @@ record(struct csvin *r, const char *rec, size_t n, unsigned long line,
 	if (n >= 3 && memcmp(rec, "\xEF\xBB\xBF", 3) == 0) {
 		rec += 3;
 		n -= 3;
+		known = 0;	/* the offsets are from the line's start */
 	}
 	r->st.records++;
 	cr.src = r->src;
@@ -270,11 +397,14 @@ record(struct csvin *r, const char *rec, size_t n, unsigned long line,
 	if (r->need_header && r->auto_delim) {
 		r->delim = guess_delim(rec, n);
 		csv_set_delim(&r->p, (unsigned char)r->delim);
+		known = 0;	/* found with the delimiter before */
 	}
 	r->nf = 0;
 	r->alen = 0;
 	r->failed = 0;
-	if (!quoted)
+	if (!quoted && known && r->ndpos >= 0)
+		split_known(r, rec, n);
+	else if (!quoted)
 		split_plain(r, rec, n);
 	else {
 		done = csv_parse(&r->p, rec, n, field_cb, row_cb, r);
@@ -477,11 +607,9 @@ read_src(struct csvin *r, struct gzsrc *src)
 			size_t n;
 			int q, quoted;
 
-			nlp = memchr(s, '\n', (size_t)(e - s));
+			nlp = scan_line(r, s, e, &quoted);
 			extra = 0;
 			end = nlp;
-			quoted = memchr(s, '"', (size_t)((nlp ? nlp : e) - s)) !=
-			    NULL;
 			if (quoted)
 				q = scan_quoted(r, s, e, eof, &end, &extra);
 			else
@@ -508,7 +636,8 @@ read_src(struct csvin *r, struct gzsrc *src)
 					rc = r->ops->bad(r->ctx, &cr,
 					    "unterminated quote");
 			} else
-				rc = record(r, s, n, r->line, quoted);
+				rc = record(r, s, n, r->line, quoted,
+				    nlp != NULL && end == nlp);
 			r->line += 1 + extra;
 			s = end < e ? end + 1 : e;
 		}
