@@ -35,6 +35,43 @@ num_parse(const char *s, size_t n, char dec, double *out)
 		return NUM_EMPTY;
 	if (*p == '+' || *p == '-')
 		neg = *p++ == '-';
+	/*
+	 * The shape gauges write: at most 19 characters of digits and one
+	 * decimal mark, no exponent.  All digits fit the mantissa, so it is
+	 * what the loops below would find (leading zeros add nothing to it),
+	 * the exponent is minus the count of fraction digits, and the same
+	 * exact conversion applies; any other text takes the loops.
+	 */
+	if (e - p <= 19) {
+		const char *q = p;
+		uint64_t m = 0;
+		int nfrac = 0, nint;
+
+		for (; q < e && (unsigned)(*q - '0') < 10; q++)
+			m = m * 10 + (uint64_t)(*q - '0');
+		nint = (int)(q - p);
+		if (q < e && (*q == dec || (dec == '\0' && (*q == '.' ||
+		    *q == ',')))) {
+			for (q++; q < e && (unsigned)(*q - '0') < 10; q++) {
+				m = m * 10 + (uint64_t)(*q - '0');
+				nfrac++;
+			}
+		}
+		if (q == e && nint + nfrac > 0) {
+			if (m == 0) {
+				*out = neg ? -0.0 : 0.0;
+				return NUM_OK;
+			}
+			if (m <= (UINT64_C(1) << 53)) {
+				double d = (double)m;
+
+				if (nfrac > 0)
+					d /= pow10tab[nfrac];
+				*out = neg ? -d : d;
+				return NUM_OK;
+			}
+		}
+	}
 	for (; p < e && (unsigned)(*p - '0') < 10; p++) {
 		any = 1;
 		if (sig == 0 && *p == '0')

@@ -157,6 +157,7 @@ int
 ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out)
 {
 	double x, scale;
+	int64_t mul, lim;
 
 	while (n > 0 && (*s == ' ' || *s == '\t'))
 		s++, n--;
@@ -170,12 +171,18 @@ ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out)
 	switch (kind) {
 	case TS_EPOCH_MS:
 		scale = 1e3;
+		mul = 1000;
+		lim = INT64_MAX / 1000 / 2;
 		break;
 	case TS_EPOCH_US:
 		scale = 1.0;
+		mul = 1;
+		lim = INT64_MAX / 1 / 2;
 		break;
 	default:
 		scale = 1e6;
+		mul = 1000000;
+		lim = INT64_MAX / 1000000 / 2;
 		break;
 	}
 	/* Whole numbers are converted exactly; fractions through double. */
@@ -187,7 +194,12 @@ ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out)
 
 		if (*p == '-' || *p == '+')
 			neg = *p++ == '-';
-		for (i = (size_t)(p - s); i < n; i++) {
+		i = (size_t)(p - s);
+		/* Up to 18 digits cannot overflow: no check for each. */
+		if (n - i <= 18)
+			for (; i < n && (unsigned)(s[i] - '0') <= 9; i++)
+				v = v * 10 + (s[i] - '0');
+		for (; i < n; i++) {
 			if ((unsigned)(s[i] - '0') > 9)
 				break;
 			if (v > (INT64_MAX - 9) / 10)
@@ -195,9 +207,7 @@ ts_parse(const char *s, size_t n, int kind, long offset_s, cw_time *out)
 			v = v * 10 + (s[i] - '0');
 		}
 		if (i == n && i > (size_t)(p - s)) {
-			int64_t mul = (int64_t)scale;
-
-			if (v > INT64_MAX / mul / 2)
+			if (v > lim)
 				return -1;
 			*out = (neg ? -v : v) * mul;
 			return 0;
