@@ -1,14 +1,16 @@
 /*
  * csvin.c: the CSV reader.
  *
- * Input arrives in GZSRC_BUFSZ chunks.  Records are found with memchr() on
- * '\n'; only a line that holds a quote is scanned byte by byte, to see if
+ * Input arrives in GZSRC_BUFSZ chunks.  Each line is found by one pass
+ * (scan_line(): 16 bytes at a time with SSE2) that also notes its quotes
+ * and delimiters; only a line that holds a quote is scanned byte by byte
+ * again, to see if
  * a quoted field carries the record over the line end.  A record with a
  * quote is parsed by libcsv in strict mode and finished with csv_fini(),
  * so a broken record never spills into the next one.  A record without one
  * has nothing for a CSV state machine to do: it is cut at its delimiters
- * (split_plain), which gives the same fields libcsv would, at a fraction
- * of the cost.  Fields go to one arena that is
+ * (split_plain, at the delimiters the line's pass found), which gives
+ * the same fields libcsv would, at a fraction of the cost.  Fields go to one arena that is
  * reused for every record: no allocation per row once warm.
  */
 #include <stdlib.h>
@@ -63,8 +65,7 @@ static void field_cb(void *, size_t, void *);
 static void row_cb(int, void *);
 static int record(struct csvin *, const char *, size_t, unsigned long, int,
     int);
-static void split_plain(struct csvin *, const char *, size_t);
-static void split_known(struct csvin *, const char *, size_t);
+static void split_plain(struct csvin *, const char *, size_t, int);
 static const char *scan_line(struct csvin *, const char *, const char *,
     int *);
 static char guess_delim(const char *, size_t);
@@ -207,9 +208,13 @@ guess_delim(const char *s, size_t n)
 /*
  * A record without quotes needs no state machine: copy it to the arena and
  * cut it at each delimiter, trimming blanks around fields as libcsv does.
+ * KNOWN: the delimiters are those scan_line() found in the line REC
+ * starts (r->dpos), so no search for each; they are all before N, since
+ * a trailing CR cut off the line is not one (scan_line() keeps none for
+ * a CR delimiter).
  */
 static void
-split_plain(struct csvin *r, const char *rec, size_t n)
+split_plain(struct csvin *r, const char *rec, size_t n, int known)
 {
 	char *p, *e, *q, *a, *b;
 
@@ -224,7 +229,11 @@ split_plain(struct csvin *r, const char *rec, size_t n)
 	p = r->arena;
 	e = r->arena + n;
 	for (;;) {
-		q = memchr(p, r->delim, (size_t)(e - p));
+		if (!known)
+			q = memchr(p, r->delim, (size_t)(e - p));
+		else
+			q = r->nf < (size_t)r->ndpos ? r->arena +
+			    r->dpos[r->nf] : NULL;
 		if (q == NULL)
 			q = e;
 		a = p;
@@ -252,52 +261,9 @@ split_plain(struct csvin *r, const char *rec, size_t n)
 }
 
 /*
- * As split_plain(), with the delimiters scan_line() found in the line REC
- * starts: one pass over the record's bytes (the copy) instead of one a
- * field.  The positions are all before N: a trailing CR cut off the line
- * is not a delimiter (scan_line() keeps none for a CR delimiter).
- */
-static void
-split_known(struct csvin *r, const char *rec, size_t n)
-{
-	char *a, *b;
-	size_t k, start;
-
-	if (n + 1 > r->acap) {
-		while (n + 1 > r->acap)
-			r->acap *= 2;
-		r->arena = cw_realloc(r->arena, r->acap);
-	}
-	memcpy(r->arena, rec, n);
-	r->arena[n] = '\0';
-	r->alen = n + 1;
-	while (r->fcap < (size_t)r->ndpos + 1) {
-		r->fcap *= 2;
-		r->off = cw_realloc(r->off, r->fcap * sizeof(*r->off));
-		r->flen = cw_realloc(r->flen, r->fcap * sizeof(*r->flen));
-		r->f = cw_realloc(r->f, r->fcap * sizeof(*r->f));
-	}
-	start = 0;
-	for (k = 0; k <= (size_t)r->ndpos; k++) {
-		a = r->arena + start;
-		b = r->arena + (k < (size_t)r->ndpos ? r->dpos[k] : n);
-		start = (size_t)(b - r->arena) + 1;
-		while (a < b && (*a == ' ' || (*a == '\t' && r->delim != '\t')))
-			a++;
-		while (b > a && (b[-1] == ' ' || (b[-1] == '\t' &&
-		    r->delim != '\t')))
-			b--;
-		*b = '\0';
-		r->off[k] = (size_t)(a - r->arena);
-		r->flen[k] = (size_t)(b - a);
-	}
-	r->nf = (size_t)r->ndpos + 1;
-}
-
-/*
  * The line from S: the first '\n' in [S, E), or NULL; *QUOTED whether a
  * quote comes before it (or before E).  The delimiters before the line
- * end go to r->dpos (r->ndpos, -1 when not kept), for split_known().
+ * end go to r->dpos (r->ndpos, -1 when not kept), for split_plain().
  * With SSE2, 16 bytes are compared at a time with all three bytes, which
  * replaces a search for each of them (and one for each delimiter) on the
  * short lines of a gauge log.
@@ -402,10 +368,8 @@ record(struct csvin *r, const char *rec, size_t n, unsigned long line,
 	r->nf = 0;
 	r->alen = 0;
 	r->failed = 0;
-	if (!quoted && known && r->ndpos >= 0)
-		split_known(r, rec, n);
-	else if (!quoted)
-		split_plain(r, rec, n);
+	if (!quoted)
+		split_plain(r, rec, n, known && r->ndpos >= 0);
 	else {
 		done = csv_parse(&r->p, rec, n, field_cb, row_cb, r);
 		if (done != n || csv_error(&r->p) != CSV_SUCCESS)
