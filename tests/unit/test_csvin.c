@@ -536,6 +536,59 @@ test_delimiters(void **st)
 	    "R 2 1|x\\ty|3,4 <1\\t\"x\\ty\"\\t3,4>\n");
 }
 
+/*
+ * The one pass that finds a line's end, quotes and delimiters 16 bytes at
+ * a time (scan_line()) must give the fields the byte-wise reading gives:
+ * a plain line with a quoted one after it in the same 16 bytes; blanks
+ * around the fields of a line longer than 16 bytes trimmed; a delimiter
+ * just before a CR line end making an empty last field; a line of more
+ * delimiters than the pass keeps (64), cut the other way.  Hand-written
+ * expectations.
+ */
+static void
+test_line_scan(void **st)
+{
+	char text[1024], want[2048];
+	size_t tn = 0, wn = 0;
+	int i;
+
+	(void)st;
+	expect(',',
+	    "a,b\n"
+	    "1,2\n\"x,y\",3\n"
+	    "  long field one  ,\tsecond field here\t, third ,\r\n",
+	    "H 1 a|b <a,b>\n"
+	    "R 2 1|2 <1,2>\n"
+	    "R 3 x,y|3 <\"x,y\",3>\n"
+	    "R 4 long field one|second field here|third| <  long field one  ,"
+	    "\\tsecond field here\\t, third ,>\n");
+	/* A header of 70 fields h0,...,h69 and a row 0,...,69. */
+	for (i = 0; i < 2; i++) {
+		int k;
+
+		for (k = 0; k < 70; k++)
+			tn += (size_t)snprintf(text + tn, sizeof(text) - tn,
+			    "%s%s%d", k > 0 ? "," : "", i == 0 ? "h" : "", k);
+		text[tn++] = '\n';
+	}
+	text[tn] = '\0';
+	for (i = 0; i < 2; i++) {
+		int k;
+
+		wn += (size_t)snprintf(want + wn, sizeof(want) - wn, "%c %d ",
+		    i == 0 ? 'H' : 'R', i + 1);
+		for (k = 0; k < 70; k++)
+			wn += (size_t)snprintf(want + wn, sizeof(want) - wn,
+			    "%s%s%d", k > 0 ? "|" : "", i == 0 ? "h" : "", k);
+		wn += (size_t)snprintf(want + wn, sizeof(want) - wn, " <");
+		for (k = 0; k < 70; k++)
+			wn += (size_t)snprintf(want + wn, sizeof(want) - wn,
+			    "%s%s%d", k > 0 ? "," : "", i == 0 ? "h" : "", k);
+		wn += (size_t)snprintf(want + wn, sizeof(want) - wn, ">\n");
+	}
+	expect(',', text, want);
+}
+
 /* The raw text is the record exactly as read, bytes that are not UTF-8
  * included; only the line end (and a BOM) is left out. */
 static void
@@ -796,6 +849,7 @@ main(void)
 		cmocka_unit_test(test_quote_after_blank),
 		cmocka_unit_test(test_bare_cr),
 		cmocka_unit_test(test_delimiters),
+		cmocka_unit_test(test_line_scan),
 		cmocka_unit_test(test_raw_exact),
 		cmocka_unit_test(test_read_boundaries),
 		cmocka_unit_test(test_record_on_boundary),
