@@ -25,6 +25,33 @@ enum {
 	SFMT_SIZE		/* size_t */
 };
 
+/*
+ * What a field read back must hold besides its kind, as the engine that
+ * made it guarantees: nothing more; a sum or an extreme of charge, depth
+ * or damage, never below 0; seconds of the rows' span; a count of rows,
+ * or of what rows make (turning points, cycles), at most the rows; a time
+ * of a row, 0 while unset.  The reader of the state checks them against
+ * the rows it holds.
+ */
+enum { SFMT_R_ANY, SFMT_R_NONNEG, SFMT_R_SPAN_S, SFMT_R_ROWS, SFMT_R_TIME };
+
+/*
+ * One field of an engine's saved state: its column name, its kind
+ * (SFMT_*), where it is in the engine's struct, the range of an SFMT_INT
+ * field and its rule (SFMT_R_*).  SINCE is the revision of the engine's
+ * state that brought the field (1 for the first): a state file places
+ * the fields of each revision where that revision of the file format put
+ * them, so the engine's fields need not be side by side in a row.
+ */
+struct sfmt_spec {
+	const char *name;
+	int kind;
+	size_t off;
+	int lo, hi;
+	int rule;
+	int since;
+};
+
 /* A growable text buffer for one row; zeroed is empty. */
 struct sfmt_buf {
 	char *s;
