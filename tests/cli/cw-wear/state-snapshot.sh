@@ -3,9 +3,9 @@
 # lib/topoff.c topoff_state_fields(), lib/wearstate.c) or in how
 # lib/wearstate.c composes them shows here; and each read back with
 # --merge --state-out comes out the same.
-# source: snapshot (the state cw-wear wrote over testdata before the
-#   engines owned their fields; behaviour pinned, values not
-#   independently known)
+# source: snapshot: the states cw-wear wrote over testdata before the
+#   engines owned their fields (commit 09352ab), the same bytes; behaviour
+#   pinned, values not independently known
 cw-wear --state-out testdata/wear-fleet.csv >"$TMPDIR_CASE/a"
 echo "rc $?"
 cat "$TMPDIR_CASE/a"
