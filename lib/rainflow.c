@@ -516,9 +516,9 @@ rf_state_put_residue(struct sfmt_buf *b, const struct rf_state *s)
 int
 rf_state_get_residue(struct rf_state *s, const char *str, size_t n)
 {
-	const char *p = str, *e = str + n, *q, *c1, *c2;
+	const char *p = str, *e = str + n, *q, *f[3];
 	struct rf_point pt;
-	size_t cnt = 0, i;
+	size_t cnt = 0, i, fl[3];
 
 	if (n == 0)
 		return 0;
@@ -531,17 +531,10 @@ rf_state_get_residue(struct rf_state *s, const char *str, size_t n)
 		q = memchr(p, ';', (size_t)(e - p));
 		if (q == NULL)
 			q = e;
-		c1 = memchr(p, ':', (size_t)(q - p));
-		c2 = c1 != NULL ? memchr(c1 + 1, ':', (size_t)(q - c1 - 1)) :
-		    NULL;
-		if (c2 == NULL || memchr(c2 + 1, ':', (size_t)(q - c2 - 1)) !=
-		    NULL)
-			return -1;
-		if (sfmt_get_field(SFMT_TIME, p, (size_t)(c1 - p), 0, 0,
-		    &pt.t) < 0 || sfmt_get_field(SFMT_DBL, c1 + 1,
-		    (size_t)(c2 - c1 - 1), 0, 0, &pt.x) < 0 ||
-		    sfmt_get_field(SFMT_DBLN, c2 + 1, (size_t)(q - c2 - 1), 0,
-		    0, &pt.aux) < 0)
+		if (sfmt_split(p, (size_t)(q - p), ':', f, fl, 3) != 3 ||
+		    sfmt_get_field(SFMT_TIME, f[0], fl[0], 0, 0, &pt.t) < 0 ||
+		    sfmt_get_field(SFMT_DBL, f[1], fl[1], 0, 0, &pt.x) < 0 ||
+		    sfmt_get_field(SFMT_DBLN, f[2], fl[2], 0, 0, &pt.aux) < 0)
 			return -1;
 		s->pt[s->n++] = pt;
 		p = q + 1;

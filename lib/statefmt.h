@@ -71,6 +71,15 @@ void	sfmt_name(struct sfmt_buf *b, const char *s, size_t n);
 uint64_t sfmt_fnv(const char *s, size_t n);
 /* Append ",check\n" to the row in B and write it: 0, or -1. */
 int	sfmt_end_row(FILE *fp, struct sfmt_buf *b);
+/* An end row, ",,,TAG,end,ROWS,check\n", made in B and written: 0, or -1. */
+int	sfmt_write_end(FILE *fp, struct sfmt_buf *b, const char *tag,
+	    unsigned long rows);
+/*
+ * Split S[0..N) at SEP into at most MAX pieces (P, L); the count, or -1
+ * when there are more.  An empty S has none.
+ */
+int	sfmt_split(const char *s, size_t n, char sep, const char **p,
+	    size_t *l, int max);
 /*
  * Whether the last field of REC is the check of the text before it (the
  * raw record up to its last comma); 1 or 0.

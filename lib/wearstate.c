@@ -342,10 +342,7 @@ wstate_write_dev(FILE *fp, const char *name, size_t namelen,
 int
 wstate_write_end(FILE *fp, unsigned long rows)
 {
-	B.n = 0;
-	sfmt_str(&B, ",,," WSTATE_TAG ",end,");
-	sfmt_ul(&B, rows);
-	return sfmt_end_row(fp, &B);
+	return sfmt_write_end(fp, &B, WSTATE_TAG, rows);
 }
 
 
@@ -457,10 +454,10 @@ get_pre(struct wear_dev *d, const char *s, size_t n)
 {
 	static const int kind[6] = { SFMT_TIME, SFMT_TIME, SFMT_UL, SFMT_DBLN, SFMT_DBLN,
 	    SFMT_DBLN };
-	const char *p = s, *e = s + n, *q, *c[7];
+	const char *p = s, *e = s + n, *q, *f[6];
 	struct wear_run w;
 	void *to[6];
-	size_t cnt = 0, i;
+	size_t cnt = 0, i, fl[6];
 	int k;
 
 	if (n == 0)
@@ -482,20 +479,11 @@ get_pre(struct wear_dev *d, const char *s, size_t n)
 		q = memchr(p, ';', (size_t)(e - p));
 		if (q == NULL)
 			q = e;
-		/* c[k] is the separator before subfield k, c[6] the end. */
-		c[0] = p - 1;
-		for (k = 1; k < 6; k++) {
-			c[k] = memchr(c[k - 1] + 1, ':',
-			    (size_t)(q - c[k - 1] - 1));
-			if (c[k] == NULL)
-				return -1;
-		}
-		c[6] = q;
-		if (memchr(c[5] + 1, ':', (size_t)(q - c[5] - 1)) != NULL)
+		if (sfmt_split(p, (size_t)(q - p), ':', f, fl, 6) != 6)
 			return -1;
 		for (k = 0; k < 6; k++)
-			if (sfmt_get_field(kind[k], c[k] + 1,
-			    (size_t)(c[k + 1] - c[k] - 1), 0, 0, to[k]) < 0)
+			if (sfmt_get_field(kind[k], f[k], fl[k], 0, 0,
+			    to[k]) < 0)
 				return -1;
 		d->pre[d->pre_n++] = w;
 		p = q + 1;
