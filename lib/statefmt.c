@@ -239,6 +239,23 @@ sfmt_write_end(FILE *fp, struct sfmt_buf *b, const char *tag,
 }
 
 int
+sfmt_check_ends(const char *name, unsigned long ends,
+    unsigned long announced, unsigned long rows)
+{
+	if (ends == 0) {
+		cw_warn("%s: no end row: the state is cut short", name);
+		return CW_EXIT_DATA;
+	}
+	if (announced != rows) {
+		cw_warn("%s: %lu state rows, but the end rows announce %lu: "
+		    "the state is cut short or rows were lost", name, rows,
+		    announced);
+		return CW_EXIT_DATA;
+	}
+	return 0;
+}
+
+int
 sfmt_split(const char *s, size_t n, char sep, const char **p, size_t *l,
     int max)
 {

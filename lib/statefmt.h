@@ -75,6 +75,13 @@ int	sfmt_end_row(FILE *fp, struct sfmt_buf *b);
 int	sfmt_write_end(FILE *fp, struct sfmt_buf *b, const char *tag,
 	    unsigned long rows);
 /*
+ * The end of a strict read of the state NAME: whether its end rows (ENDS
+ * of them, announcing ANNOUNCED rows) account for the ROWS read; 0, or
+ * CW_EXIT_DATA with a message that the state is cut short.
+ */
+int	sfmt_check_ends(const char *name, unsigned long ends,
+	    unsigned long announced, unsigned long rows);
+/*
  * Split S[0..N) at SEP into at most MAX pieces (P, L); the count, or -1
  * when there are more.  An empty S has none.
  */

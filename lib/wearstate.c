@@ -788,17 +788,5 @@ wstate_read(struct wstate_read *r, const char *path, int strict)
 		r->ends += rep;
 	} else
 		r->headers += rep;
-	if (!strict)
-		return 0;
-	if (d.ends == 0) {
-		cw_warn("%s: no end row: the state is cut short", name);
-		return CW_EXIT_DATA;
-	}
-	if (d.announced != d.rows) {
-		cw_warn("%s: %lu state rows, but the end rows announce %lu: "
-		    "the state is cut short or rows were lost", name, d.rows,
-		    d.announced);
-		return CW_EXIT_DATA;
-	}
-	return 0;
+	return strict ? sfmt_check_ends(name, d.ends, d.announced, d.rows) : 0;
 }
