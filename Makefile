@@ -14,6 +14,11 @@ BIN     = $(patsubst cmd/%.c,bin/%,$(wildcard cmd/*.c))
 LIBSRC  = $(wildcard lib/*.c)
 LIBOBJ  = $(patsubst lib/%.c,build/lib/%.o,$(LIBSRC))
 LIBHDR  = $(wildcard lib/*.h)
+# The simulator's engine (synth/), cw-synth's alone: not in libcw.a.
+SYNTHSRC = $(wildcard synth/*.c)
+SYNTHOBJ = $(patsubst synth/%.c,build/synth/%.o,$(SYNTHSRC))
+SYNTHHDR = $(wildcard synth/*.h)
+SYNTHUSE = bin/cw-synth build/tests/test_synth build/tests/synth_rng
 MAN     = $(wildcard man/*.1)
 MAN7    = $(wildcard man/*.7)
 UNITSRC = $(wildcard tests/unit/test_*.c)
@@ -37,21 +42,33 @@ build/lib/%.o: lib/%.c $(LIBHDR) config.mk $(FLAGSTAMP)
 	@mkdir -p build/lib
 	$(CC) $(CWFLAGS) $(CFLAGS) -c -o $@ $<
 
-build/libcw.a: $(LIBOBJ)
+build/synth/%.o: synth/%.c $(SYNTHHDR) $(LIBHDR) config.mk $(FLAGSTAMP)
+	@mkdir -p build/synth
+	$(CC) $(CWFLAGS) -Isynth $(CFLAGS) -c -o $@ $<
+
+# What uses the simulator finds its header and links its objects.
+$(SYNTHUSE): $(SYNTHOBJ) $(SYNTHHDR)
+$(SYNTHUSE): private CWFLAGS += -Isynth
+$(SYNTHUSE): private EXTRAOBJ = $(SYNTHOBJ)
+
+build/libcw.a: $(LIBOBJ) Makefile
 	rm -f $@
 	ar rcs $@ $(LIBOBJ)
 
 bin/%: cmd/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p bin
-	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< $(EXTRAOBJ) build/libcw.a \
+	    $(LDLIBS)
 
 build/tests/%: tests/unit/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
-	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a -lcmocka $(LDLIBS)
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< $(EXTRAOBJ) build/libcw.a \
+	    -lcmocka $(LDLIBS)
 
 build/tests/%: tests/tools/%.c build/libcw.a $(LIBHDR) $(FLAGSTAMP)
 	@mkdir -p build/tests
-	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< build/libcw.a $(LDLIBS)
+	$(CC) $(CWFLAGS) $(CFLAGS) $(LDFLAGS) -o $@ $< $(EXTRAOBJ) build/libcw.a \
+	    $(LDLIBS)
 
 build/tests/replay_%: tests/fuzz/fuzz_%.c tests/fuzz/replay.c \
 	    tests/fuzz/fuzz.h tests/fuzz/fuzz_engine.h build/libcw.a \

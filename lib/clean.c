@@ -1114,14 +1114,6 @@ scan_other(void *ctx, const struct csvin_rec *rec, const char *why)
 	return 0;
 }
 
-static int
-scan_blank(void *ctx, const struct csvin_rec *rec)
-{
-	(void)ctx;
-	(void)rec;
-	return 0;
-}
-
 /*
  * --charge-sign: read each named file ahead and decide whether it counts
  * charging negative; tell what was found.  Returns the decisions, one
@@ -1131,7 +1123,7 @@ static signed char *
 scan_signs(const struct clean_conf *c, char **files, int n, unsigned req)
 {
 	static const struct csvin_ops ops = { on_header, scan_row,
-	    scan_other, scan_blank };
+	    scan_other, csvin_skip_blank };
 	signed char *sg;
 	int k, rc, neg, decided;
 

@@ -136,6 +136,14 @@ csvin_stats(const struct csvin *r)
 }
 
 int
+csvin_skip_blank(void *ctx, const struct csvin_rec *r)
+{
+	(void)ctx;
+	(void)r;
+	return 0;
+}
+
+int
 csvin_find(const struct csvin_rec *hdr, const char *name)
 {
 	size_t i;

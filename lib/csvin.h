@@ -76,6 +76,17 @@ const struct csvin_stats *csvin_stats(const struct csvin *r);
 char	csvin_delim(const struct csvin *r);
 void	csvin_free(struct csvin *r);
 
+/* A blank callback that passes blank lines over: 0. */
+int	csvin_skip_blank(void *ctx, const struct csvin_rec *r);
+/*
+ * Read all of a small side file, PATH (a fleet file, a trend, a table),
+ * through OPS with CTX, the delimiter found from its header; die with
+ * "PATH: EMPTY" when it has no header, and with "PATH: cannot read
+ * WHAT" (the exit code csvin_file() returned) when reading failed.
+ */
+void	csvin_load(const char *path, const struct csvin_ops *ops, void *ctx,
+	    const char *empty, const char *what);
+
 /* Index of the header field named NAME (exact), or -1. */
 int	csvin_find(const struct csvin_rec *hdr, const char *name);
 

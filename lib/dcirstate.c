@@ -36,8 +36,6 @@ static void	settings(const struct dstate_conf *, double *);
 static void	put_pts(struct sfmt_buf *, const struct dcir_pt *, size_t);
 static int	get_pts(const char *, size_t, struct dcir_pt *, size_t,
 		    size_t *);
-static int	split(const char *, size_t, char, const char **, size_t *,
-		    int);
 static const char *check(const struct dstate_dev *,
 		    const struct dstate_conf *);
 
@@ -216,36 +214,7 @@ dstate_write_dev(FILE *fp, const char *name, size_t namelen,
 int
 dstate_write_end(FILE *fp, unsigned long rows)
 {
-	B.n = 0;
-	sfmt_str(&B, ",,," DSTATE_TAG ",end,");
-	sfmt_ul(&B, rows);
-	return sfmt_end_row(fp, &B);
-}
-
-/*
- * Split S[0..N) at SEP into at most MAX pieces (P, L); the count, or -1
- * when there are more.  An empty S has none.
- */
-static int
-split(const char *s, size_t n, char sep, const char **p, size_t *l, int max)
-{
-	const char *e = s + n, *q;
-	int k = 0;
-
-	if (n == 0)
-		return 0;
-	for (;;) {
-		if (k == max)
-			return -1;
-		q = memchr(s, sep, (size_t)(e - s));
-		if (q == NULL)
-			q = e;
-		p[k] = s;
-		l[k++] = (size_t)(q - s);
-		if (q == e)
-			return k;
-		s = q + 1;
-	}
+	return sfmt_write_end(fp, &B, DSTATE_TAG, rows);
 }
 
 /* Samples "t:v:i:temp:soc;..." into P[0..MAX); *N of them. */
@@ -254,12 +223,12 @@ get_pts(const char *s, size_t n, struct dcir_pt *p, size_t max, size_t *np)
 {
 	const char *it[DCIR_HIST_MAX + 1], *f[5];
 	size_t il[DCIR_HIST_MAX + 1], fl[5];
-	int k, m = split(s, n, ';', it, il, DCIR_HIST_MAX + 1);
+	int k, m = sfmt_split(s, n, ';', it, il, DCIR_HIST_MAX + 1);
 
 	if (m < 0 || (size_t)m > max)
 		return -1;
 	for (k = 0; k < m; k++)
-		if (split(it[k], il[k], ':', f, fl, 5) != 5 ||
+		if (sfmt_split(it[k], il[k], ':', f, fl, 5) != 5 ||
 		    sfmt_get_field(SFMT_TIME, f[0], fl[0], 0, 0, &p[k].t) < 0 ||
 		    sfmt_get_field(SFMT_DBLN, f[1], fl[1], 0, 0, &p[k].v) < 0 ||
 		    sfmt_get_field(SFMT_DBLN, f[2], fl[2], 0, 0, &p[k].i) < 0 ||
@@ -392,15 +361,15 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 	    DCIR_HIST_MAX, &n) < 0)
 		return bad_row(rec, "a bad list in column pre");
 	w.npre = (unsigned)n;
-	m = split(rec->f[COL_LIST + 1], rec->len[COL_LIST + 1], ';', it, il,
-	    DCIR_NBIN + 1);
+	m = sfmt_split(rec->f[COL_LIST + 1], rec->len[COL_LIST + 1], ';', it,
+	    il, DCIR_NBIN + 1);
 	if (m < 0)
 		return bad_row(rec, "a bad list in column bins");
 	s->bin = cw_calloc(DCIR_NBIN + 1, sizeof(*s->bin));
 	for (k = 0; k < m; k++) {
 		struct dcir_bin *bn;
 
-		if (split(it[k], il[k], ':', f, fl, 4) != 4 ||
+		if (sfmt_split(it[k], il[k], ':', f, fl, 4) != 4 ||
 		    sfmt_get_ul(f[0], fl[0], &u[0]) < 0 || u[0] > DCIR_NBIN ||
 		    sfmt_get_ul(f[1], fl[1], &u[1]) < 0 || u[1] == 0 ||
 		    s->bin[u[0]].n != 0) {
@@ -432,7 +401,7 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 		if (q == NULL)
 			q = e;
 		if (s->n > d->r->sc->max_points + DCIR_NBIN ||
-		    split(p, (size_t)(q - p), ':', f, fl, 3) != 3) {
+		    sfmt_split(p, (size_t)(q - p), ':', f, fl, 3) != 3) {
 			dstate_free(&w);
 			return bad_row(rec, "a bad list in column points");
 		}
@@ -551,17 +520,5 @@ dstate_read(struct dstate_read *r, const char *path, int strict)
 		d.ends += rep;
 		d.announced += rep * d.first_n;
 	}
-	if (!strict)
-		return 0;
-	if (d.ends == 0) {
-		cw_warn("%s: no end row: the state is cut short", name);
-		return CW_EXIT_DATA;
-	}
-	if (d.announced != d.rows) {
-		cw_warn("%s: %lu state rows, but the end rows announce %lu: "
-		    "the state is cut short or rows were lost", name, d.rows,
-		    d.announced);
-		return CW_EXIT_DATA;
-	}
-	return 0;
+	return strict ? sfmt_check_ends(name, d.ends, d.announced, d.rows) : 0;
 }

@@ -37,7 +37,6 @@ struct loadctx {
 static int	fl_header(void *, const struct csvin_rec *);
 static int	fl_row(void *, const struct csvin_rec *);
 static int	fl_bad(void *, const struct csvin_rec *, const char *);
-static int	fl_blank(void *, const struct csvin_rec *);
 static double	fl_number(const struct csvin_rec *, int, const char *,
 		    double, double);
 static const char *fl_keep(struct fleet *, const char *, size_t);
@@ -46,23 +45,16 @@ struct fleet *
 fleet_load(const char *path)
 {
 	static const struct csvin_ops ops = {
-		fl_header, fl_row, fl_bad, fl_blank
+		fl_header, fl_row, fl_bad, csvin_skip_blank
 	};
 	struct loadctx lc;
-	struct csvin *in;
-	int rc;
 
 	lc.f = cw_calloc(1, sizeof(*lc.f));
 	lc.f->packs = devtab_new(sizeof(struct fleet_pack));
 	for (int k = 0; k < FC_N; k++)
 		lc.col[k] = -1;
-	in = csvin_new('\0', &ops, &lc);
-	rc = csvin_file(in, path);
-	if (rc == 0 && csvin_stats(in)->headers == 0)
-		cw_die(CW_EXIT_DATA, "%s: empty fleet file (no header)", path);
-	csvin_free(in);
-	if (rc != 0)
-		cw_die(rc, "%s: cannot read the fleet file", path);
+	csvin_load(path, &ops, &lc, "empty fleet file (no header)",
+	    "the fleet file");
 	return lc.f;
 }
 
@@ -185,14 +177,6 @@ fl_bad(void *ctx, const struct csvin_rec *r, const char *why)
 {
 	(void)ctx;
 	cw_die(CW_EXIT_DATA, "%s:%lu: fleet file: %s", r->src, r->line, why);
-}
-
-static int
-fl_blank(void *ctx, const struct csvin_rec *r)
-{
-	(void)ctx;
-	(void)r;
-	return 0;
 }
 
 static const char *

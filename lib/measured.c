@@ -37,7 +37,6 @@ struct mload {
 static int	ml_header(void *, const struct csvin_rec *);
 static int	ml_row(void *, const struct csvin_rec *);
 static int	ml_bad(void *, const struct csvin_rec *, const char *);
-static int	ml_blank(void *, const struct csvin_rec *);
 static double	ml_number(const struct csvin_rec *, int, const char *);
 static int	ml_time(const struct csvin_rec *, int, const char *,
 		    cw_time *);
@@ -55,25 +54,16 @@ struct meas *
 meas_load(const char *path)
 {
 	static const struct csvin_ops ops = {
-		ml_header, ml_row, ml_bad, ml_blank
+		ml_header, ml_row, ml_bad, csvin_skip_blank
 	};
 	struct mload lc;
-	struct csvin *in;
-	int rc;
 
 	lc.m = cw_calloc(1, sizeof(*lc.m));
 	lc.m->packs = devtab_new(sizeof(struct meas_pack));
 	for (int k = 0; k < MC_N; k++)
 		lc.col[k] = -1;
-	in = csvin_new('\0', &ops, &lc);
-	rc = csvin_file(in, path);
-	if (rc == 0 && csvin_stats(in)->headers == 0)
-		cw_die(CW_EXIT_DATA, "%s: empty file: no cw-capacity --trend "
-		    "header", path);
-	csvin_free(in);
-	if (rc != 0)
-		cw_die(rc, "%s: cannot read the measured capacity trend",
-		    path);
+	csvin_load(path, &ops, &lc, "empty file: no cw-capacity --trend "
+	    "header", "the measured capacity trend");
 	return lc.m;
 }
 
@@ -164,14 +154,6 @@ ml_bad(void *ctx, const struct csvin_rec *r, const char *why)
 {
 	(void)ctx;
 	cw_die(CW_EXIT_DATA, "%s:%lu: %s", r->src, r->line, why);
-}
-
-static int
-ml_blank(void *ctx, const struct csvin_rec *r)
-{
-	(void)ctx;
-	(void)r;
-	return 0;
 }
 
 const struct meas_pack *

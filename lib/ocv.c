@@ -17,28 +17,20 @@ struct loadctx {
 static int	oc_header(void *, const struct csvin_rec *);
 static int	oc_row(void *, const struct csvin_rec *);
 static int	oc_bad(void *, const struct csvin_rec *, const char *);
-static int	oc_blank(void *, const struct csvin_rec *);
 static double	oc_number(const struct csvin_rec *, int, const char *);
 
 struct ocv *
 ocv_load(const char *path)
 {
 	static const struct csvin_ops ops = {
-		oc_header, oc_row, oc_bad, oc_blank
+		oc_header, oc_row, oc_bad, csvin_skip_blank
 	};
 	struct loadctx lc;
-	struct csvin *in;
-	int rc;
 
 	memset(&lc, 0, sizeof lc);
 	lc.o = cw_calloc(1, sizeof *lc.o);
-	in = csvin_new('\0', &ops, &lc);
-	rc = csvin_file(in, path);
-	if (rc == 0 && csvin_stats(in)->headers == 0)
-		cw_die(CW_EXIT_DATA, "%s: empty OCV table (no header)", path);
-	csvin_free(in);
-	if (rc != 0)
-		cw_die(rc, "%s: cannot read the OCV table", path);
+	csvin_load(path, &ops, &lc, "empty OCV table (no header)",
+	    "the OCV table");
 	if (lc.o->n < 2)
 		cw_die(CW_EXIT_DATA, "%s: an OCV table needs two points or "
 		    "more", path);
@@ -103,14 +95,6 @@ oc_bad(void *ctx, const struct csvin_rec *r, const char *why)
 {
 	(void)ctx;
 	cw_die(CW_EXIT_DATA, "%s:%lu: OCV table: %s", r->src, r->line, why);
-}
-
-static int
-oc_blank(void *ctx, const struct csvin_rec *r)
-{
-	(void)ctx;
-	(void)r;
-	return 0;
 }
 
 double

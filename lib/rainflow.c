@@ -3,12 +3,14 @@
  * ASTM E1049-85 section 5.4.4 (see rainflow.h).
  */
 #include <float.h>
+#include <stddef.h>
 #include <limits.h>
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "rainflow.h"
+#include "statefmt.h"
 
 /* Where the history is heading. */
 enum {
@@ -463,4 +465,79 @@ double
 rf_sum_mean_range(const struct rf_sum *m)
 {
 	return m->cycles > 0 ? m->range_sum / m->cycles : CW_MISSING;
+}
+
+#define RF_F(n, k, m, lo, hi, r) \
+	{ n, k, offsetof(struct rf_state, m), lo, hi, r, 1 }
+#define RF_T(n, m)	RF_F(n, SFMT_TIME, m, 0, 0, SFMT_R_TIME)
+#define RF_X(n, m)	RF_F(n, SFMT_DBL, m, 0, 0, SFMT_R_ANY)
+#define RF_N(n, m)	RF_F(n, SFMT_DBLN, m, 0, 0, SFMT_R_ANY)
+
+/* The fields of a saved state, in the order of its columns. */
+static const struct sfmt_spec rf_fields[] = {
+	RF_F("rf_raw", SFMT_INT, raw_start, 0, 1, SFMT_R_ANY),
+	RF_F("rf_dir", SFMT_INT, dir, RF_DIR_EMPTY, RF_DIR_DOWN, SFMT_R_ANY),
+	RF_T("rf_lo_t", lo.t),
+	RF_X("rf_lo_x", lo.x),
+	RF_N("rf_lo_aux", lo.aux),
+	RF_T("rf_hi_t", hi.t),
+	RF_X("rf_hi_x", hi.x),
+	RF_N("rf_hi_aux", hi.aux),
+	RF_T("rf_cand_t", cand.t),
+	RF_X("rf_cand_x", cand.x),
+	RF_N("rf_cand_aux", cand.aux),
+	RF_F("rf_start", SFMT_SIZE, start, 0, 0, SFMT_R_ANY),
+	RF_F("rf_nturn", SFMT_UL, nturn, 0, 0, SFMT_R_ROWS)
+};
+
+const struct sfmt_spec *
+rf_state_fields(size_t *n)
+{
+	*n = sizeof(rf_fields) / sizeof(rf_fields[0]);
+	return rf_fields;
+}
+
+void
+rf_state_put_residue(struct sfmt_buf *b, const struct rf_state *s)
+{
+	size_t k;
+
+	for (k = 0; k < s->n; k++) {
+		if (k > 0)
+			sfmt_add(b, ";", 1);
+		sfmt_i64(b, (long long)s->pt[k].t);
+		sfmt_add(b, ":", 1);
+		sfmt_dbl(b, s->pt[k].x, 0);
+		sfmt_add(b, ":", 1);
+		sfmt_dbl(b, s->pt[k].aux, 1);
+	}
+}
+
+int
+rf_state_get_residue(struct rf_state *s, const char *str, size_t n)
+{
+	const char *p = str, *e = str + n, *q, *f[3];
+	struct rf_point pt;
+	size_t cnt = 0, i, fl[3];
+
+	if (n == 0)
+		return 0;
+	for (i = 0; i < n; i++)
+		cnt += str[i] == ';';
+	cnt++;
+	s->pt = cw_malloc(cnt * sizeof(*s->pt));
+	s->cap = cnt;
+	while (p <= e) {
+		q = memchr(p, ';', (size_t)(e - p));
+		if (q == NULL)
+			q = e;
+		if (sfmt_split(p, (size_t)(q - p), ':', f, fl, 3) != 3 ||
+		    sfmt_get_field(SFMT_TIME, f[0], fl[0], 0, 0, &pt.t) < 0 ||
+		    sfmt_get_field(SFMT_DBL, f[1], fl[1], 0, 0, &pt.x) < 0 ||
+		    sfmt_get_field(SFMT_DBLN, f[2], fl[2], 0, 0, &pt.aux) < 0)
+			return -1;
+		s->pt[s->n++] = pt;
+		p = q + 1;
+	}
+	return 0;
 }

@@ -45,6 +45,7 @@
 
 #include <stddef.h>
 #include "cw.h"
+#include "statefmt.h"
 
 /* One counted cycle or half cycle. */
 struct rf_cycle {
@@ -136,6 +137,17 @@ void	rf_join(struct rf_state *a, const struct rf_state *b,
  * from a file): 0 if so, -1 if not.
  */
 int	rf_check(const struct rf_state *s);
+/*
+ * The saved form of a state (cw-wear --state-out): the fields of struct
+ * rf_state as a table of *N columns, offsets within the struct (the
+ * hysteresis is a setting, saved by the caller), and the residue as one
+ * field, "t:x:aux;..." (empty when there is none).  rf_state_get_residue()
+ * reads that field into S, set up by rf_init() with an empty residue: 0,
+ * or -1 when it is not one rf_state_put_residue() writes.
+ */
+const struct sfmt_spec *rf_state_fields(size_t *n);
+void	rf_state_put_residue(struct sfmt_buf *b, const struct rf_state *s);
+int	rf_state_get_residue(struct rf_state *s, const char *str, size_t n);
 /* Release the residue's memory; rf_init() again before any further use. */
 void	rf_free(struct rf_state *s);
 /* Turning points in the residue now (for tests and memory checks). */

@@ -165,7 +165,6 @@ struct report {
 static int	rd_header(void *, const struct csvin_rec *);
 static int	rd_row(void *, const struct csvin_rec *);
 static int	rd_bad(void *, const struct csvin_rec *, const char *);
-static int	rd_blank(void *, const struct csvin_rec *);
 static int	sn_header(void *, const struct csvin_rec *);
 static int	sn_row(void *, const struct csvin_rec *);
 static int	has_all(const struct csvin_rec *, const char *);
@@ -269,7 +268,7 @@ int
 report_read(struct report *r, const char *path)
 {
 	static const struct csvin_ops ops = {
-		rd_header, rd_row, rd_bad, rd_blank
+		rd_header, rd_row, rd_bad, csvin_skip_blank
 	};
 	struct csvin *in;
 	int rc;
@@ -417,19 +416,11 @@ rd_bad(void *ctx, const struct csvin_rec *rec, const char *why)
 	return CW_EXIT_DATA;
 }
 
-static int
-rd_blank(void *ctx, const struct csvin_rec *rec)
-{
-	(void)ctx;
-	(void)rec;
-	return 0;
-}
-
 int
 report_since(struct report *r, const char *path)
 {
 	static const struct csvin_ops ops = {
-		sn_header, sn_row, rd_bad, rd_blank
+		sn_header, sn_row, rd_bad, csvin_skip_blank
 	};
 	struct csvin *in;
 	int rc;

@@ -27,7 +27,6 @@ struct rd {
 static int on_header(void *, const struct csvin_rec *);
 static int on_row(void *, const struct csvin_rec *);
 static int on_bad(void *, const struct csvin_rec *, const char *);
-static int on_blank(void *, const struct csvin_rec *);
 static const char *colname(const struct sampin_conf *, int);
 static void skip(struct rd *, const struct csvin_rec *, const char *, ...)
     __attribute__((format(printf, 3, 4)));
@@ -193,20 +192,12 @@ on_bad(void *ctx, const struct csvin_rec *r, const char *why)
 	return 0;
 }
 
-static int
-on_blank(void *ctx, const struct csvin_rec *r)
-{
-	(void)ctx;
-	(void)r;
-	return 0;
-}
-
 int
 sampin_run(const struct sampin_conf *c, char **files, int n,
     struct sampin_stats *st)
 {
 	static const struct csvin_ops ops = { on_header, on_row, on_bad,
-	    on_blank };
+	    csvin_skip_blank };
 	struct rd d;
 	struct csvin *r;
 	int rc;

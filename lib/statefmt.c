@@ -226,6 +226,58 @@ sfmt_same(int kind, const void *a, const void *b)
 	return 0;
 }
 
+int
+sfmt_write_end(FILE *fp, struct sfmt_buf *b, const char *tag,
+    unsigned long rows)
+{
+	b->n = 0;
+	sfmt_str(b, ",,,");
+	sfmt_str(b, tag);
+	sfmt_str(b, ",end,");
+	sfmt_ul(b, rows);
+	return sfmt_end_row(fp, b);
+}
+
+int
+sfmt_check_ends(const char *name, unsigned long ends,
+    unsigned long announced, unsigned long rows)
+{
+	if (ends == 0) {
+		cw_warn("%s: no end row: the state is cut short", name);
+		return CW_EXIT_DATA;
+	}
+	if (announced != rows) {
+		cw_warn("%s: %lu state rows, but the end rows announce %lu: "
+		    "the state is cut short or rows were lost", name, rows,
+		    announced);
+		return CW_EXIT_DATA;
+	}
+	return 0;
+}
+
+int
+sfmt_split(const char *s, size_t n, char sep, const char **p, size_t *l,
+    int max)
+{
+	const char *e = s + n, *q;
+	int k = 0;
+
+	if (n == 0)
+		return 0;
+	for (;;) {
+		if (k == max)
+			return -1;
+		q = memchr(s, sep, (size_t)(e - s));
+		if (q == NULL)
+			q = e;
+		p[k] = s;
+		l[k++] = (size_t)(q - s);
+		if (q == e)
+			return k;
+		s = q + 1;
+	}
+}
+
 /* A setting's value, for messages. */
 void
 sfmt_show(int kind, const void *p, char *t, size_t n)

@@ -25,6 +25,33 @@ enum {
 	SFMT_SIZE		/* size_t */
 };
 
+/*
+ * What a field read back must hold besides its kind, as the engine that
+ * made it guarantees: nothing more; a sum or an extreme of charge, depth
+ * or damage, never below 0; seconds of the rows' span; a count of rows,
+ * or of what rows make (turning points, cycles), at most the rows; a time
+ * of a row, 0 while unset.  The reader of the state checks them against
+ * the rows it holds.
+ */
+enum { SFMT_R_ANY, SFMT_R_NONNEG, SFMT_R_SPAN_S, SFMT_R_ROWS, SFMT_R_TIME };
+
+/*
+ * One field of an engine's saved state: its column name, its kind
+ * (SFMT_*), where it is in the engine's struct, the range of an SFMT_INT
+ * field and its rule (SFMT_R_*).  SINCE is the revision of the engine's
+ * state that brought the field (1 for the first): a state file places
+ * the fields of each revision where that revision of the file format put
+ * them, so the engine's fields need not be side by side in a row.
+ */
+struct sfmt_spec {
+	const char *name;
+	int kind;
+	size_t off;
+	int lo, hi;
+	int rule;
+	int since;
+};
+
 /* A growable text buffer for one row; zeroed is empty. */
 struct sfmt_buf {
 	char *s;
@@ -44,6 +71,22 @@ void	sfmt_name(struct sfmt_buf *b, const char *s, size_t n);
 uint64_t sfmt_fnv(const char *s, size_t n);
 /* Append ",check\n" to the row in B and write it: 0, or -1. */
 int	sfmt_end_row(FILE *fp, struct sfmt_buf *b);
+/* An end row, ",,,TAG,end,ROWS,check\n", made in B and written: 0, or -1. */
+int	sfmt_write_end(FILE *fp, struct sfmt_buf *b, const char *tag,
+	    unsigned long rows);
+/*
+ * The end of a strict read of the state NAME: whether its end rows (ENDS
+ * of them, announcing ANNOUNCED rows) account for the ROWS read; 0, or
+ * CW_EXIT_DATA with a message that the state is cut short.
+ */
+int	sfmt_check_ends(const char *name, unsigned long ends,
+	    unsigned long announced, unsigned long rows);
+/*
+ * Split S[0..N) at SEP into at most MAX pieces (P, L); the count, or -1
+ * when there are more.  An empty S has none.
+ */
+int	sfmt_split(const char *s, size_t n, char sep, const char **p,
+	    size_t *l, int max);
 /*
  * Whether the last field of REC is the check of the text before it (the
  * raw record up to its last comma); 1 or 0.

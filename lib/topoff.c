@@ -1,7 +1,9 @@
 /* topoff.c: holds near full charge and top-off micro-cycles (topoff.h). */
+#include <stddef.h>
 #include <string.h>
 
 #include "charge.h"
+#include "statefmt.h"
 #include "topoff.h"
 
 /* Slack for comparisons of levels made of decimal readings. */
@@ -304,4 +306,70 @@ void
 topoff_finish(struct topoff *st, const struct topoff_conf *c)
 {
 	hold_end(st, c);
+}
+
+#define TO_F(n, k, m, lo, hi, r, v) \
+	{ n, k, offsetof(struct topoff, m), lo, hi, r, v }
+#define TO_B(n, m, v)	TO_F(n, SFMT_INT, m, 0, 1, SFMT_R_ANY, v)
+#define TO_T(n, m, v)	TO_F(n, SFMT_TIME, m, 0, 0, SFMT_R_TIME, v)
+#define TO_X(n, m)	TO_F(n, SFMT_DBL, m, 0, 0, SFMT_R_ANY, 1)
+#define TO_D(n, m)	TO_F(n, SFMT_DBL, m, 0, 0, SFMT_R_NONNEG, 1)
+#define TO_U(n, m)	TO_F(n, SFMT_UL, m, 0, 0, SFMT_R_ROWS, 1)
+
+/* The fields of a saved state, in the order of their columns. */
+static const struct sfmt_spec topoff_fields[] = {
+	TO_F("top_phase", SFMT_INT, phase, TOPOFF_OUT, TOPOFF_RECHARGE,
+	    SFMT_R_ANY, 1),
+	TO_B("top_have_row", have_row, 1),
+	TO_T("top_row_t", row_t, 1),
+	TO_T("top_lvl_t", lvl_t, 1),
+	TO_X("top_lvl", lvl),
+	TO_B("top_lvl_top", lvl_top, 1),
+	TO_B("top_have_soc", have_soc, 1),
+	TO_T("top_soc_t", soc_t, 1),
+	TO_B("top_rested", rested, 1),
+	TO_F("top_signal", SFMT_INT, hold.signal, 0, TOPOFF_VOLTAGE,
+	    SFMT_R_ANY, 1),
+	TO_T("top_hold_start", hold.start, 1),
+	TO_T("top_hold_end", hold.end, 1),
+	TO_U("top_hold_rows", hold.rows),
+	TO_U("top_hold_carried", hold.carried),
+	TO_U("top_hold_cycles", hold.cycles),
+	TO_D("top_hold_depth_sum", hold.depth_sum),
+	TO_D("top_hold_depth_max", hold.depth_max),
+	TO_D("top_hold_topoff_ah", hold.topoff_ah),
+	TO_F("top_hold_at_top2", SFMT_TIME, hold.at_top2, 0, 0, SFMT_R_ANY,
+	    1),
+	TO_X("top_peak", peak),
+	TO_X("top_trough", trough),
+	TO_T("top_peak_t", peak_t, 1),
+	TO_B("top_idle", idle, 1),
+	TO_B("top_dropped", dropped, 1),
+	TO_B("top_recharged", recharged, 1),
+	TO_X("top_rise", rise),
+	TO_T("top_rise_t", rise_t, 1),
+	TO_T("top_chg_t", chg_t, 1),
+	TO_D("top_cyc_ah", cyc_ah),
+	/* Revision 2: the use dips. */
+	TO_B("top_used", used, 2),
+	TO_T("top_lvl_since", lvl_since, 2)
+};
+
+const struct sfmt_spec *
+topoff_state_fields(size_t *n)
+{
+	*n = sizeof(topoff_fields) / sizeof(topoff_fields[0]);
+	return topoff_fields;
+}
+
+const char *
+topoff_state_check(const struct topoff *st, cw_time last)
+{
+	if (st->hold.at_top2 < 0 || st->hold.start > st->hold.end ||
+	    st->hold.at_top2 / 2 > st->hold.end - st->hold.start)
+		return "top_hold_at_top2 is not within its hold";
+	if (st->have_row != 1 || st->row_t != last ||
+	    (st->phase != TOPOFF_OUT && st->hold.signal == 0))
+		return "top-off detector inconsistent";
+	return NULL;
 }

@@ -71,6 +71,7 @@
 #define TOPOFF_H
 
 #include "cw.h"
+#include "statefmt.h"
 
 /* Defaults (cw-topoff(1)). */
 #define TOPOFF_FULL_PCT		95.0
@@ -202,6 +203,16 @@ struct topoff {
 };
 
 void	topoff_init(struct topoff *st);
+/*
+ * The saved form of a state (cw-wear --state-out): the fields of struct
+ * topoff as a table of *N columns, offsets within the struct; revision 2
+ * of it added the use dips' fields (since 2).  The totals, and the
+ * standby level of a device, are not saved: the caller keeps its own.
+ * topoff_state_check() tells whether ST, read back, is one topoff_push()
+ * could have left with LAST its last row: NULL, or what is wrong.
+ */
+const struct sfmt_spec *topoff_state_fields(size_t *n);
+const char *topoff_state_check(const struct topoff *st, cw_time last);
 /*
  * One row of the device: time T (not before the previous row's), voltage
  * V, current I_A (positive while charging) and SOC; any may be NaN.

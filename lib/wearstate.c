@@ -20,35 +20,27 @@ enum { FIRST_DEV, FIRST_HEADER, FIRST_END };
 
 
 /*
- * What a field read back must hold besides its kind, as the engine that
- * made it guarantees (check_dev): nothing more; a sum or an extreme of
- * charge, depth or damage, never below 0; seconds of the rows' span; a
- * count of rows, or of what rows make (turning points, cycles), at most
- * the rows; a time of a row, 0 while unset.
+ * A field of the device row: as the engine that owns it describes it
+ * (struct sfmt_spec), its offset now within struct wear_dev.
  */
-enum { R_ANY, R_NONNEG, R_SPAN_S, R_ROWS, R_TIME };
+#define F_(n, k, m, lo, hi, r) \
+	{ n, k, offsetof(struct wear_dev, m), lo, hi, r, 1 }
+#define FD(n, m)	F_(n, SFMT_DBL, m, 0, 0, SFMT_R_NONNEG)
+#define FX(n, m)	F_(n, SFMT_DBL, m, 0, 0, SFMT_R_ANY)
+#define FS(n, m)	F_(n, SFMT_DBL, m, 0, 0, SFMT_R_SPAN_S)
+#define FN(n, m)	F_(n, SFMT_DBLN, m, 0, 0, SFMT_R_ANY)
+#define FT(n, m)	F_(n, SFMT_TIME, m, 0, 0, SFMT_R_TIME)
+#define FU(n, m)	F_(n, SFMT_UL, m, 0, 0, SFMT_R_ROWS)
+#define FI(n, m, lo, hi) F_(n, SFMT_INT, m, lo, hi, SFMT_R_ANY)
 
-struct field {
-	const char *name;
-	int kind;
-	size_t off;
-	int lo, hi;
-	int rule;		/* R_* */
-};
-
-#define F_(n, k, m, lo, hi, r) { n, k, offsetof(struct wear_dev, m), lo, hi, r }
-#define FD(n, m)	F_(n, SFMT_DBL, m, 0, 0, R_NONNEG)
-#define FX(n, m)	F_(n, SFMT_DBL, m, 0, 0, R_ANY)
-#define FS(n, m)	F_(n, SFMT_DBL, m, 0, 0, R_SPAN_S)
-#define FN(n, m)	F_(n, SFMT_DBLN, m, 0, 0, R_ANY)
-#define FT(n, m)	F_(n, SFMT_TIME, m, 0, 0, R_TIME)
-#define FU(n, m)	F_(n, SFMT_UL, m, 0, 0, R_ROWS)
-#define FZ(n, m)	F_(n, SFMT_SIZE, m, 0, 0, R_ANY)
-#define FI(n, m, lo, hi) F_(n, SFMT_INT, m, lo, hi, R_ANY)
-
-/* The device's fields, in the order of the row. */
-static const struct field devf[] = {
-	F_("rows", SFMT_UL, acc.rows, 0, 0, R_ANY),
+/*
+ * The device's own fields, in three runs; the row is the first, then the
+ * rainflow state's fields (rf_state_fields()), the top-off detector's of
+ * its revision 1 (topoff_state_fields()), the second, the top-off
+ * detector's of revision 2, and the third (composed by fields()).
+ */
+static const struct sfmt_spec own1[] = {
+	F_("rows", SFMT_UL, acc.rows, 0, 0, SFMT_R_ANY),
 	FU("rows_no_current", acc.rows_no_current),
 	FU("rows_no_soc", acc.rows_no_soc),
 	FU("rows_no_temp", acc.rows_no_temp),
@@ -111,68 +103,31 @@ static const struct field devf[] = {
 	FD("rate_full", rate.full),
 	FD("rate_ref", rate.ref),
 	FX("rate_soc", rate.soc),
-	FX("rate_temp", rate.temp),
-	FI("rf_raw", rf.raw_start, 0, 1),
-	FI("rf_dir", rf.dir, 0, 3),
-	FT("rf_lo_t", rf.lo.t),
-	FX("rf_lo_x", rf.lo.x),
-	FN("rf_lo_aux", rf.lo.aux),
-	FT("rf_hi_t", rf.hi.t),
-	FX("rf_hi_x", rf.hi.x),
-	FN("rf_hi_aux", rf.hi.aux),
-	FT("rf_cand_t", rf.cand.t),
-	FX("rf_cand_x", rf.cand.x),
-	FN("rf_cand_aux", rf.cand.aux),
-	FZ("rf_start", rf.start),
-	FU("rf_nturn", rf.nturn),
-	FI("top_phase", top.phase, TOPOFF_OUT, TOPOFF_RECHARGE),
-	FI("top_have_row", top.have_row, 0, 1),
-	FT("top_row_t", top.row_t),
-	FT("top_lvl_t", top.lvl_t),
-	FX("top_lvl", top.lvl),
-	FI("top_lvl_top", top.lvl_top, 0, 1),
-	FI("top_have_soc", top.have_soc, 0, 1),
-	FT("top_soc_t", top.soc_t),
-	FI("top_rested", top.rested, 0, 1),
-	FI("top_signal", top.hold.signal, 0, TOPOFF_VOLTAGE),
-	FT("top_hold_start", top.hold.start),
-	FT("top_hold_end", top.hold.end),
-	FU("top_hold_rows", top.hold.rows),
-	FU("top_hold_carried", top.hold.carried),
-	FU("top_hold_cycles", top.hold.cycles),
-	FD("top_hold_depth_sum", top.hold.depth_sum),
-	FD("top_hold_depth_max", top.hold.depth_max),
-	FD("top_hold_topoff_ah", top.hold.topoff_ah),
-	F_("top_hold_at_top2", SFMT_TIME, top.hold.at_top2, 0, 0, R_ANY),
-	FX("top_peak", top.peak),
-	FX("top_trough", top.trough),
-	FT("top_peak_t", top.peak_t),
-	FI("top_idle", top.idle, 0, 1),
-	FI("top_dropped", top.dropped, 0, 1),
-	FI("top_recharged", top.recharged, 0, 1),
-	FX("top_rise", top.rise),
-	FT("top_rise_t", top.rise_t),
-	FT("top_chg_t", top.chg_t),
-	FD("top_cyc_ah", top.cyc_ah),
+	FX("rate_temp", rate.temp)
+};
+static const struct sfmt_spec own2[] = {
 	FI("pre_state", pre_state, 0, WEAR_PRE_NSTATE - 1),
 	FU("pre_cycles", pre_cycles),
-	FU("pre_judged", pre_judged),
-	/* Since cw-wear-state-2: the top-off detector's use dips ... */
-	FI("top_used", top.used, 0, 1),
-	FT("top_lvl_since", top.lvl_since),
-	/* ... and the damage before the log (packs in service). */
+	FU("pre_judged", pre_judged)
+};
+/* Since cw-wear-state-2: the damage before the log (packs in service). */
+static const struct sfmt_spec own3[] = {
 	FI("prior", prior.kind, 0, WEAR_PRIOR_NKIND - 1),
 	FN("prior_soh_pct", prior.soh_pct),
 	FX("prior_age_s", prior.age_s),
 	FX("prior_efc", prior.efc)
 };
-#define NDEVF (sizeof(devf) / sizeof(devf[0]))
+#define NOWN(t)		(sizeof(t) / sizeof(t[0]))
+
+/* The device's fields, in the order of the row (fields()). */
+static struct sfmt_spec devf[160];
+static size_t ndevf;
 /*
  * Fields of a device in a state of version V.  Only version 2 is read
  * (tag_version); version 1 is refused with a message, since its damage
  * is not split by cause.
  */
-#define NDEVF_V(v)	((void)(v), NDEVF)
+#define NDEVF_V(v)	((void)(v), ndevf)
 
 /*
  * The settings, over struct wear_conf, with the option that sets each
@@ -242,7 +197,6 @@ static struct sfmt_buf B;
 static const struct sfmt_buf *header(int);
 static int tag_version(const char *);
 static int settings(struct rd *, const struct csvin_rec *);
-static int get_rf(struct wear_dev *, const char *, size_t);
 static int get_pre(struct wear_dev *, const char *, size_t);
 static const char *check_dev(const struct wear_dev *,
     const struct wear_conf *);
@@ -261,6 +215,44 @@ static int on_blank(void *, const struct csvin_rec *);
 
 
 
+/* Append the fields of T[0..N) of revision SINCE, at BASE in wear_dev. */
+static void
+add_fields(const struct sfmt_spec *t, size_t n, size_t base, int since)
+{
+	size_t k;
+
+	for (k = 0; k < n; k++) {
+		if (t[k].since != since)
+			continue;
+		if (ndevf == sizeof(devf) / sizeof(devf[0]))
+			cw_die(CW_EXIT_DATA, "internal error: too many "
+			    "state fields");
+		devf[ndevf] = t[k];
+		devf[ndevf++].off += base;
+	}
+}
+
+/* The device row's fields, composed once from the engines' tables. */
+static void
+fields(void)
+{
+	const struct sfmt_spec *rf, *top;
+	size_t nrf, ntop;
+
+	if (ndevf > 0)
+		return;
+	rf = rf_state_fields(&nrf);
+	top = topoff_state_fields(&ntop);
+	add_fields(own1, NOWN(own1), 0, 1);
+	add_fields(rf, nrf, offsetof(struct wear_dev, rf), 1);
+	add_fields(top, ntop, offsetof(struct wear_dev, top), 1);
+	add_fields(own2, NOWN(own2), 0, 1);
+	/* Since cw-wear-state-2: the top-off detector's use dips ... */
+	add_fields(top, ntop, offsetof(struct wear_dev, top), 2);
+	/* ... and the damage before the log. */
+	add_fields(own3, NOWN(own3), 0, 1);
+}
+
 /* The header row of version V (1 or 2), with its line end, made once. */
 static const struct sfmt_buf *
 header(int v)
@@ -271,6 +263,7 @@ header(int v)
 
 	if (h->n > 0)
 		return h;
+	fields();
 	sfmt_str(h, "device,first,last,");
 	sfmt_str(h, WSTATE_TAG);
 	sfmt_str(h, ",model");
@@ -308,6 +301,7 @@ wstate_write_dev(FILE *fp, const char *name, size_t namelen,
 	char t[TS_FMTMAX];
 	size_t k;
 
+	fields();
 	B.n = 0;
 	sfmt_name(&B, name, namelen);
 	sfmt_add(&B, ",", 1);
@@ -320,20 +314,12 @@ wstate_write_dev(FILE *fp, const char *name, size_t namelen,
 		sfmt_add(&B, ",", 1);
 		sfmt_field(&B, setf[k].kind, (const char *)c + setf[k].off);
 	}
-	for (k = 0; k < NDEVF; k++) {
+	for (k = 0; k < ndevf; k++) {
 		sfmt_add(&B, ",", 1);
 		sfmt_field(&B, devf[k].kind, (const char *)d + devf[k].off);
 	}
 	sfmt_add(&B, ",", 1);
-	for (k = 0; k < d->rf.n; k++) {
-		if (k > 0)
-			sfmt_add(&B, ";", 1);
-		sfmt_i64(&B, (long long)d->rf.pt[k].t);
-		sfmt_add(&B, ":", 1);
-		sfmt_dbl(&B, d->rf.pt[k].x, 0);
-		sfmt_add(&B, ":", 1);
-		sfmt_dbl(&B, d->rf.pt[k].aux, 1);
-	}
+	rf_state_put_residue(&B, &d->rf);
 	sfmt_add(&B, ",", 1);
 	for (k = 0; k < d->pre_n; k++) {
 		if (k > 0)
@@ -356,10 +342,7 @@ wstate_write_dev(FILE *fp, const char *name, size_t namelen,
 int
 wstate_write_end(FILE *fp, unsigned long rows)
 {
-	B.n = 0;
-	sfmt_str(&B, ",,," WSTATE_TAG ",end,");
-	sfmt_ul(&B, rows);
-	return sfmt_end_row(fp, &B);
+	return sfmt_write_end(fp, &B, WSTATE_TAG, rows);
 }
 
 
@@ -465,52 +448,16 @@ settings(struct rd *d, const struct csvin_rec *rec)
 	return 0;
 }
 
-/* The residue, "t:x:aux;...", into D->rf (set up by wear_init()). */
-static int
-get_rf(struct wear_dev *d, const char *s, size_t n)
-{
-	const char *p = s, *e = s + n, *q, *c1, *c2;
-	struct rf_point pt;
-	size_t cnt = 0, i;
-
-	if (n == 0)
-		return 0;
-	for (i = 0; i < n; i++)
-		cnt += s[i] == ';';
-	cnt++;
-	d->rf.pt = cw_malloc(cnt * sizeof(*d->rf.pt));
-	d->rf.cap = cnt;
-	while (p <= e) {
-		q = memchr(p, ';', (size_t)(e - p));
-		if (q == NULL)
-			q = e;
-		c1 = memchr(p, ':', (size_t)(q - p));
-		c2 = c1 != NULL ? memchr(c1 + 1, ':', (size_t)(q - c1 - 1)) :
-		    NULL;
-		if (c2 == NULL || memchr(c2 + 1, ':', (size_t)(q - c2 - 1)) !=
-		    NULL)
-			return -1;
-		if (sfmt_get_field(SFMT_TIME, p, (size_t)(c1 - p), 0, 0, &pt.t) < 0 ||
-		    sfmt_get_field(SFMT_DBL, c1 + 1, (size_t)(c2 - c1 - 1), 0, 0,
-		    &pt.x) < 0 || sfmt_get_field(SFMT_DBLN, c2 + 1,
-		    (size_t)(q - c2 - 1), 0, 0, &pt.aux) < 0)
-			return -1;
-		d->rf.pt[d->rf.n++] = pt;
-		p = q + 1;
-	}
-	return 0;
-}
-
 /* The top-off prefix, "t:t_last:n:v:i:soc;...". */
 static int
 get_pre(struct wear_dev *d, const char *s, size_t n)
 {
 	static const int kind[6] = { SFMT_TIME, SFMT_TIME, SFMT_UL, SFMT_DBLN, SFMT_DBLN,
 	    SFMT_DBLN };
-	const char *p = s, *e = s + n, *q, *c[7];
+	const char *p = s, *e = s + n, *q, *f[6];
 	struct wear_run w;
 	void *to[6];
-	size_t cnt = 0, i;
+	size_t cnt = 0, i, fl[6];
 	int k;
 
 	if (n == 0)
@@ -532,20 +479,11 @@ get_pre(struct wear_dev *d, const char *s, size_t n)
 		q = memchr(p, ';', (size_t)(e - p));
 		if (q == NULL)
 			q = e;
-		/* c[k] is the separator before subfield k, c[6] the end. */
-		c[0] = p - 1;
-		for (k = 1; k < 6; k++) {
-			c[k] = memchr(c[k - 1] + 1, ':',
-			    (size_t)(q - c[k - 1] - 1));
-			if (c[k] == NULL)
-				return -1;
-		}
-		c[6] = q;
-		if (memchr(c[5] + 1, ':', (size_t)(q - c[5] - 1)) != NULL)
+		if (sfmt_split(p, (size_t)(q - p), ':', f, fl, 6) != 6)
 			return -1;
 		for (k = 0; k < 6; k++)
-			if (sfmt_get_field(kind[k], c[k] + 1,
-			    (size_t)(c[k + 1] - c[k] - 1), 0, 0, to[k]) < 0)
+			if (sfmt_get_field(kind[k], f[k], fl[k], 0, 0,
+			    to[k]) < 0)
 				return -1;
 		d->pre[d->pre_n++] = w;
 		p = q + 1;
@@ -562,34 +500,36 @@ check_dev(const struct wear_dev *d, const struct wear_conf *c)
 {
 	static char why[160];
 	const struct wear_acc *a = &d->acc;
+	const char *bad;
 	double span_s;
 	unsigned long n;
 	size_t k;
 
 	if (a->rows == 0 || a->first > a->last)
 		return "no rows, or first after last";
-	/* Every field by its rule (struct field); times bounded by the rows'. */
+	/* Every field by its rule (SFMT_R_*); times bounded by the rows'. */
 	span_s = (double)(a->last - a->first) / CW_US_PER_S;
-	for (k = 0; k < NDEVF; k++) {
+	for (k = 0; k < ndevf; k++) {
 		const void *p = (const char *)d + devf[k].off;
-		const char *bad = NULL;
+
+		bad = NULL;
 
 		switch (devf[k].rule) {
-		case R_NONNEG:
+		case SFMT_R_NONNEG:
 			if (!(*(const double *)p >= 0))
 				bad = "is below 0";
 			break;
-		case R_SPAN_S:
+		case SFMT_R_SPAN_S:
 			if (!(*(const double *)p >= 0) || *(const double *)p >
 			    span_s * (1 + 1e-9) + 1e-6)
 				bad = "is not within the seconds from first to "
 				    "last";
 			break;
-		case R_ROWS:
+		case SFMT_R_ROWS:
 			if (*(const unsigned long *)p > a->rows)
 				bad = "is more than the rows";
 			break;
-		case R_TIME:
+		case SFMT_R_TIME:
 			if (*(const cw_time *)p != 0 && (*(const cw_time *)p <
 			    a->first || *(const cw_time *)p > a->last))
 				bad = "is a time outside first to last";
@@ -600,9 +540,8 @@ check_dev(const struct wear_dev *d, const struct wear_conf *c)
 			return why;
 		}
 	}
-	if (d->top.hold.at_top2 < 0 || d->top.hold.start > d->top.hold.end ||
-	    d->top.hold.at_top2 / 2 > d->top.hold.end - d->top.hold.start)
-		return "top_hold_at_top2 is not within its hold";
+	if ((bad = topoff_state_check(&d->top, a->last)) != NULL)
+		return bad;
 	if (d->rf.n > a->rows)
 		return "rf_pts holds more turning points than the rows";
 	if (a->rows_no_current > a->rows || a->rows_no_soc > a->rows ||
@@ -626,9 +565,6 @@ check_dev(const struct wear_dev *d, const struct wear_conf *c)
 	for (k = 0; k < d->rf.n; k++)
 		if (d->rf.pt[k].t < a->first || d->rf.pt[k].t > a->last)
 			return "rainflow turning point outside the state";
-	if (d->top.have_row != 1 || d->top.row_t != a->last ||
-	    (d->top.phase != TOPOFF_OUT && d->top.hold.signal == 0))
-		return "top-off detector inconsistent";
 	if (d->pre_n > a->rows || (d->pre_state == WEAR_PRE_LOST &&
 	    d->pre_n != 0) || (d->pre_state == WEAR_PRE_DONE &&
 	    d->pre_n == 0) || d->pre_cycles > a->topoff_cycles ||
@@ -705,7 +641,8 @@ dev_row(struct rd *d, const struct csvin_rec *rec, int v)
 		}
 	if (v == 1)
 		w.top.lvl_since = w.top.lvl_t;	/* the best it can know */
-	why = get_rf(&w, rec->f[COL_RF(v)], rec->len[COL_RF(v)]) < 0 ?
+	why = rf_state_get_residue(&w.rf, rec->f[COL_RF(v)],
+	    rec->len[COL_RF(v)]) < 0 ?
 	    "rf_pts" : get_pre(&w, rec->f[COL_PRE(v)],
 	    rec->len[COL_PRE(v)]) < 0 ? "pre_rows" : NULL;
 	if (why != NULL) {
@@ -829,6 +766,7 @@ wstate_read(struct wstate_read *r, const char *path, int strict)
 	unsigned long rep;
 	int rc;
 
+	fields();
 	memset(&d, 0, sizeof(d));
 	d.r = r;
 	d.path = path;
@@ -850,17 +788,5 @@ wstate_read(struct wstate_read *r, const char *path, int strict)
 		r->ends += rep;
 	} else
 		r->headers += rep;
-	if (!strict)
-		return 0;
-	if (d.ends == 0) {
-		cw_warn("%s: no end row: the state is cut short", name);
-		return CW_EXIT_DATA;
-	}
-	if (d.announced != d.rows) {
-		cw_warn("%s: %lu state rows, but the end rows announce %lu: "
-		    "the state is cut short or rows were lost", name, d.rows,
-		    d.announced);
-		return CW_EXIT_DATA;
-	}
-	return 0;
+	return strict ? sfmt_check_ends(name, d.ends, d.announced, d.rows) : 0;
 }

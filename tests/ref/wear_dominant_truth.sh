@@ -3,7 +3,7 @@
 # (issue 15: "dominant right for packs built for each stressor, held-full
 # dock packs included"), judged by recall and precision per cause.
 #
-# The truth: cw-synth's capacity fade (lib/synth.c, synth_pack_step; the
+# The truth: cw-synth's capacity fade (synth/synth.c, synth_pack_step; the
 # law cw-synth injects, not the Xu et al. 2018 model cw-wear uses):
 #   cycle     kf_cyc * |I| dt / (2 C0) * fa(T)
 #   calendar  kf_cal * (0.3 + 0.7 s^2) * fa(T) dt

@@ -1,5 +1,5 @@
 /*
- * synth_rng: a test driver for the random numbers of lib/synth.c, used by
+ * synth_rng: a test driver for the random numbers of synth/synth.c, used by
  * tests/ref/synth_rng.sh.
  *
  *   synth_rng SEED STREAM N
