@@ -17,6 +17,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "ocv.h"
 #include "opt.h"
 #include "optab.h"
@@ -278,7 +279,6 @@ free_devs(struct devtab *devs)
 
 	for (i = 0; i < n; i++)
 		dcir_series_free(&((struct dev *)devtab_at(devs, i))->ser);
-	devtab_free(devs);
 }
 
 /*
@@ -389,10 +389,10 @@ int
 main(int argc, char *argv[])
 {
 	struct tool t;
+	struct glue g, rg;
+	struct devtab *devs;
 	struct sampin_conf sc;
 	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of, *rf = NULL;
 	struct cap_est e;
 	const char *outpath = NULL, *rejpath = NULL;
 	void **sorted;
@@ -402,29 +402,18 @@ main(int argc, char *argv[])
 	cw_setprog("cw-capacity");
 	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv, &outpath, &rejpath);
-	argc -= k;
-	argv += k;
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, t.trend ? TREND_HEADER : EST_HEADER);
+	glue_open(&g, sizeof(struct dev), outpath, &t.out, t.trend ?
+	    TREND_HEADER : EST_HEADER);
+	devs = g.devs;
 	if (rejpath != NULL) {
-		rf = outf_open(rejpath);
-		csvout_init(&t.rej, outf_fp(rf));
-		csvout_header(&t.rej, REJECT_HEADER);
+		glue_open(&rg, 0, rejpath, &t.rej, REJECT_HEADER);
 		t.has_rej = 1;
 	}
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
-	    SAMP_SOC);
-	if (!t.conf.temp_any)
-		sc.need |= SAMP_BIT(SAMP_TEMP);
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	    SAMP_SOC) | (t.conf.temp_any ? 0 : SAMP_BIT(SAMP_TEMP)), 0,
+	    on_row, &t);
+	rc = sampin_run(&sc, argv + k, argc - k, &st);
 	if (rc == 0) {
 		/* The segments still open at the end of the input, in the
 		 * order the devices came. */
@@ -454,13 +443,10 @@ main(int argc, char *argv[])
 	}
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
-	if (t.has_rej) {
-		rc = cw_finish(&t.rej, rf, rejpath, rc);
-		csvout_free(&t.rej);
-	}
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
+	if (t.has_rej)
+		rc = glue_close(&rg, rc);
 	free_devs(devs);
+	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	ocv_free(t.ocv);
 	return rc;

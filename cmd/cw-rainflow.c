@@ -10,6 +10,7 @@
 #include "cw.h"
 #include "devtab.h"
 #include "finish.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -331,9 +332,9 @@ main(int argc, char *argv[])
 		"device,cycles,efc,max_range,mean_range,first,last"
 	};
 	struct run r;
+	struct glue g;
 	struct sampin_conf conf;
 	struct sampin_stats st;
-	struct outf *o;
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
@@ -342,31 +343,22 @@ main(int argc, char *argv[])
 	cw_setprog("cw-rainflow");
 	memset(&r, 0, sizeof(r));
 	k = parse(&r, argc, argv, &outpath);
-
-	memset(&conf, 0, sizeof(conf));
+	glue_open(&g, sizeof(struct dev), outpath, &r.w, header[r.out]);
+	r.devs = g.devs;
+	glue_sampin(&conf, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(r.col), 0, on_row, &r);
 	conf.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
-	conf.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(r.col);
-	conf.row = on_row;
-	conf.ctx = &r;
-	r.devs = devtab_new(sizeof(struct dev));
-	conf.devs = r.devs;
-
-	o = outf_open(outpath);
-	csvout_init(&r.w, outf_fp(o));
-	csvout_header(&r.w, header[r.out]);
 	rc = sampin_run(&conf, argv + k, argc - k, &st);
 	if (rc != 0)
 		/*
 		 * Rows written to standard output stay (they are whole); an
 		 * output file is not put in place.
 		 */
-		return cw_finish(&r.w, o, outpath, rc);
-	sorted = devtab_sorted(r.devs);
-	n = devtab_count(r.devs);
+		return glue_close(&g, rc);
+	sorted = glue_sorted(&g, &n);
 	for (i = 0; i < n; i++)
 		write_device(&r, sorted[i]);
-	if ((rc = cw_finish(&r.w, o, outpath, CW_EXIT_OK)) != 0)
+	if ((rc = cw_finish(&r.w, g.of, outpath, CW_EXIT_OK)) != 0)
 		return rc;
 
 	if (cw_verbose) {

@@ -13,6 +13,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -219,9 +220,7 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_str(&t->out, thermal_kind_name(ev->kind));
 	csvout_str(&t->out, thermal_zone_name(ev->zone));
-	csvout_time(&t->out, ev->start);
-	csvout_time(&t->out, ev->end);
-	csvout_num(&t->out, (double)(ev->end - ev->start) / CW_US_PER_S);
+	glue_span(&t->out, ev->start, ev->end);
 	csvout_num(&t->out, ev->temp_min);
 	csvout_num(&t->out, ev->temp_max);
 	csvout_num(&t->out, ev->charge_ah);
@@ -460,10 +459,9 @@ int
 main(int argc, char *argv[])
 {
 	struct tool t;
+	struct glue g;
 	struct sampin_conf sc;
 	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
@@ -474,32 +472,22 @@ main(int argc, char *argv[])
 	thermal_conf_default(&t.conf);
 	t.cap_ah = CW_MISSING;
 	k = parse(&t, argc, argv, &outpath);
-	argc -= k;
-	argv += k;
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
+	glue_open(&g, sizeof(struct dev), outpath, &t.out, NULL);
 	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP);
+	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0, on_row, &t);
 	if (t.by != NULL) {
 		sc.tag = t.by;
 		sc.need |= SAMP_BIT(SAMP_TAG);
 		t.vals = devtab_new(sizeof(struct byval));
 		t.pairs = devtab_new(sizeof(struct devent));
 	}
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	rc = sampin_run(&sc, argv + k, argc - k, &st);
 	if (rc == 0) {
 		/* What is still open ends with the stream, in name order. */
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
+		sorted = glue_sorted(&g, &n);
 		for (i = 0; i < n; i++)
 			thermal_finish(&((struct dev *)sorted[i])->th,
 			    &t.conf);
@@ -516,12 +504,10 @@ main(int argc, char *argv[])
 		free(sorted);
 	}
 	if (cw_verbose)
-		report(devs, &st, t.by);
+		report(g.devs, &st, t.by);
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
-	devtab_free(devs);
+	rc = glue_close(&g, rc);
 	if (t.by != NULL) {
 		devtab_free(t.vals);
 		devtab_free(t.pairs);

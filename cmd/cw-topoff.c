@@ -13,6 +13,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -192,9 +193,7 @@ on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 	if (t->mode != MODE_HOLDS)
 		return;
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
-	csvout_time(&t->out, h->start);
-	csvout_time(&t->out, h->end);
-	csvout_num(&t->out, (double)(h->end - h->start) / CW_US_PER_S);
+	glue_span(&t->out, h->start, h->end);
 	csvout_int(&t->out, (long long)h->cycles);
 	if (h->cycles > 0) {
 		csvout_num(&t->out, h->depth_sum / (double)h->cycles);
@@ -356,10 +355,9 @@ main(int argc, char *argv[])
 	static const char *const header[] = { HOLD_HEADER, EVENT_HEADER,
 	    SUMMARY_HEADER };
 	struct tool t;
+	struct glue g;
 	struct sampin_conf sc;
 	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
@@ -368,32 +366,19 @@ main(int argc, char *argv[])
 	cw_setprog("cw-topoff");
 	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv, &outpath);
-	argc -= k;
-	argv += k;
-
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, header[t.mode]);
+	glue_open(&g, sizeof(struct dev), outpath, &t.out, header[t.mode]);
 	t.conf.on_cycle = on_cycle;
 	t.conf.on_hold = on_hold;
 	t.conf.on_use = on_cycle;
 	t.conf.ctx = &t;
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT);
-	sc.need_any = SAMP_BIT(SAMP_SOC);
-	if (cw_isnum(t.conf.full_v))
-		sc.need_any |= SAMP_BIT(SAMP_VOLTAGE);
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
+	    (cw_isnum(t.conf.full_v) ? SAMP_BIT(SAMP_VOLTAGE) : 0), on_row,
+	    &t);
+	rc = sampin_run(&sc, argv + k, argc - k, &st);
 	if (rc == 0) {
 		/* Holds still open end with the stream, in name order. */
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
+		sorted = glue_sorted(&g, &n);
 		for (i = 0; i < n; i++)
 			topoff_finish(&((struct dev *)sorted[i])->top, &t.conf);
 		if (t.mode == MODE_SUMMARY)
@@ -402,12 +387,10 @@ main(int argc, char *argv[])
 		free(sorted);
 	}
 	if (cw_verbose)
-		report(devs, &st);
+		report(g.devs, &st);
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
-	devtab_free(devs);
+	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	return rc;
 }

@@ -13,6 +13,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -123,9 +124,7 @@ on_event(void *ctx, struct volt_dev *vd, const struct volt_event *ev)
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_str(&t->out, volt_kind_name(ev->kind));
 	csvout_str(&t->out, volt_limit_name(ev->limit));
-	csvout_time(&t->out, ev->start);
-	csvout_time(&t->out, ev->end);
-	csvout_num(&t->out, (double)(ev->end - ev->start) / CW_US_PER_S);
+	glue_span(&t->out, ev->start, ev->end);
 	csvout_num(&t->out, ev->v_min);
 	csvout_num(&t->out, ev->v_max);
 	csvout_num(&t->out, ev->charge_ah);
@@ -246,10 +245,9 @@ int
 main(int argc, char *argv[])
 {
 	struct tool t;
+	struct glue g;
 	struct sampin_conf sc;
 	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
@@ -258,26 +256,16 @@ main(int argc, char *argv[])
 	cw_setprog("cw-volt");
 	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv, &outpath);
-	argc -= k;
-	argv += k;
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, t.summary ? SUMMARY_HEADER : EVENT_HEADER);
+	glue_open(&g, sizeof(struct dev), outpath, &t.out, t.summary ?
+	    SUMMARY_HEADER : EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT);
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0, on_row, &t);
+	rc = sampin_run(&sc, argv + k, argc - k, &st);
 	if (rc == 0) {
 		/* What is still open ends with the stream, in name order. */
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
+		sorted = glue_sorted(&g, &n);
 		for (i = 0; i < n; i++)
 			volt_finish(&((struct dev *)sorted[i])->v, &t.conf);
 		if (t.summary)
@@ -286,12 +274,10 @@ main(int argc, char *argv[])
 		free(sorted);
 	}
 	if (cw_verbose)
-		report(devs, &st);
+		report(g.devs, &st);
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
-	devtab_free(devs);
+	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	return rc;
 }

@@ -1,0 +1,64 @@
+/*
+ * glue.c: what the tools' main() functions share (glue.h).
+ */
+#include <string.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "finish.h"
+#include "glue.h"
+#include "outf.h"
+#include "sampin.h"
+
+void
+glue_open(struct glue *g, size_t devsize, const char *path, struct csvout *w,
+    const char *header)
+{
+	g->devs = devsize > 0 ? devtab_new(devsize) : NULL;
+	g->path = path;
+	g->of = outf_open(path);
+	g->w = w;
+	csvout_init(w, outf_fp(g->of));
+	if (header != NULL)
+		csvout_header(w, header);
+}
+
+void
+glue_sampin(struct sampin_conf *sc, const struct glue *g, unsigned need,
+    unsigned need_any, int (*row)(void *, void *, const struct cw_sample *),
+    void *ctx)
+{
+	memset(sc, 0, sizeof(*sc));
+	sc->need = need;
+	sc->need_any = need_any;
+	sc->row = row;
+	sc->ctx = ctx;
+	sc->devs = g->devs;
+}
+
+void **
+glue_sorted(const struct glue *g, size_t *n)
+{
+	*n = devtab_count(g->devs);
+	return devtab_sorted(g->devs);
+}
+
+int
+glue_close(struct glue *g, int rc)
+{
+	rc = cw_finish(g->w, g->of, g->path, rc);
+	csvout_free(g->w);
+	if (g->devs != NULL)
+		devtab_free(g->devs);
+	g->devs = NULL;
+	return rc;
+}
+
+void
+glue_span(struct csvout *w, cw_time start, cw_time end)
+{
+	csvout_time(w, start);
+	csvout_time(w, end);
+	csvout_num(w, (double)(end - start) / CW_US_PER_S);
+}

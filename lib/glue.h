@@ -1,0 +1,52 @@
+/*
+ * glue.h: what the tools' main() functions share around their engines:
+ * the devices' table, the -o output and its header, a sample stream
+ * reader set up for the tool's columns, and the one ending (cw_finish).
+ * A cmd/ file is then its options, a call into lib/ and glue_close().
+ */
+#ifndef GLUE_H
+#define GLUE_H
+
+#include <stddef.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "outf.h"
+#include "sampin.h"
+
+struct glue {
+	struct devtab *devs;	/* the tool's device states */
+	struct outf *of;	/* -o FILE or standard output */
+	const char *path;	/* -o's FILE, or NULL */
+	struct csvout *w;	/* the tool's writer onto OF */
+};
+
+/*
+ * A table of device states of DEVSIZE bytes (0: none), the output PATH
+ * (NULL: standard output) opened atomically onto W, and its HEADER
+ * written (NULL: none yet).
+ */
+void	glue_open(struct glue *g, size_t devsize, const char *path,
+	    struct csvout *w, const char *header);
+/*
+ * Set SC up to read the sample stream into G's devices: the columns
+ * NEED must be there, and one of NEED_ANY when it is not 0; each row goes
+ * to ROW(CTX, its device's state, the row).
+ */
+void	glue_sampin(struct sampin_conf *sc, const struct glue *g,
+	    unsigned need, unsigned need_any,
+	    int (*row)(void *, void *, const struct cw_sample *), void *ctx);
+/* The devices in name order (free() it), their count in *N. */
+void	**glue_sorted(const struct glue *g, size_t *n);
+/*
+ * The end: cw_finish() with the run's status RC (complete rows stay, -o
+ * FILE is committed only when RC is 0 and every write went well), then
+ * the writer and the devices' table are freed.  Returns the exit status.
+ */
+int	glue_close(struct glue *g, int rc);
+
+/* A span's start, end and its length in seconds, as three fields. */
+void	glue_span(struct csvout *w, cw_time start, cw_time end);
+
+#endif
