@@ -114,7 +114,8 @@ static const struct optab opts[] = {
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0 },
 	{ "temp", 0, "LO,HI | any", "temperature window; any: none",
 	    "10,45", OPT_TEMP },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -308,9 +309,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 		case 't':
 			t->trend = 1;
 			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_CONFIDENCE:
 			t->tconf.conf = opt_num_arg("--confidence", optarg,
 			    0.5, 1);
@@ -391,8 +389,6 @@ main(int argc, char *argv[])
 	struct tool t;
 	struct glue g, rg;
 	struct devtab *devs;
-	struct sampin_conf sc;
-	struct sampin_stats st;
 	struct cap_est e;
 	const char *outpath = NULL, *rejpath = NULL;
 	void **sorted;
@@ -409,11 +405,11 @@ main(int argc, char *argv[])
 		glue_open(&rg, 0, rejpath, &t.rej, REJECT_HEADER);
 		t.has_rej = 1;
 	}
-	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
 	    SAMP_SOC) | (t.conf.temp_any ? 0 : SAMP_BIT(SAMP_TEMP)), 0,
 	    on_row, &t);
-	rc = sampin_run(&sc, argv + k, argc - k, &st);
+	rc = glue_read(&g, argv + k, argc - k);
 	if (rc == 0) {
 		/* The segments still open at the end of the input, in the
 		 * order the devices came. */
@@ -428,7 +424,7 @@ main(int argc, char *argv[])
 		}
 	}
 	if (cw_verbose)
-		report(&t, devs, &st);
+		report(&t, devs, &g.st);
 	if (t.cnt.against >= 100 && t.cnt.against > 2 * t.cnt.with)
 		cw_warn("the SoC stepped against the current on %lu rows, with "
 		    "it on %lu: is current_a positive while charging? "

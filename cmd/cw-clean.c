@@ -111,7 +111,8 @@ static const struct optab opts[] = {
 	    OPTAB_DUR, O(c.step), 0, 0 },
 	{ "tz", 0, "+hh:mm", "offset of local times without a zone", "UTC",
 	    OPT_TZ },
-	{ "verbose", 'v', NULL, "print counts to stderr", NULL, 0 },
+	{ "verbose", 'v', NULL, "print counts to stderr", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -250,9 +251,6 @@ parse(struct opts *o, int argc, char *argv[])
 			break;
 		case 'd':
 			c->delim = delim_arg(optarg);
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_BOUNDS:
 			bounds_arg(c, optarg, o->set);

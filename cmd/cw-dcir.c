@@ -127,7 +127,8 @@ static const struct optab opts[] = {
 	{ "temp", 0, "LO,HI", "temperature window", "10,45", OPT_TEMP },
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0,
 	    OPTAB_FLAG, T(trend), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -444,9 +445,6 @@ parse(struct tool *t, int argc, char *argv[])
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_CONFIDENCE:
 			t->tconf.conf = opt_num_arg("--confidence", optarg,
 			    0.5, 1);

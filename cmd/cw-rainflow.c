@@ -41,7 +41,8 @@ static const struct optab opts[] = {
 	    NULL, 0 },
 	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
 	    OPT_SIGNAL },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -284,9 +285,6 @@ parse(struct run *r, int argc, char *argv[], const char **outpath)
 		case 'o':
 			*outpath = optarg;
 			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_HISTOGRAM:
 			r->out = OUT_HISTOGRAM;
 			r->rw = width_arg("--histogram", optarg);
@@ -333,8 +331,6 @@ main(int argc, char *argv[])
 	};
 	struct run r;
 	struct glue g;
-	struct sampin_conf conf;
-	struct sampin_stats st;
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
@@ -345,10 +341,10 @@ main(int argc, char *argv[])
 	k = parse(&r, argc, argv, &outpath);
 	glue_open(&g, sizeof(struct dev), outpath, &r.w, header[r.out]);
 	r.devs = g.devs;
-	glue_sampin(&conf, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(r.col), 0, on_row, &r);
-	conf.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
-	rc = sampin_run(&conf, argv + k, argc - k, &st);
+	g.sc.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
+	rc = glue_read(&g, argv + k, argc - k);
 	if (rc != 0)
 		/*
 		 * Rows written to standard output stay (they are whole); an
@@ -371,14 +367,14 @@ main(int argc, char *argv[])
 			all.full += d->sum.full;
 			all.half += d->sum.half;
 		}
-		sampin_report(&st, conf.extra);
+		sampin_report(&g.st, g.sc.extra);
 		cw_warn("%zu device%s, %g cycles (%lu full, %lu half)", n,
 		    n == 1 ? "" : "s", all.cycles, all.full, all.half);
 		cw_warn("%lu rows without a numeric %s value skipped",
 		    r.nosig, r.signal);
-	} else if (st.used > 0 && r.nosig == st.used)
+	} else if (g.st.used > 0 && r.nosig == g.st.used)
 		cw_warn("no row has a numeric %s value (%lu rows)", r.signal,
-		    st.used);
+		    g.st.used);
 	for (i = 0; i < n; i++) {
 		struct dev *d = sorted[i];
 

@@ -57,7 +57,8 @@ static const struct optab opts[] = {
 	    "beside a listed pack", "10", OPT_TOPOFF },
 	{ "tz", 0, "+HH:MM", "dates at this offset from UTC", "UTC", OPT_TZ },
 	{ "verbose", 'v', NULL, "say what each input file was taken for",
-	    NULL, 0 },
+	    NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -98,9 +99,6 @@ main(int argc, char *argv[])
 			break;
 		case 'o':
 			outpath = optarg;
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_BY:
 			if (strcmp(optarg, "site") == 0)

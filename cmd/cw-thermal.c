@@ -113,7 +113,8 @@ static const struct optab opts[] = {
 	    "instead of one per event", NULL, 0 },
 	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
 	    OPT_USE_LIMITS },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ "warm-margin", 0, "V", "voltage per cell allowed above the warm "
 	    "voltage", "0.02", OPT_WARM_MARGIN,
 	    OPTAB_NUM, T(conf.warm_margin), 0, 1 },
@@ -143,6 +144,7 @@ static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
 static void	write_summary(struct tool *t, const struct dev *d);
+static void	end_dev(void *ctx, void *dev);
 static struct byval *by_value(struct tool *t, struct dev *d,
 		    const struct cw_sample *s);
 static void	write_by_header(struct tool *t);
@@ -321,6 +323,18 @@ write_by_summary(struct tool *t, const struct byval *v)
 	csvout_endrow(&t->out);
 }
 
+/* The end of the stream for device DEV: its open event, its summary. */
+static void
+end_dev(void *ctx, void *dev)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	thermal_finish(&d->th, &t->conf);
+	if (t->summary && t->by == NULL)
+		write_summary(t, d);
+}
+
 static void
 write_summary(struct tool *t, const struct dev *d)
 {
@@ -403,9 +417,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		case 's':
 			t->summary = 1;
 			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_BY:
 			if (optarg[0] == '\0')
 				cw_usage_error("--by: empty column name");
@@ -460,8 +471,6 @@ main(int argc, char *argv[])
 {
 	struct tool t;
 	struct glue g;
-	struct sampin_conf sc;
-	struct sampin_stats st;
 	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
@@ -476,26 +485,18 @@ main(int argc, char *argv[])
 	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0, on_row, &t);
 	if (t.by != NULL) {
-		sc.tag = t.by;
-		sc.need |= SAMP_BIT(SAMP_TAG);
+		g.sc.tag = t.by;
+		g.sc.need |= SAMP_BIT(SAMP_TAG);
 		t.vals = devtab_new(sizeof(struct byval));
 		t.pairs = devtab_new(sizeof(struct devent));
 	}
-	rc = sampin_run(&sc, argv + k, argc - k, &st);
-	if (rc == 0) {
-		/* What is still open ends with the stream, in name order. */
-		sorted = glue_sorted(&g, &n);
-		for (i = 0; i < n; i++)
-			thermal_finish(&((struct dev *)sorted[i])->th,
-			    &t.conf);
-		if (t.summary && t.by == NULL)
-			for (i = 0; i < n; i++)
-				write_summary(&t, sorted[i]);
-		free(sorted);
-	}
+	rc = glue_read(&g, argv + k, argc - k);
+	/* What is still open ends with the stream, in name order. */
+	if (rc == 0)
+		glue_each(&g, end_dev, &t);
 	if (rc == 0 && t.summary && t.by != NULL) {
 		sorted = devtab_sorted(t.vals);
 		n = devtab_count(t.vals);
@@ -504,7 +505,7 @@ main(int argc, char *argv[])
 		free(sorted);
 	}
 	if (cw_verbose)
-		report(g.devs, &st, t.by);
+		report(g.devs, &g.st, t.by);
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
 	rc = glue_close(&g, rc);

@@ -99,7 +99,8 @@ static const struct optab opts[] = {
 	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
 	    OPT_USE_DIPS,
 	    OPTAB_FLAG, T(use_dips), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -120,6 +121,7 @@ static void	on_cycle(void *ctx, struct topoff *top,
 static void	on_hold(void *ctx, struct topoff *top,
 		    const struct topoff_hold *h);
 static void	write_summary(struct tool *t, const struct dev *d);
+static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
 /* The device state that embeds TOP. */
@@ -205,6 +207,18 @@ on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 	csvout_num(&t->out, h->topoff_ah);
 	csvout_int(&t->out, (long long)h->use_dips);
 	csvout_endrow(&t->out);
+}
+
+/* The end of the stream for device DEV: its open hold, its summary. */
+static void
+end_dev(void *ctx, void *dev)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	topoff_finish(&d->top, &t->conf);
+	if (t->mode == MODE_SUMMARY)
+		write_summary(t, d);
 }
 
 static void
@@ -307,9 +321,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		case 's':
 			summary = 1;
 			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_CAPACITY:
 			t->capacity = opt_num_arg("--capacity", optarg, 0,
 			    1e6);
@@ -356,11 +367,7 @@ main(int argc, char *argv[])
 	    SUMMARY_HEADER };
 	struct tool t;
 	struct glue g;
-	struct sampin_conf sc;
-	struct sampin_stats st;
 	const char *outpath = NULL;
-	void **sorted;
-	size_t i, n;
 	int rc, k;
 
 	cw_setprog("cw-topoff");
@@ -371,23 +378,16 @@ main(int argc, char *argv[])
 	t.conf.on_hold = on_hold;
 	t.conf.on_use = on_cycle;
 	t.conf.ctx = &t;
-	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
 	    (cw_isnum(t.conf.full_v) ? SAMP_BIT(SAMP_VOLTAGE) : 0), on_row,
 	    &t);
-	rc = sampin_run(&sc, argv + k, argc - k, &st);
-	if (rc == 0) {
-		/* Holds still open end with the stream, in name order. */
-		sorted = glue_sorted(&g, &n);
-		for (i = 0; i < n; i++)
-			topoff_finish(&((struct dev *)sorted[i])->top, &t.conf);
-		if (t.mode == MODE_SUMMARY)
-			for (i = 0; i < n; i++)
-				write_summary(&t, sorted[i]);
-		free(sorted);
-	}
+	rc = glue_read(&g, argv + k, argc - k);
+	/* Holds still open end with the stream, in name order. */
+	if (rc == 0)
+		glue_each(&g, end_dev, &t);
 	if (cw_verbose)
-		report(g.devs, &st);
+		report(g.devs, &g.st);
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
 	rc = glue_close(&g, rc);

@@ -52,6 +52,7 @@ static void	on_event(void *ctx, struct volt_dev *vd,
 		    const struct volt_event *ev);
 static void	num_or_empty(struct csvout *o, double x);
 static void	write_summary(struct tool *t, const struct dev *d);
+static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
 
@@ -84,7 +85,8 @@ static const struct optab opts[] = {
 	    "output", NULL, 0 },
 	{ "summary", 's', NULL, "one row per device instead of one per event",
 	    NULL, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -142,6 +144,18 @@ num_or_empty(struct csvout *o, double x)
 		csvout_num(o, x);
 	else
 		csvout_empty(o);
+}
+
+/* The end of the stream for device DEV: its open event, its summary. */
+static void
+end_dev(void *ctx, void *dev)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	volt_finish(&d->v, &t->conf);
+	if (t->summary)
+		write_summary(t, d);
 }
 
 static void
@@ -220,9 +234,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		case 's':
 			t->summary = 1;
 			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
 			break;
@@ -246,11 +257,7 @@ main(int argc, char *argv[])
 {
 	struct tool t;
 	struct glue g;
-	struct sampin_conf sc;
-	struct sampin_stats st;
 	const char *outpath = NULL;
-	void **sorted;
-	size_t i, n;
 	int rc, k;
 
 	cw_setprog("cw-volt");
@@ -260,21 +267,14 @@ main(int argc, char *argv[])
 	    SUMMARY_HEADER : EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-	glue_sampin(&sc, &g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0, on_row, &t);
-	rc = sampin_run(&sc, argv + k, argc - k, &st);
-	if (rc == 0) {
-		/* What is still open ends with the stream, in name order. */
-		sorted = glue_sorted(&g, &n);
-		for (i = 0; i < n; i++)
-			volt_finish(&((struct dev *)sorted[i])->v, &t.conf);
-		if (t.summary)
-			for (i = 0; i < n; i++)
-				write_summary(&t, sorted[i]);
-		free(sorted);
-	}
+	rc = glue_read(&g, argv + k, argc - k);
+	/* What is still open ends with the stream, in name order. */
+	if (rc == 0)
+		glue_each(&g, end_dev, &t);
 	if (cw_verbose)
-		report(g.devs, &st);
+		report(g.devs, &g.st);
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
 	rc = glue_close(&g, rc);

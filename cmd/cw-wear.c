@@ -16,6 +16,7 @@
 #include "dwell.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "measured.h"
 #include "lock.h"
 #include "model.h"
@@ -134,7 +135,8 @@ static const struct optab opts[] = {
 	{ "state-out", 0, NULL, "write the states instead of the report",
 	    NULL, OPT_STATE_OUT,
 	    OPTAB_FLAG, R(state_out), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
+	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
+	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -358,11 +360,8 @@ static int
 dwell_run(struct run *r, char **argv, int argc)
 {
 	struct dwell_conf dc;
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g;
 	struct csvout w;
-	struct outf *of;
-	struct devtab *devs;
 	struct ddev **v;
 	unsigned long skipped = 0, empty = 0;
 	size_t n, k;
@@ -370,22 +369,15 @@ dwell_run(struct run *r, char **argv, int argc)
 
 	dwell_conf_set(&dc, &r->conf.lim, r->conf.min_current,
 	    r->conf.max_gap);
-	devs = devtab_new(sizeof(struct ddev));
-	of = outf_open(r->out);
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
-	sc.row = on_dwell;
-	sc.ctx = &dc;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_open(&g, sizeof(struct ddev), r->out, &w, NULL);
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), 0, on_dwell, &dc);
+	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
-		sampin_report(&st, NULL);
+		sampin_report(&g.st, NULL);
 	if (rc != 0)
-		return rc;
-	v = (struct ddev **)devtab_sorted(devs);
-	n = devtab_count(devs);
-	csvout_init(&w, outf_fp(of));
+		return glue_close(&g, rc);
+	v = (struct ddev **)glue_sorted(&g, &n);
 	csvout_header(&w, HEADER_DWELL);
 	for (k = 0; k < n; k++) {
 		const struct dwell_dev *d = &v[k]->d;
@@ -406,14 +398,12 @@ dwell_run(struct run *r, char **argv, int argc)
 				csvout_endrow(&w);
 			}
 	}
-	rc = cw_finish(&w, of, r->out, 0);
-	csvout_free(&w);
+	free(v);
+	rc = glue_close(&g, 0);
 	if (rc == 0 && cw_verbose)
 		cw_warn("%zu devices, %lu of them without two rows with SoC "
 		    "and temperature (no rows); %lu rows without SoC or "
 		    "temperature passed over", n, empty, skipped);
-	free(v);
-	devtab_free(devs);
 	return rc;
 }
 
@@ -526,9 +516,6 @@ parse(struct run *r, int argc, char *argv[])
 	optab_init(&op, &tool, r);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_FULL:
 			r->conf.topoff.full_pct = opt_num_arg("--full", optarg,
 			    0, 100);

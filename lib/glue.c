@@ -1,6 +1,7 @@
 /*
  * glue.c: what the tools' main() functions share (glue.h).
  */
+#include <stdlib.h>
 #include <string.h>
 
 #include "csvout.h"
@@ -15,6 +16,7 @@ void
 glue_open(struct glue *g, size_t devsize, const char *path, struct csvout *w,
     const char *header)
 {
+	memset(g, 0, sizeof(*g));
 	g->devs = devsize > 0 ? devtab_new(devsize) : NULL;
 	g->path = path;
 	g->of = outf_open(path);
@@ -25,16 +27,35 @@ glue_open(struct glue *g, size_t devsize, const char *path, struct csvout *w,
 }
 
 void
-glue_sampin(struct sampin_conf *sc, const struct glue *g, unsigned need,
-    unsigned need_any, int (*row)(void *, void *, const struct cw_sample *),
-    void *ctx)
+glue_sampin(struct glue *g, unsigned need, unsigned need_any,
+    int (*row)(void *, void *, const struct cw_sample *), void *ctx)
 {
+	struct sampin_conf *sc = &g->sc;
+
 	memset(sc, 0, sizeof(*sc));
 	sc->need = need;
 	sc->need_any = need_any;
 	sc->row = row;
 	sc->ctx = ctx;
 	sc->devs = g->devs;
+}
+
+int
+glue_read(struct glue *g, char **files, int n)
+{
+	return sampin_run(&g->sc, files, n, &g->st);
+}
+
+void
+glue_each(const struct glue *g, void (*fn)(void *, void *), void *ctx)
+{
+	void **v;
+	size_t i, n;
+
+	v = glue_sorted(g, &n);
+	for (i = 0; i < n; i++)
+		fn(ctx, v[i]);
+	free(v);
 }
 
 void **

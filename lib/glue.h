@@ -20,6 +20,8 @@ struct glue {
 	struct outf *of;	/* -o FILE or standard output */
 	const char *path;	/* -o's FILE, or NULL */
 	struct csvout *w;	/* the tool's writer onto OF */
+	struct sampin_conf sc;	/* the reader, as glue_sampin() sets it */
+	struct sampin_stats st;	/* its counts, after glue_read() */
 };
 
 /*
@@ -30,13 +32,18 @@ struct glue {
 void	glue_open(struct glue *g, size_t devsize, const char *path,
 	    struct csvout *w, const char *header);
 /*
- * Set SC up to read the sample stream into G's devices: the columns
- * NEED must be there, and one of NEED_ANY when it is not 0; each row goes
- * to ROW(CTX, its device's state, the row).
+ * Set G's reader up to read the sample stream into its devices: the
+ * columns NEED must be there, and one of NEED_ANY when it is not 0; each
+ * row goes to ROW(CTX, its device's state, the row).  G->sc may then be
+ * changed further (a text column, an extra one).
  */
-void	glue_sampin(struct sampin_conf *sc, const struct glue *g,
-	    unsigned need, unsigned need_any,
+void	glue_sampin(struct glue *g, unsigned need, unsigned need_any,
 	    int (*row)(void *, void *, const struct cw_sample *), void *ctx);
+/* Read FILES[0..N) (standard input when N is 0); 0 or an exit code. */
+int	glue_read(struct glue *g, char **files, int n);
+/* FN(CTX, state) for each device in name order. */
+void	glue_each(const struct glue *g, void (*fn)(void *, void *),
+	    void *ctx);
 /* The devices in name order (free() it), their count in *N. */
 void	**glue_sorted(const struct glue *g, size_t *n);
 /*

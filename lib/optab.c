@@ -99,6 +99,9 @@ store(const struct optab *o, void *base, const char *v)
 	case OPTAB_STR:
 		*(const char **)(void *)at = v;
 		break;
+	case OPTAB_VERBOSE:
+		cw_verbose = 1;
+		break;
 	}
 }
 
@@ -108,11 +111,15 @@ stored(const struct optparse *p, int ch)
 {
 	const struct optab *o;
 
-	if (p->base == NULL)
-		return NULL;
-	for (o = p->tool->opts; o->name != NULL; o++)
-		if (id_of(o) == ch)
-			return o->kind != OPTAB_CASE ? o : NULL;
+	for (o = p->tool->opts; o->name != NULL; o++) {
+		if (id_of(o) != ch)
+			continue;
+		/* Without a struct only what needs none is stored. */
+		if (o->kind == OPTAB_CASE || (p->base == NULL &&
+		    o->kind != OPTAB_VERBOSE))
+			return NULL;
+		return o;
+	}
 	return NULL;
 }
 

@@ -30,7 +30,8 @@ enum optab_kind {
 	OPTAB_DUR,	/* cw_time, opt_dur_arg(zero allowed when LO < 0) */
 	OPTAB_TEMPDIFF,	/* double, opt_tempdiff_arg() */
 	OPTAB_FLAG,	/* int set to 1 */
-	OPTAB_STR	/* const char *, the value as given */
+	OPTAB_STR,	/* const char *, the value as given */
+	OPTAB_VERBOSE	/* sets cw_verbose (cw.h); OFF unused */
 };
 
 struct optab {
