@@ -111,8 +111,6 @@ static const struct optab opts[] = {
 	    OPTAB_DUR, O(c.step), 0, 0 },
 	{ "tz", 0, "+hh:mm", "offset of local times without a zone", "UTC",
 	    OPT_TZ },
-	{ "verbose", 'v', NULL, "print counts to stderr", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -122,7 +120,8 @@ static const struct optool tool = {
 	"device,time,voltage_v,current_a,temp_c,soc_pct (then the --keep\n"
 	"columns).\n",
 	"Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"print counts to stderr"
 };
 
 static void bounds_arg(struct clean_conf *, const char *, int *);

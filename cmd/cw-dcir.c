@@ -127,8 +127,6 @@ static const struct optab opts[] = {
 	{ "temp", 0, "LO,HI", "temperature window", "10,45", OPT_TEMP },
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0,
 	    OPTAB_FLAG, T(trend), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -138,7 +136,8 @@ static const struct optool tool = {
 	"device.\n",
 	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without "
 	"one).\nDurations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);

@@ -41,8 +41,6 @@ static const struct optab opts[] = {
 	    NULL, 0 },
 	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
 	    OPT_SIGNAL },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -50,7 +48,8 @@ static const struct optool tool = {
 	"cw-rainflow", "[FILE ...]",
 	"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
 	"--histogram, --matrix and --summary exclude each other.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 /* One device's state; the devtab header comes first. */

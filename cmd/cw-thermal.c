@@ -113,8 +113,6 @@ static const struct optab opts[] = {
 	    "instead of one per event", NULL, 0 },
 	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
 	    OPT_USE_LIMITS },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ "warm-margin", 0, "V", "voltage per cell allowed above the warm "
 	    "voltage", "0.02", OPT_WARM_MARGIN,
 	    OPTAB_NUM, T(conf.warm_margin), 0, 1 },
@@ -134,7 +132,8 @@ static const struct optool tool = {
 	"one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
 	"Durations take 90, 90s, 15m, 2h, 1d.\n"
 	"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static int	parse(struct tool *t, int argc, char *argv[],

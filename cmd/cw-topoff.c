@@ -99,8 +99,6 @@ static const struct optab opts[] = {
 	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
 	    OPT_USE_DIPS,
 	    OPTAB_FLAG, T(use_dips), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -110,7 +108,8 @@ static const struct optool tool = {
 	"driven by use (discharge above the standby level) are counted\n"
 	"apart.\n",
 	"Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static struct dev *dev_of(struct topoff *top);

@@ -85,8 +85,6 @@ static const struct optab opts[] = {
 	    "output", NULL, 0 },
 	{ "summary", 's', NULL, "one row per device instead of one per event",
 	    NULL, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -97,7 +95,8 @@ static const struct optool tool = {
 	"The default limits are typical of NMC and LCO cells, from memory;\n"
 	"LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
 	"maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static int

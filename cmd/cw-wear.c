@@ -135,8 +135,6 @@ static const struct optab opts[] = {
 	{ "state-out", 0, NULL, "write the states instead of the report",
 	    NULL, OPT_STATE_OUT,
 	    OPTAB_FLAG, R(state_out), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0,
-	    OPTAB_VERBOSE, 0, 0, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -147,7 +145,8 @@ static const struct optool tool = {
 	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; durations "
 	"90, 90s,\n15m, 2h, 1d.  The tools advise; they are not a safety "
 	"system.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static int on_row(void *, void *, const struct cw_sample *);
