@@ -209,22 +209,13 @@ write_trend(struct tool *t, struct dev *d)
 	cap_trend_fit(&d->ser, d->cd.rated_ah, &t->tconf, &tr);
 	csvout_strn(w, d->e.name, d->e.namelen);
 	csvout_int(w, (long long)d->ser.steps);
-	if (d->ser.steps > 0) {
-		csvout_time(w, d->ser.first);
-		csvout_time(w, d->ser.last);
-	} else {
-		csvout_empty(w);
-		csvout_empty(w);
-	}
+	glue_first_last(w, d->ser.steps > 0, d->ser.first, d->ser.last);
 	csvout_num(w, tr.cap_start);
 	csvout_num(w, tr.cap_end);
 	csvout_num(w, tr.fade_pct);
 	csvout_num(w, tr.fade_30d);
 	csvout_num(w, tr.soh_pct);
-	if (tr.has_eol)
-		csvout_date(w, tr.eol_t);
-	else
-		csvout_empty(w);
+	glue_date(w, tr.has_eol, tr.eol_t);
 	csvout_num(w, tr.slope);
 	csvout_num(w, tr.slope_lo);
 	csvout_num(w, tr.slope_hi);

@@ -16,6 +16,7 @@
 #include "finish.h"
 #include "dcir.h"
 #include "dcirstate.h"
+#include "glue.h"
 #include "lock.h"
 #include "devtab.h"
 #include "opt.h"
@@ -216,21 +217,12 @@ write_trend(struct tool *t, struct dev *d)
 	dcir_trend_fit_window(&d->ds.ser, &t->tconf, lo, &tr);
 	csvout_strn(w, d->e.name, d->e.namelen);
 	csvout_int(w, (long long)tr.steps);
-	if (tr.steps > 0) {
-		csvout_time(w, tr.first);
-		csvout_time(w, tr.last);
-	} else {
-		csvout_empty(w);
-		csvout_empty(w);
-	}
+	glue_first_last(w, tr.steps > 0, tr.first, tr.last);
 	csvout_num(w, tr.r_start);
 	csvout_num(w, tr.r_end);
 	csvout_num(w, tr.growth_pct);
 	csvout_num(w, tr.growth_30d);
-	if (tr.has_eol)
-		csvout_date(w, tr.eol_t);
-	else
-		csvout_empty(w);
+	glue_date(w, tr.has_eol, tr.eol_t);
 	if (tr.fitted)
 		csvout_int(w, (long long)tr.used);
 	else

@@ -492,10 +492,8 @@ main(int argc, char *argv[])
 		t.vals = devtab_new(sizeof(struct byval));
 		t.pairs = devtab_new(sizeof(struct devent));
 	}
-	rc = glue_read(&g, argv + k, argc - k);
 	/* What is still open ends with the stream, in name order. */
-	if (rc == 0)
-		glue_each(&g, end_dev, &t);
+	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (rc == 0 && t.summary && t.by != NULL) {
 		sorted = devtab_sorted(t.vals);
 		n = devtab_count(t.vals);
@@ -505,8 +503,6 @@ main(int argc, char *argv[])
 	}
 	if (cw_verbose)
 		report(g.devs, &g.st, t.by);
-	/* After a data error, complete rows written so far stay; -o FILE
-	 * is not committed and keeps its old contents. */
 	rc = glue_close(&g, rc);
 	if (t.by != NULL) {
 		devtab_free(t.vals);

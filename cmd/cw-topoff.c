@@ -381,14 +381,10 @@ main(int argc, char *argv[])
 	    SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
 	    (cw_isnum(t.conf.full_v) ? SAMP_BIT(SAMP_VOLTAGE) : 0), on_row,
 	    &t);
-	rc = glue_read(&g, argv + k, argc - k);
 	/* Holds still open end with the stream, in name order. */
-	if (rc == 0)
-		glue_each(&g, end_dev, &t);
+	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (cw_verbose)
 		report(g.devs, &g.st);
-	/* After a data error, complete rows written so far stay; -o FILE
-	 * is not committed and keeps its old contents. */
 	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	return rc;

@@ -268,14 +268,10 @@ main(int argc, char *argv[])
 	t.conf.ctx = &t;
 	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0, on_row, &t);
-	rc = glue_read(&g, argv + k, argc - k);
 	/* What is still open ends with the stream, in name order. */
-	if (rc == 0)
-		glue_each(&g, end_dev, &t);
+	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (cw_verbose)
 		report(g.devs, &g.st);
-	/* After a data error, complete rows written so far stay; -o FILE
-	 * is not committed and keeps its old contents. */
 	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	return rc;

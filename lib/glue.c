@@ -46,6 +46,17 @@ glue_read(struct glue *g, char **files, int n)
 	return sampin_run(&g->sc, files, n, &g->st);
 }
 
+int
+glue_run(struct glue *g, char **files, int n, void (*end)(void *, void *),
+    void *ctx)
+{
+	int rc = glue_read(g, files, n);
+
+	if (rc == 0 && end != NULL)
+		glue_each(g, end, ctx);
+	return rc;
+}
+
 void
 glue_each(const struct glue *g, void (*fn)(void *, void *), void *ctx)
 {
@@ -82,4 +93,25 @@ glue_span(struct csvout *w, cw_time start, cw_time end)
 	csvout_time(w, start);
 	csvout_time(w, end);
 	csvout_num(w, (double)(end - start) / CW_US_PER_S);
+}
+
+void
+glue_first_last(struct csvout *w, int have, cw_time first, cw_time last)
+{
+	if (have) {
+		csvout_time(w, first);
+		csvout_time(w, last);
+	} else {
+		csvout_empty(w);
+		csvout_empty(w);
+	}
+}
+
+void
+glue_date(struct csvout *w, int have, cw_time t)
+{
+	if (have)
+		csvout_date(w, t);
+	else
+		csvout_empty(w);
 }

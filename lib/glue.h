@@ -41,6 +41,13 @@ void	glue_sampin(struct glue *g, unsigned need, unsigned need_any,
 	    int (*row)(void *, void *, const struct cw_sample *), void *ctx);
 /* Read FILES[0..N) (standard input when N is 0); 0 or an exit code. */
 int	glue_read(struct glue *g, char **files, int n);
+/*
+ * glue_read(), then, when it went well, END(CTX, state) for each device
+ * in name order (END NULL: none): the end of the stream for each.
+ * Returns 0 or an exit code.
+ */
+int	glue_run(struct glue *g, char **files, int n,
+	    void (*end)(void *, void *), void *ctx);
 /* FN(CTX, state) for each device in name order. */
 void	glue_each(const struct glue *g, void (*fn)(void *, void *),
 	    void *ctx);
@@ -55,5 +62,10 @@ int	glue_close(struct glue *g, int rc);
 
 /* A span's start, end and its length in seconds, as three fields. */
 void	glue_span(struct csvout *w, cw_time start, cw_time end);
+/* FIRST and LAST as two times when HAVE, else two empty fields. */
+void	glue_first_last(struct csvout *w, int have, cw_time first,
+	    cw_time last);
+/* T as a date when HAVE, else an empty field. */
+void	glue_date(struct csvout *w, int have, cw_time t);
 
 #endif
