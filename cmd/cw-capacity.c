@@ -47,6 +47,8 @@ struct dev {
 };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
+	const char *rejpath;	/* --rejects FILE, or NULL */
 	struct cap_conf conf;
 	struct cap_trend_conf tconf;
 	struct cap_counts cnt;
@@ -106,7 +108,8 @@ static const struct optab opts[] = {
 	    OPT_OCV_SPAN,
 	    OPTAB_DUR, T(conf.ocv_span), 0, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "rated", 0, "AH", "rated capacity of every pack", "none",
 	    OPT_RATED },
 	{ "rejects", 0, "FILE", "write the rejected segments and why to FILE",
@@ -277,8 +280,7 @@ free_devs(struct devtab *devs)
  * *OUTPATH and *REJPATH; the index of the first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath,
-    const char **rejpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL, *ocvpath = NULL;
@@ -293,9 +295,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 't':
 			t->trend = 1;
 			break;
@@ -347,7 +346,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 				    optarg);
 			break;
 		case OPT_REJECTS:
-			*rejpath = optarg;
+			t->rejpath = optarg;
 			break;
 		case OPT_TEMP:
 			if (strcmp(optarg, "any") == 0) {
@@ -362,7 +361,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 		}
 	}
 	optab_free(&op);
-	if (*rejpath != NULL && strcmp(*rejpath, "-") == 0)
+	if (t->rejpath != NULL && strcmp(t->rejpath, "-") == 0)
 		cw_usage_error("--rejects: standard output holds the "
 		    "estimates; name a file");
 
@@ -380,19 +379,18 @@ main(int argc, char *argv[])
 	struct glue g, rg;
 	struct devtab *devs;
 	struct cap_est e;
-	const char *outpath = NULL, *rejpath = NULL;
 	void **sorted;
 	size_t i, n;
 	int rc, k;
 
 	cw_setprog("cw-capacity");
 	memset(&t, 0, sizeof(t));
-	k = parse(&t, argc, argv, &outpath, &rejpath);
-	glue_open(&g, sizeof(struct dev), outpath, &t.out, t.trend ?
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.trend ?
 	    TREND_HEADER : EST_HEADER);
 	devs = g.devs;
-	if (rejpath != NULL) {
-		glue_open(&rg, 0, rejpath, &t.rej, REJECT_HEADER);
+	if (t.rejpath != NULL) {
+		glue_open(&rg, 0, t.rejpath, &t.rej, REJECT_HEADER);
 		t.has_rej = 1;
 	}
 	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |

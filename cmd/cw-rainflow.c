@@ -2,6 +2,7 @@
  * cw-rainflow: rainflow cycle counting per device (ASTM E1049-85) over
  * the sample stream.  The counting is lib/rainflow.c; this is the glue.
  */
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -19,10 +20,38 @@
 
 enum { OUT_CYCLES, OUT_HISTOGRAM, OUT_MATRIX, OUT_SUMMARY };
 
+/* One device's state; the devtab header comes first. */
+struct dev {
+	struct devent e;
+	int ready;		/* rf and hist initialised */
+	struct rf_state rf;
+	struct rf_hist hist;
+	struct rf_sum sum;
+	cw_time first, last;	/* of the samples with a numeric signal */
+	unsigned long nsig;	/* how many */
+};
+
+struct run {
+	const char *outpath;	/* -o FILE, or NULL */
+	int out;		/* OUT_* */
+	int residue;		/* RF_RESIDUE_* */
+	int col;		/* the signal's sampin column */
+	const char *signal;	/* its name */
+	int efc;		/* the signal is SoC: write efc */
+	double hyst, rw, mw;
+	struct csvout w;
+	struct devtab *devs;
+	struct dev *cur;	/* the device emit() counts for */
+	unsigned long nosig;	/* rows without a numeric signal */
+};
+
 enum {
 	OPT_HISTOGRAM = OPTAB_LONG, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
 	OPT_SIGNAL
 };
+
+/* Where an option of the table is stored: a member of struct run. */
+#define R(m)	offsetof(struct run, m)
 
 static const struct optab opts[] = {
 	{ "histogram", 0, "WIDTH", "one row per range bin of width WIDTH",
@@ -33,7 +62,8 @@ static const struct optab opts[] = {
 	    "bins WIDTH wide and mean bins MEAN_WIDTH wide", "WIDTH",
 	    OPT_MATRIX },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, R(outpath), 0, 0 },
 	{ "residue", 0, "half|full|repeat", "count the residue as half "
 	    "cycles, full cycles, or as if the history repeated", "half",
 	    OPT_RESIDUE },
@@ -52,31 +82,7 @@ static const struct optool tool = {
 	"report counts on standard error"
 };
 
-/* One device's state; the devtab header comes first. */
-struct dev {
-	struct devent e;
-	int ready;		/* rf and hist initialised */
-	struct rf_state rf;
-	struct rf_hist hist;
-	struct rf_sum sum;
-	cw_time first, last;	/* of the samples with a numeric signal */
-	unsigned long nsig;	/* how many */
-};
-
-struct run {
-	int out;		/* OUT_* */
-	int residue;		/* RF_RESIDUE_* */
-	int col;		/* the signal's sampin column */
-	const char *signal;	/* its name */
-	int efc;		/* the signal is SoC: write efc */
-	double hyst, rw, mw;
-	struct csvout w;
-	struct devtab *devs;
-	struct dev *cur;	/* the device emit() counts for */
-	unsigned long nosig;	/* rows without a numeric signal */
-};
-
-static int parse(struct run *, int, char *[], const char **);
+static int parse(struct run *, int, char *[]);
 static double width_arg(const char *, const char *);
 static double nonneg_arg(const char *, const char *);
 static void matrix_arg(struct run *, const char *);
@@ -268,7 +274,7 @@ write_summary(struct run *r, struct dev *d)
  * first operand.
  */
 static int
-parse(struct run *r, int argc, char *argv[], const char **outpath)
+parse(struct run *r, int argc, char *argv[])
 {
 	struct optparse op;
 	int ch, nout = 0;
@@ -278,12 +284,9 @@ parse(struct run *r, int argc, char *argv[], const char **outpath)
 	r->hyst = 1;
 	r->rw = 1;
 	signal_arg(r, "soc_pct");
-	optab_init(&op, &tool, NULL);
+	optab_init(&op, &tool, r);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case OPT_HISTOGRAM:
 			r->out = OUT_HISTOGRAM;
 			r->rw = width_arg("--histogram", optarg);
@@ -330,15 +333,14 @@ main(int argc, char *argv[])
 	};
 	struct run r;
 	struct glue g;
-	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
 	int rc, k;
 
 	cw_setprog("cw-rainflow");
 	memset(&r, 0, sizeof(r));
-	k = parse(&r, argc, argv, &outpath);
-	glue_open(&g, sizeof(struct dev), outpath, &r.w, header[r.out]);
+	k = parse(&r, argc, argv);
+	glue_open(&g, sizeof(struct dev), r.outpath, &r.w, header[r.out]);
 	r.devs = g.devs;
 	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(r.col), 0, on_row, &r);
@@ -353,7 +355,7 @@ main(int argc, char *argv[])
 	sorted = glue_sorted(&g, &n);
 	for (i = 0; i < n; i++)
 		write_device(&r, sorted[i]);
-	if ((rc = cw_finish(&r.w, g.of, outpath, CW_EXIT_OK)) != 0)
+	if ((rc = cw_finish(&r.w, g.of, r.outpath, CW_EXIT_OK)) != 0)
 		return rc;
 
 	if (cw_verbose) {

@@ -50,6 +50,7 @@ struct byval {
 };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
 	struct thermal_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -108,7 +109,8 @@ static const struct optab opts[] = {
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "summary", 's', NULL, "one row per device (per value with --by) "
 	    "instead of one per event", NULL, 0 },
 	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
@@ -136,8 +138,7 @@ static const struct optool tool = {
 	"report counts on standard error"
 };
 
-static int	parse(struct tool *t, int argc, char *argv[],
-		    const char **outpath);
+static int	parse(struct tool *t, int argc, char *argv[]);
 static void	write_header(struct tool *t);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
@@ -398,7 +399,7 @@ report(const struct devtab *devs, const struct sampin_stats *st,
  * first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL;
@@ -410,9 +411,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 's':
 			t->summary = 1;
 			break;
@@ -470,7 +468,6 @@ main(int argc, char *argv[])
 {
 	struct tool t;
 	struct glue g;
-	const char *outpath = NULL;
 	void **sorted;
 	size_t i, n;
 	int rc, k;
@@ -479,8 +476,8 @@ main(int argc, char *argv[])
 	memset(&t, 0, sizeof(t));
 	thermal_conf_default(&t.conf);
 	t.cap_ah = CW_MISSING;
-	k = parse(&t, argc, argv, &outpath);
-	glue_open(&g, sizeof(struct dev), outpath, &t.out, NULL);
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, NULL);
 	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;

@@ -39,6 +39,7 @@ struct dev {
 enum mode { MODE_HOLDS, MODE_EVENTS, MODE_SUMMARY };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
 	struct topoff_conf conf;
 	struct csvout out;
 	int mode;		/* enum mode */
@@ -83,7 +84,8 @@ static const struct optab opts[] = {
 	    "counts", "0.5", OPT_MIN_DEPTH,
 	    OPTAB_NUM, T(conf.min_depth), 0.001, 100 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "summary", 's', NULL, "one row per device (-e and -s exclude each "
 	    "other)", NULL, 0 },
 	{ "standby-current", 0, "A", "discharge up to A amperes is standby "
@@ -300,7 +302,7 @@ report(const struct devtab *devs, const struct sampin_stats *st)
  * first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL;
@@ -313,9 +315,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		switch (ch) {
 		case 'e':
 			events = 1;
-			break;
-		case 'o':
-			*outpath = optarg;
 			break;
 		case 's':
 			summary = 1;
@@ -366,13 +365,12 @@ main(int argc, char *argv[])
 	    SUMMARY_HEADER };
 	struct tool t;
 	struct glue g;
-	const char *outpath = NULL;
 	int rc, k;
 
 	cw_setprog("cw-topoff");
 	memset(&t, 0, sizeof(t));
-	k = parse(&t, argc, argv, &outpath);
-	glue_open(&g, sizeof(struct dev), outpath, &t.out, header[t.mode]);
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, header[t.mode]);
 	t.conf.on_cycle = on_cycle;
 	t.conf.on_hold = on_hold;
 	t.conf.on_use = on_cycle;

@@ -35,6 +35,7 @@ struct dev {
 };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
 	struct volt_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -82,7 +83,8 @@ static const struct optab opts[] = {
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "summary", 's', NULL, "one row per device instead of one per event",
 	    NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
@@ -216,7 +218,7 @@ report(const struct devtab *devs, const struct sampin_stats *st)
  * first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL;
@@ -227,9 +229,6 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 's':
 			t->summary = 1;
 			break;
@@ -256,13 +255,12 @@ main(int argc, char *argv[])
 {
 	struct tool t;
 	struct glue g;
-	const char *outpath = NULL;
 	int rc, k;
 
 	cw_setprog("cw-volt");
 	memset(&t, 0, sizeof(t));
-	k = parse(&t, argc, argv, &outpath);
-	glue_open(&g, sizeof(struct dev), outpath, &t.out, t.summary ?
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.summary ?
 	    SUMMARY_HEADER : EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
