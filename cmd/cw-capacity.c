@@ -17,6 +17,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "ocv.h"
 #include "opt.h"
 #include "optab.h"
@@ -46,6 +47,8 @@ struct dev {
 };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
+	const char *rejpath;	/* --rejects FILE, or NULL */
 	struct cap_conf conf;
 	struct cap_trend_conf tconf;
 	struct cap_counts cnt;
@@ -105,7 +108,8 @@ static const struct optab opts[] = {
 	    OPT_OCV_SPAN,
 	    OPTAB_DUR, T(conf.ocv_span), 0, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "rated", 0, "AH", "rated capacity of every pack", "none",
 	    OPT_RATED },
 	{ "rejects", 0, "FILE", "write the rejected segments and why to FILE",
@@ -113,7 +117,6 @@ static const struct optab opts[] = {
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0 },
 	{ "temp", 0, "LO,HI | any", "temperature window; any: none",
 	    "10,45", OPT_TEMP },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -123,7 +126,8 @@ static const struct optool tool = {
 	"segments, and its fade per device.\n",
 	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
 	"one).  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
@@ -208,22 +212,13 @@ write_trend(struct tool *t, struct dev *d)
 	cap_trend_fit(&d->ser, d->cd.rated_ah, &t->tconf, &tr);
 	csvout_strn(w, d->e.name, d->e.namelen);
 	csvout_int(w, (long long)d->ser.steps);
-	if (d->ser.steps > 0) {
-		csvout_time(w, d->ser.first);
-		csvout_time(w, d->ser.last);
-	} else {
-		csvout_empty(w);
-		csvout_empty(w);
-	}
+	glue_first_last(w, d->ser.steps > 0, d->ser.first, d->ser.last);
 	csvout_num(w, tr.cap_start);
 	csvout_num(w, tr.cap_end);
 	csvout_num(w, tr.fade_pct);
 	csvout_num(w, tr.fade_30d);
 	csvout_num(w, tr.soh_pct);
-	if (tr.has_eol)
-		csvout_date(w, tr.eol_t);
-	else
-		csvout_empty(w);
+	glue_date(w, tr.has_eol, tr.eol_t);
 	csvout_num(w, tr.slope);
 	csvout_num(w, tr.slope_lo);
 	csvout_num(w, tr.slope_hi);
@@ -278,7 +273,6 @@ free_devs(struct devtab *devs)
 
 	for (i = 0; i < n; i++)
 		dcir_series_free(&((struct dev *)devtab_at(devs, i))->ser);
-	devtab_free(devs);
 }
 
 /*
@@ -286,8 +280,7 @@ free_devs(struct devtab *devs)
  * *OUTPATH and *REJPATH; the index of the first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath,
-    const char **rejpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL, *ocvpath = NULL;
@@ -302,14 +295,8 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 't':
 			t->trend = 1;
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_CONFIDENCE:
 			t->tconf.conf = opt_num_arg("--confidence", optarg,
@@ -359,7 +346,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 				    optarg);
 			break;
 		case OPT_REJECTS:
-			*rejpath = optarg;
+			t->rejpath = optarg;
 			break;
 		case OPT_TEMP:
 			if (strcmp(optarg, "any") == 0) {
@@ -374,7 +361,7 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath,
 		}
 	}
 	optab_free(&op);
-	if (*rejpath != NULL && strcmp(*rejpath, "-") == 0)
+	if (t->rejpath != NULL && strcmp(t->rejpath, "-") == 0)
 		cw_usage_error("--rejects: standard output holds the "
 		    "estimates; name a file");
 
@@ -389,42 +376,28 @@ int
 main(int argc, char *argv[])
 {
 	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g, rg;
 	struct devtab *devs;
-	struct outf *of, *rf = NULL;
 	struct cap_est e;
-	const char *outpath = NULL, *rejpath = NULL;
 	void **sorted;
 	size_t i, n;
 	int rc, k;
 
 	cw_setprog("cw-capacity");
 	memset(&t, 0, sizeof(t));
-	k = parse(&t, argc, argv, &outpath, &rejpath);
-	argc -= k;
-	argv += k;
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, t.trend ? TREND_HEADER : EST_HEADER);
-	if (rejpath != NULL) {
-		rf = outf_open(rejpath);
-		csvout_init(&t.rej, outf_fp(rf));
-		csvout_header(&t.rej, REJECT_HEADER);
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.trend ?
+	    TREND_HEADER : EST_HEADER);
+	devs = g.devs;
+	if (t.rejpath != NULL) {
+		glue_open(&rg, 0, t.rejpath, &t.rej, REJECT_HEADER);
 		t.has_rej = 1;
 	}
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
-	    SAMP_SOC);
-	if (!t.conf.temp_any)
-		sc.need |= SAMP_BIT(SAMP_TEMP);
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	    SAMP_SOC) | (t.conf.temp_any ? 0 : SAMP_BIT(SAMP_TEMP)), 0,
+	    on_row, &t);
+	rc = glue_read(&g, argv + k, argc - k);
 	if (rc == 0) {
 		/* The segments still open at the end of the input, in the
 		 * order the devices came. */
@@ -439,7 +412,7 @@ main(int argc, char *argv[])
 		}
 	}
 	if (cw_verbose)
-		report(&t, devs, &st);
+		report(&t, devs, &g.st);
 	if (t.cnt.against >= 100 && t.cnt.against > 2 * t.cnt.with)
 		cw_warn("the SoC stepped against the current on %lu rows, with "
 		    "it on %lu: is current_a positive while charging? "
@@ -454,13 +427,10 @@ main(int argc, char *argv[])
 	}
 	/* After a data error, complete rows written so far stay; -o FILE
 	 * is not committed and keeps its old contents. */
-	if (t.has_rej) {
-		rc = cw_finish(&t.rej, rf, rejpath, rc);
-		csvout_free(&t.rej);
-	}
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
+	if (t.has_rej)
+		rc = glue_close(&rg, rc);
 	free_devs(devs);
+	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	ocv_free(t.ocv);
 	return rc;

@@ -1,7 +1,7 @@
 /*
  * cw-clean: raw gauge logs in, the cellwear sample stream out.
  */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -10,126 +10,124 @@
 #include "clean.h"
 #include "csvout.h"
 #include "cw.h"
+#include "finish.h"
 #include "gzsrc.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "ts.h"
 
+/* The options, before they become the engine's configuration. */
+struct opts {
+	struct clean_conf c;
+	const char *outpath, *rejpath;
+	double max_reject;	/* --max-reject */
+	double cells;		/* --cells */
+	double full_v;		/* --full-voltage, 0: 4.15 V per cell */
+	int set[CM_NFIELD];	/* --bounds given for the field */
+};
+
 enum {
-	OPT_BOUNDS = 256, OPT_CELLS, OPT_CHARGE_NEGATIVE, OPT_CHARGE_SIGN,
-	OPT_DECIMAL_COMMA,
-	OPT_DEVICE, OPT_FULL_VOLTAGE, OPT_GROWING, OPT_KEEP, OPT_MAX_GAP,
-	OPT_MAX_JUMP, OPT_MAX_REJECT, OPT_MAX_TIME, OPT_NOW, OPT_REJECTS,
-	OPT_REORDER, OPT_SENTINEL, OPT_SKIP_JUNK, OPT_SOC_FROM_CHARGE,
-	OPT_STEP, OPT_TZ,
-	OPT_VERSION
+	OPT_BOUNDS = OPTAB_LONG, OPT_CELLS, OPT_CHARGE_NEGATIVE,
+	OPT_CHARGE_SIGN, OPT_DECIMAL_COMMA, OPT_DEVICE, OPT_FULL_VOLTAGE,
+	OPT_GROWING, OPT_KEEP, OPT_MAX_GAP, OPT_MAX_JUMP, OPT_MAX_REJECT,
+	OPT_MAX_TIME, OPT_NOW, OPT_REJECTS, OPT_REORDER, OPT_SENTINEL,
+	OPT_SKIP_JUNK, OPT_SOC_FROM_CHARGE, OPT_STEP, OPT_TZ
 };
 
-static const struct option longopts[] = {
-	{ "bounds", required_argument, NULL, OPT_BOUNDS },
-	{ "cells", required_argument, NULL, OPT_CELLS },
-	{ "charge-negative", no_argument, NULL, OPT_CHARGE_NEGATIVE },
-	{ "charge-sign", required_argument, NULL, OPT_CHARGE_SIGN },
-	{ "columns", required_argument, NULL, 'c' },
-	{ "decimal-comma", no_argument, NULL, OPT_DECIMAL_COMMA },
-	{ "delimiter", required_argument, NULL, 'd' },
-	{ "device", required_argument, NULL, OPT_DEVICE },
-	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
-	{ "growing", no_argument, NULL, OPT_GROWING },
-	{ "help", no_argument, NULL, 'h' },
-	{ "keep", required_argument, NULL, OPT_KEEP },
-	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
-	{ "max-jump", required_argument, NULL, OPT_MAX_JUMP },
-	{ "max-reject", required_argument, NULL, OPT_MAX_REJECT },
-	{ "max-time", required_argument, NULL, OPT_MAX_TIME },
-	{ "now", no_argument, NULL, OPT_NOW },
-	{ "output", required_argument, NULL, 'o' },
-	{ "rejects", required_argument, NULL, OPT_REJECTS },
-	{ "reorder", required_argument, NULL, OPT_REORDER },
-	{ "sentinel", required_argument, NULL, OPT_SENTINEL },
-	{ "skip-junk", no_argument, NULL, OPT_SKIP_JUNK },
-	{ "soc-from-charge", required_argument, NULL, OPT_SOC_FROM_CHARGE },
-	{ "step", required_argument, NULL, OPT_STEP },
-	{ "tz", required_argument, NULL, OPT_TZ },
-	{ "verbose", no_argument, NULL, 'v' },
-	{ "version", no_argument, NULL, OPT_VERSION },
-	{ NULL, 0, NULL, 0 }
+/* Where an option of the table is stored: a member of struct opts. */
+#define O(m)	offsetof(struct opts, m)
+
+static const struct optab opts[] = {
+	{ "bounds", 0, "field=lo:hi", "plausible range of voltage, current, "
+	    "temp or soc", NULL, OPT_BOUNDS },
+	{ "columns", 'c', "spec", "field=header[:unit],... for device, time "
+	    "(iso|s|ms|us), date (a date column beside a time of day), "
+	    "voltage (V|mV), current (A|mA), temp (C|F|K|dK|dC), soc "
+	    "(pct|frac); other fields are found by name", NULL, 0 },
+	{ "cells", 0, "n", "series cells per pack (voltage bounds 1.5..5.0 V "
+	    "per cell)", "1", OPT_CELLS },
+	{ "charge-negative", 0, NULL, "the log counts charging current as "
+	    "negative", NULL, OPT_CHARGE_NEGATIVE },
+	{ "charge-sign", 0, "sign", "auto, positive or negative: the sign of "
+	    "charging current in the log", "auto: per file",
+	    OPT_CHARGE_SIGN },
+	{ "delimiter", 'd', "delim", "field delimiter: ',', ';', '\\t' or "
+	    "'tab' (unset: the one of , ; tab | the header holds most)", NULL,
+	    0 },
+	{ "decimal-comma", 0, NULL, "numbers use ',' as the decimal mark "
+	    "(unset: '.', or either mark when the delimiter is not ',')",
+	    NULL, OPT_DECIMAL_COMMA },
+	{ "device", 0, "name|@file", "device name for logs without a device "
+	    "column; @file takes each file's base name without the "
+	    "extensions .gz .bz2 .xz .zst .z, .csv .tsv .txt .log .dat and a "
+	    "date .YYYY-MM-DD or .YYYYMMDD", NULL, OPT_DEVICE },
+	{ "full-voltage", 0, "volts", "full-charge voltage for "
+	    "--soc-from-charge", "4.15 V per cell", OPT_FULL_VOLTAGE,
+	    OPTAB_NUM, O(full_v), 0.1, 1e4 },
+	{ "growing", 0, NULL, "the files may still be written to: a last "
+	    "line without a line end is held back and counted (unset: taken, "
+	    "with a warning)", NULL, OPT_GROWING,
+	    OPTAB_FLAG, O(c.growing), 0, 0 },
+	{ "keep", 0, "col[,col...]", "raw columns (at most 8) carried after "
+	    "soc_pct under their own names, values as read; with --step the "
+	    "last raw row's in the interval (none by default)", NULL,
+	    OPT_KEEP },
+	{ "max-gap", 0, "duration", "never interpolate across a longer gap",
+	    "15m", OPT_MAX_GAP,
+	    OPTAB_DUR, O(c.max_gap), 0, 0 },
+	{ "max-jump", 0, "duration", "reject as future a row more than this "
+	    "past its device's newest time (a new device: the run's) unless "
+	    "the device's next row confirms the gap", "7d; 0: off",
+	    OPT_MAX_JUMP,
+	    OPTAB_DUR, O(c.max_jump), -1, 0 },
+	{ "max-reject", 0, "fraction", "fail (exit 1) when more than this "
+	    "fraction of lines is rejected", "0.5", OPT_MAX_REJECT,
+	    OPTAB_NUM, O(max_reject), 0, 1 },
+	{ "max-time", 0, "time", "reject rows stamped after time (ISO 8601 "
+	    "or epoch seconds) as future (unset: no fixed bound)", NULL,
+	    OPT_MAX_TIME },
+	{ "now", 0, NULL, "--max-time of the moment the run starts", NULL,
+	    OPT_NOW },
+	{ "output", 'o', "file", "write to file atomically instead of stdout",
+	    NULL, 0,
+	    OPTAB_STR, O(outpath), 0, 0 },
+	{ "rejects", 0, "file", "write every rejected line there with its "
+	    "reason", NULL, OPT_REJECTS,
+	    OPTAB_STR, O(rejpath), 0, 0 },
+	{ "reorder", 0, "duration", "put back rows late by up to this", "60s",
+	    OPT_REORDER,
+	    OPTAB_DUR, O(c.reorder), -1, 0 },
+	{ "sentinel", 0, "list", "raw values meaning no reading, rejected as "
+	    "out-of-range", "-32768,65535; or none", OPT_SENTINEL },
+	{ "skip-junk", 0, NULL, "skip bytes after a gzip member that are not "
+	    "one (counted on stderr; without it: exit 1)", NULL,
+	    OPT_SKIP_JUNK },
+	{ "soc-from-charge", 0, "ah", "derive SoC by coulomb counting for a "
+	    "pack of ah", NULL, OPT_SOC_FROM_CHARGE,
+	    OPTAB_NUM, O(c.soc_ah), 1e-6, 1e7 },
+	{ "step", 0, "duration", "resample each device onto this grid", NULL,
+	    OPT_STEP,
+	    OPTAB_DUR, O(c.step), 0, 0 },
+	{ "tz", 0, "+hh:mm", "offset of local times without a zone", "UTC",
+	    OPT_TZ },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
-static void usage(FILE *, int);
+static const struct optool tool = {
+	"cw-clean", "[file ...]",
+	"Clean raw battery gauge logs (plain or gzip) into the sample stream\n"
+	"device,time,voltage_v,current_a,temp_c,soc_pct (then the --keep\n"
+	"columns).\n",
+	"Durations take 90, 90s, 15m, 2h, 1d.\n",
+	opts,
+	"print counts to stderr"
+};
+
 static void bounds_arg(struct clean_conf *, const char *, int *);
 static char delim_arg(const char *);
 static void sentinel_arg(struct clean_conf *, const char *);
 static void report(const struct clean_stats *);
-
-static void
-usage(FILE *fp, int status)
-{
-	fprintf(fp,
-"usage: cw-clean [-hv] [-c spec] [-d delim] [-o file] [--bounds field=lo:hi]\n"
-"                [--cells n] [--charge-negative] [--charge-sign sign]\n"
-"                [--decimal-comma]\n"
-"                [--device name | @file] [--full-voltage volts] [--growing]\n"
-"                [--keep col[,col...]]\n"
-"                [--max-gap duration] [--max-jump duration]\n"
-"                [--max-reject fraction] [--max-time time | --now]\n"
-"                [--rejects file] [--reorder duration] [--sentinel list]\n"
-"                [--skip-junk] [--soc-from-charge ah] [--step duration]\n"
-"                [--tz +hh:mm]\n"
-"                [file ...]\n"
-"\n"
-"Clean raw battery gauge logs (plain or gzip) into the sample stream\n"
-"device,time,voltage_v,current_a,temp_c,soc_pct (then the --keep columns).\n"
-"\n"
-"  -c, --columns spec      field=header[:unit],... for device, time (iso|s|ms|us),\n"
-"                          date (a date column beside a time of day),\n"
-"                          voltage (V|mV), current (A|mA), temp (C|F|K|dK|dC),\n"
-"                          soc (pct|frac); other fields are found by name\n"
-"  -d, --delimiter c       field delimiter: ',', ';', '\\t' or 'tab' (default: the\n"
-"                          one of , ; tab | the header holds most)\n"
-"      --decimal-comma     numbers use ',' as the decimal mark (default: '.',\n"
-"                          or either mark when the delimiter is not ',')\n"
-"      --device name       device name for logs without a device column;\n"
-"                          @file takes each file's base name without the\n"
-"                          extensions .gz .bz2 .xz .zst .z, .csv .tsv .txt .log\n"
-"                          .dat and a date .YYYY-MM-DD or .YYYYMMDD\n"
-"      --charge-negative   the log counts charging current as negative\n"
-"      --charge-sign sign  auto, positive or negative: the sign of charging\n"
-"                          current in the log (default auto: per file)\n"
-"      --keep col,...      raw columns (at most 8) carried after soc_pct under\n"
-"                          their own names, values as read; with --step the\n"
-"                          last raw row's in the interval (default none)\n"
-"      --tz +hh:mm         offset of local times without a zone (default UTC)\n"
-"      --cells n           series cells per pack (voltage bounds 1.5..5.0 V per cell)\n"
-"      --bounds f=lo:hi    plausible range of voltage, current, temp or soc\n"
-"      --reorder duration  put back rows late by up to this (default 60s)\n"
-"      --sentinel list     raw values meaning no reading, rejected as\n"
-"                          out-of-range (default -32768,65535; or none)\n"
-"      --skip-junk         skip bytes after a gzip member that are not one\n"
-"                          (counted on stderr; without it: exit 1)\n"
-"      --step duration     resample each device onto this grid\n"
-"      --max-gap duration  never interpolate across a longer gap (default 15m)\n"
-"      --max-time time     reject rows stamped after time (ISO 8601 or epoch\n"
-"                          seconds) as future (default: no fixed bound)\n"
-"      --now               --max-time of the moment the run starts\n"
-"      --max-jump duration reject as future a row more than this past its\n"
-"                          device's newest time (a new device: the run's)\n"
-"                          unless the device's next row confirms the gap\n"
-"                          (default 7d; 0: off)\n"
-"      --growing           the files may still be written to: a last line\n"
-"                          without a line end is held back and counted\n"
-"                          (default: taken, with a warning)\n"
-"      --soc-from-charge ah  derive SoC by coulomb counting for a pack of ah\n"
-"      --full-voltage v    full-charge voltage for --soc-from-charge\n"
-"                          (default 4.15 V per cell)\n"
-"      --rejects file      write every rejected line there with its reason\n"
-"      --max-reject f      fail (exit 1) when more than this fraction of\n"
-"                          lines is rejected (default 0.5)\n"
-"  -o, --output file       write to file atomically instead of stdout\n"
-"  -v, --verbose           print counts to stderr\n"
-"  -h, --help              print this help; --version prints the version\n");
-	exit(status);
-}
 
 static char
 delim_arg(const char *s)
@@ -227,185 +225,155 @@ report(const struct clean_stats *st)
 		    "back (--growing)", st->unended, st->held);
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into O, checked; the index of the first operand.  Exits 2
+ * on a usage error.
+ */
+static int
+parse(struct opts *o, int argc, char *argv[])
 {
-	struct clean_conf c;
-	struct clean_stats st;
-	struct csvout out, rej;
-	struct outf *of, *rf = NULL;
-	const char *outpath = NULL, *rejpath = NULL, *err;
-	double max_reject = 0.5, cells = 1, full_v = 0;
-	unsigned long nrej, nlines;
-	int ch, rc, set[CM_NFIELD] = { 0 };
+	struct clean_conf *c = &o->c;
+	struct optparse op;
+	const char *err;
+	int ch;
 
-	cw_setprog("cw-clean");
-	clean_conf_default(&c);
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":c:d:ho:v", longopts, NULL)) !=
-	    -1) {
+	clean_conf_default(c);
+	o->max_reject = 0.5;
+	o->cells = 1;
+	optab_init(&op, &tool, o);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
 		case 'c':
-			if (colmap_parse_spec(optarg, &c.spec, &err) < 0)
+			if (colmap_parse_spec(optarg, &c->spec, &err) < 0)
 				cw_usage_error("--columns: %s: '%s'", err,
 				    optarg);
 			break;
 		case 'd':
-			c.delim = delim_arg(optarg);
-			break;
-		case 'h':
-			usage(stdout, CW_EXIT_OK);
-			break;
-		case 'o':
-			outpath = optarg;
-			break;
-		case 'v':
-			cw_verbose = 1;
+			c->delim = delim_arg(optarg);
 			break;
 		case OPT_BOUNDS:
-			bounds_arg(&c, optarg, set);
+			bounds_arg(c, optarg, o->set);
 			break;
 		case OPT_CELLS:
-			cells = (double)opt_long_arg("--cells", optarg, 1, 1000);
+			o->cells = (double)opt_long_arg("--cells", optarg, 1,
+			    1000);
 			break;
 		case OPT_CHARGE_NEGATIVE:
-			c.charge_sign = CLEAN_SIGN_NEGATIVE;
+			c->charge_sign = CLEAN_SIGN_NEGATIVE;
 			break;
 		case OPT_CHARGE_SIGN:
 			if (strcmp(optarg, "auto") == 0)
-				c.charge_sign = CLEAN_SIGN_AUTO;
+				c->charge_sign = CLEAN_SIGN_AUTO;
 			else if (strcmp(optarg, "positive") == 0)
-				c.charge_sign = CLEAN_SIGN_POSITIVE;
+				c->charge_sign = CLEAN_SIGN_POSITIVE;
 			else if (strcmp(optarg, "negative") == 0)
-				c.charge_sign = CLEAN_SIGN_NEGATIVE;
+				c->charge_sign = CLEAN_SIGN_NEGATIVE;
 			else
 				cw_usage_error("--charge-sign: '%s' is not "
 				    "auto, positive or negative", optarg);
 			break;
 		case OPT_DECIMAL_COMMA:
-			c.dec = ',';
+			c->dec = ',';
 			break;
 		case OPT_DEVICE:
 			if (strcmp(optarg, "@file") == 0)
-				c.device_from_file = 1;
+				c->device_from_file = 1;
 			else if (optarg[0] == '\0')
 				cw_usage_error("--device: empty name");
 			else
-				c.device = optarg;
-			break;
-		case OPT_FULL_VOLTAGE:
-			full_v = opt_num_arg("--full-voltage", optarg, 0.1, 1e4);
+				c->device = optarg;
 			break;
 		case OPT_KEEP:
-			if (clean_keep_parse(&c, optarg, &err) < 0)
+			if (clean_keep_parse(c, optarg, &err) < 0)
 				cw_usage_error("--keep: %s: '%s'", err, optarg);
-			break;
-		case OPT_GROWING:
-			c.growing = 1;
-			break;
-		case OPT_MAX_GAP:
-			c.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			break;
-		case OPT_MAX_JUMP:
-			c.max_jump = opt_dur_arg("--max-jump", optarg, 1);
 			break;
 		case OPT_MAX_TIME:
 			if (ts_parse(optarg, strlen(optarg), TS_AUTO, 0,
-			    &c.max_time) < 0)
+			    &c->max_time) < 0)
 				cw_usage_error("--max-time: '%s' is not an ISO "
 				    "8601 time or epoch seconds", optarg);
 			break;
 		case OPT_NOW:
-			c.max_time = (cw_time)time(NULL) * CW_US_PER_S;
-			break;
-		case OPT_MAX_REJECT:
-			max_reject = opt_num_arg("--max-reject", optarg, 0, 1);
-			break;
-		case OPT_REJECTS:
-			rejpath = optarg;
-			break;
-		case OPT_REORDER:
-			c.reorder = opt_dur_arg("--reorder", optarg, 1);
+			c->max_time = (cw_time)time(NULL) * CW_US_PER_S;
 			break;
 		case OPT_SENTINEL:
-			sentinel_arg(&c, optarg);
+			sentinel_arg(c, optarg);
 			break;
 		case OPT_SKIP_JUNK:
 			gzsrc_skip_junk = 1;
 			break;
-		case OPT_SOC_FROM_CHARGE:
-			c.soc_ah = opt_num_arg("--soc-from-charge", optarg,
-			    1e-6, 1e7);
-			break;
-		case OPT_STEP:
-			c.step = opt_dur_arg("--step", optarg, 0);
-			break;
 		case OPT_TZ:
-			if (ts_parse_offset(optarg, &c.tz_s) < 0)
+			if (ts_parse_offset(optarg, &c->tz_s) < 0)
 				cw_usage_error("--tz: '%s' is not an offset "
 				    "like +01:00 or -0530", optarg);
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-			break;
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
-	if (!set[CM_VOLTAGE]) {
-		c.lo[CM_VOLTAGE] *= cells;
-		c.hi[CM_VOLTAGE] *= cells;
+	optab_free(&op);
+	if (!o->set[CM_VOLTAGE]) {
+		c->lo[CM_VOLTAGE] *= o->cells;
+		c->hi[CM_VOLTAGE] *= o->cells;
 	}
-	c.full_v = full_v > 0 ? full_v : 4.15 * cells;
-	if (c.device != NULL && c.spec.header[CM_DEVICE] != NULL)
+	c->full_v = o->full_v > 0 ? o->full_v : 4.15 * o->cells;
+	if (c->device != NULL && c->spec.header[CM_DEVICE] != NULL)
 		cw_usage_error("--device and -c device= exclude each other");
-	if (c.dec == ',' && (c.delim == ',' || c.delim == '\0'))
+	if (c->dec == ',' && (c->delim == ',' || c->delim == '\0'))
 		cw_usage_error("--decimal-comma needs another delimiter (-d ';')");
+	return optind;
+}
 
-	of = outf_open(outpath);
+/*
+ * More than --max-reject of the lines with data rejected: a run that
+ * fails (with a hint when most were out of range).
+ */
+static int
+too_many_rejects(const struct clean_stats *st, double max_reject)
+{
+	/* Empty lines are rejected and counted, but hold no data to lose. */
+	unsigned long nrej = st->rejected - st->reason[CR_EMPTY];
+	unsigned long nlines = st->lines - st->reason[CR_EMPTY];
+
+	if (nlines == 0 || !((double)nrej > max_reject * (double)nlines))
+		return 0;
+	cw_warn("%lu of %lu data lines rejected, more than --max-reject "
+	    "%g%s", nrej, nlines, max_reject, st->reason[CR_RANGE] > nrej / 2 ?
+	    " (mostly out of range: are the units and --cells right?)" : "");
+	return 1;
+}
+
+int
+main(int argc, char *argv[])
+{
+	struct opts o;
+	struct clean_stats st;
+	struct csvout out, rej;
+	struct outf *of, *rf = NULL;
+	int k, rc, rrc;
+
+	cw_setprog("cw-clean");
+	memset(&o, 0, sizeof(o));
+	k = parse(&o, argc, argv);
+	argc -= k;
+	argv += k;
+	of = outf_open(o.outpath);
 	csvout_init(&out, outf_fp(of));
-	if (rejpath != NULL) {
-		rf = outf_open(rejpath);
+	if (o.rejpath != NULL) {
+		rf = outf_open(o.rejpath);
 		csvout_init(&rej, outf_fp(rf));
 	}
-	rc = clean_run(&c, argv, argc, &out, rf ? &rej : NULL, &st);
+	rc = clean_run(&o.c, argv, argc, &out, rf ? &rej : NULL, &st);
 	if (cw_verbose)
 		report(&st);
-	/* Empty lines are rejected and counted, but hold no data to lose. */
-	nrej = st.rejected - st.reason[CR_EMPTY];
-	nlines = st.lines - st.reason[CR_EMPTY];
-	if (rc == 0 && nlines > 0 &&
-	    (double)nrej > max_reject * (double)nlines) {
-		cw_warn("%lu of %lu data lines rejected, more than "
-		    "--max-reject %g%s", nrej, nlines, max_reject,
-		    st.reason[CR_RANGE] > nrej / 2 ? " (mostly out of "
-		    "range: are the units and --cells right?)" : "");
+	if (rc == 0 && too_many_rejects(&st, o.max_reject))
 		rc = CW_EXIT_DATA;
-	}
-	if (csvout_flush(&out) < 0) {
-		cw_warn("write error: %s", outpath ? outpath : "standard output");
-		rc = CW_EXIT_DATA;
-	}
-	if (rf != NULL && csvout_flush(&rej) < 0) {
-		cw_warn("%s: write error", rejpath);
-		rc = CW_EXIT_DATA;
-	}
+	/*
+	 * A failed run leaves an earlier -o FILE as it was; the rejects
+	 * explain the failure, so they are kept all the same.
+	 */
+	rrc = rf != NULL ? cw_finish(&rej, rf, o.rejpath, CW_EXIT_OK) : 0;
+	rc = cw_finish(&out, of, o.outpath, rc != 0 ? rc : rrc);
 	csvout_free(&out);
 	if (rf != NULL)
 		csvout_free(&rej);
-	/* A failed run leaves earlier output files as they were. */
-	if (rc == 0) {
-		if (outf_commit(of) < 0)
-			rc = CW_EXIT_DATA;
-		if (rf != NULL && outf_commit(rf) < 0)
-			rc = CW_EXIT_DATA;
-	} else if (rf != NULL) {
-		/* The rejects explain the failure: keep them. */
-		outf_commit(rf);
-		if (outpath == NULL)
-			outf_commit(of);
-	}
 	return rc;
 }

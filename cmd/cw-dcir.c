@@ -6,18 +6,21 @@
  * this file holds the options and the output.
  */
 #include <errno.h>
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "csvout.h"
 #include "cw.h"
+#include "finish.h"
 #include "dcir.h"
 #include "dcirstate.h"
+#include "glue.h"
 #include "lock.h"
 #include "devtab.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "sampin.h"
 #include "ts.h"
@@ -62,17 +65,82 @@ struct tool {
 	struct piece *piece;
 	size_t npiece, piececap;
 	unsigned long stale, joined;	/* rows skipped, steps across joins */
+	/* The options. */
+	const char *outpath, *state;
+	int merge;
+	cw_time lock_wait;
 };
 
 enum {
-	OPT_ALLOW_NO_SOC = 256, OPT_CONFIDENCE, OPT_EA, OPT_EOL, OPT_LOCK_WAIT,
-	OPT_MAX_DT,
-	OPT_MAX_POINTS, OPT_MERGE, OPT_MIN_SPAN, OPT_MIN_STEP, OPT_MIN_STEPS,
-	OPT_REF_TEMP, OPT_SOC, OPT_STATE, OPT_STATE_OUT, OPT_STEADY,
-	OPT_STEADY_TOL, OPT_TEMP, OPT_VERSION
+	OPT_ALLOW_NO_SOC = OPTAB_LONG, OPT_CONFIDENCE, OPT_EA, OPT_EOL,
+	OPT_LOCK_WAIT, OPT_MAX_DT, OPT_MAX_POINTS, OPT_MERGE, OPT_MIN_SPAN,
+	OPT_MIN_STEP, OPT_MIN_STEPS, OPT_REF_TEMP, OPT_SOC, OPT_STATE,
+	OPT_STATE_OUT, OPT_STEADY, OPT_STEADY_TOL, OPT_TEMP
 };
 
-static void	usage(FILE *fp);
+/* Where an option of the table is stored: a member of struct tool. */
+#define T(m)	offsetof(struct tool, m)
+
+static const struct optab opts[] = {
+	{ "allow-no-soc", 0, NULL, "keep steps whose SoC is unknown", NULL,
+	    OPT_ALLOW_NO_SOC,
+	    OPTAB_FLAG, T(conf.unknown_soc_ok), 0, 0 },
+	{ "confidence", 0, "P", "confidence level of the slope's interval",
+	    "0.95", OPT_CONFIDENCE },
+	{ "ea", 0, "KJ", "activation energy in kJ/mol", "30", OPT_EA,
+	    OPTAB_NUM, T(conf.ea_kj), 0, 1000 },
+	{ "eol", 0, "PCT", "end of life at PCT percent of r_start_ohm", "200",
+	    OPT_EOL },
+	{ "lock-wait", 0, "DUR", "wait so long for another run on the "
+	    "--state FILE", "1h; 0: refuse at once", OPT_LOCK_WAIT,
+	    OPTAB_DUR, T(lock_wait), -1, 0 },
+	{ "max-dt", 0, "DUR", "longest time between the samples of a step",
+	    "15s", OPT_MAX_DT,
+	    OPTAB_DUR, T(conf.max_dt), 0, 0 },
+	{ "max-points", 0, "N", "points kept per device for the trend",
+	    "2048", OPT_MAX_POINTS },
+	{ "merge", 0, NULL, "the files are states (--state-out): join them",
+	    NULL, OPT_MERGE,
+	    OPTAB_FLAG, T(merge), 0, 0 },
+	{ "min-span", 0, "DUR", "shortest first-to-last span for a trend",
+	    "7d", OPT_MIN_SPAN,
+	    OPTAB_DUR, T(tconf.min_span), -1, 0 },
+	{ "min-step", 0, "A", "smallest current step in amperes", "0.5",
+	    OPT_MIN_STEP },
+	{ "min-steps", 0, "N", "fewest steps for a trend", "10",
+	    OPT_MIN_STEPS },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
+	{ "ref-temp", 0, "T", "reference temperature", "25C", OPT_REF_TEMP },
+	{ "soc", 0, "LO,HI|auto", "SoC window in percent; auto: per device, "
+	    "the 30-point window with most steps", "20,80", OPT_SOC },
+	{ "state", 0, "FILE", "go on from the state in FILE (if it exists) "
+	    "and save it back there", NULL, OPT_STATE },
+	{ "state-out", 0, NULL, "write the state instead of steps or trend",
+	    NULL, OPT_STATE_OUT,
+	    OPTAB_FLAG, T(state_out), 0, 0 },
+	{ "steady", 0, "N", "steady samples before a step", "3", OPT_STEADY,
+	    OPTAB_INT, T(conf.steady_n), 1, DCIR_HIST_MAX },
+	{ "steady-tol", 0, "FRAC", "largest spread of those currents, as a "
+	    "fraction of the step", "0.1", OPT_STEADY_TOL,
+	    OPTAB_NUM, T(conf.steady_tol), 0, 100 },
+	{ "temp", 0, "LO,HI", "temperature window", "10,45", OPT_TEMP },
+	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0,
+	    OPTAB_FLAG, T(trend), 0, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-dcir", "[FILE ...]",
+	"DC internal resistance from current steps, and its growth per "
+	"device.\n",
+	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without "
+	"one).\nDurations take 90, 90s, 15m, 2h, 1d.\n",
+	opts,
+	"report counts on standard error"
+};
+
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	write_step(struct tool *t, const struct dev *d,
 		    const struct dcir_step *st);
@@ -84,62 +152,6 @@ static void	write_states(struct outf *o, const char *path, struct tool *t,
 		    void **devs, size_t n);
 static void	report(const struct tool *t, const struct devtab *devs,
 		    const struct sampin_stats *st);
-
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-dcir [-htv] [--allow-no-soc] [--confidence P] "
-	    "[--ea KJ] [--eol PCT]\n"
-	    "               [--lock-wait DUR] [--max-dt DUR] [--max-points N] "
-	    "[--merge]\n"
-	    "               [--min-span DUR] [--min-step A] [--min-steps N] "
-	    "[-o FILE]\n"
-	    "               [--ref-temp T] [--soc LO,HI|auto] [--state FILE] "
-	    "[--state-out]\n"
-	    "               [--steady N] [--steady-tol FRAC] [--temp LO,HI] "
-	    "[--version]\n"
-	    "               [FILE ...]\n");
-	fputs(
-"\n"
-"DC internal resistance from current steps, and its growth per device.\n"
-"\n"
-"      --allow-no-soc      keep steps whose SoC is unknown\n"
-"      --confidence P      confidence level of the slope's interval\n"
-"                          (default 0.95)\n"
-"      --ea KJ             activation energy in kJ/mol (default 30)\n"
-"      --eol PCT           end of life at PCT percent of r_start_ohm\n"
-"                          (default 200)\n"
-"  -h, --help              print this help and exit\n"
-"      --lock-wait DUR     wait so long for another run on the --state FILE\n"
-"                          (default 1h; 0: refuse at once)\n"
-"      --max-dt DUR        longest time between the samples of a step\n"
-"                          (default 15s)\n"
-"      --max-points N      points kept per device for the trend\n"
-"                          (default 2048)\n"
-"      --merge             the files are states (--state-out): join them\n"
-"      --min-span DUR      shortest first-to-last span for a trend\n"
-"                          (default 7d)\n"
-"      --min-step A        smallest current step in amperes (default 0.5)\n"
-"      --min-steps N       fewest steps for a trend (default 10)\n"
-"  -o, --output FILE       write to FILE atomically, not standard output\n"
-"      --ref-temp T        reference temperature (default 25C)\n"
-"      --soc LO,HI|auto    SoC window in percent (default 20,80); auto: per\n"
-"                          device, the 30-point window with most steps\n"
-"      --state FILE        go on from the state in FILE (if it exists) and\n"
-"                          save it back there\n"
-"      --state-out         write the state instead of steps or trend\n"
-"      --steady N          steady samples before a step (default 3)\n"
-"      --steady-tol FRAC   largest spread of those currents, as a fraction\n"
-"                          of the step (default 0.1)\n"
-"  -t, --trend             one row per device with the trend\n"
-"      --temp LO,HI        temperature window (default 10,45)\n"
-"  -v, --verbose           report counts on standard error\n"
-"      --version           print the version and exit\n"
-"\n"
-"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without one).\n"
-"Durations take 90, 90s, 15m, 2h, 1d.\n", fp);
-}
 
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
@@ -169,12 +181,8 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 		    t->max_points);
 	if (!t->trend && !t->state_out)
 		write_step(t, d, &st);
-	if (t->out.err) {
-		/* Say so here: sampin_run() only passes the exit code on. */
-		cw_warn("write error: %s", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	return 0;
+	/* A write error stops the run; cw_finish() tells it. */
+	return t->out.err ? CW_EXIT_DATA : 0;
 }
 
 static void
@@ -209,21 +217,12 @@ write_trend(struct tool *t, struct dev *d)
 	dcir_trend_fit_window(&d->ds.ser, &t->tconf, lo, &tr);
 	csvout_strn(w, d->e.name, d->e.namelen);
 	csvout_int(w, (long long)tr.steps);
-	if (tr.steps > 0) {
-		csvout_time(w, tr.first);
-		csvout_time(w, tr.last);
-	} else {
-		csvout_empty(w);
-		csvout_empty(w);
-	}
+	glue_first_last(w, tr.steps > 0, tr.first, tr.last);
 	csvout_num(w, tr.r_start);
 	csvout_num(w, tr.r_end);
 	csvout_num(w, tr.growth_pct);
 	csvout_num(w, tr.growth_30d);
-	if (tr.has_eol)
-		csvout_date(w, tr.eol_t);
-	else
-		csvout_empty(w);
+	glue_date(w, tr.has_eol, tr.eol_t);
 	if (tr.fitted)
 		csvout_int(w, (long long)tr.used);
 	else
@@ -362,9 +361,10 @@ write_states(struct outf *o, const char *path, struct tool *t, void **devs,
 			m += ((struct dev *)devs[k])->ds.rows > 0;
 		bad = dstate_write_end(fp, (unsigned long)m);
 	}
-	if (bad || fflush(fp) != 0)
-		cw_die(CW_EXIT_DATA, "%s: write error: %s", path != NULL ?
-		    path : "standard output", strerror(errno));
+	if (bad || fflush(fp) != 0) {
+		cw_write_error(path, errno);
+		exit(CW_EXIT_DATA);
+	}
 }
 
 /* Whether PATH names something that exists (a state to load). */
@@ -418,274 +418,230 @@ report(const struct tool *t, const struct devtab *devs,
 	    few == 1 ? "" : "s", thinned, t->max_points);
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into T; the index of the first operand.  Exits 2 on a
+ * usage error.
+ */
+static int
+parse(struct tool *t, int argc, char *argv[])
 {
-	static const struct option longopts[] = {
-		{ "allow-no-soc", no_argument, NULL, OPT_ALLOW_NO_SOC },
-		{ "confidence", required_argument, NULL, OPT_CONFIDENCE },
-		{ "ea", required_argument, NULL, OPT_EA },
-		{ "eol", required_argument, NULL, OPT_EOL },
-		{ "help", no_argument, NULL, 'h' },
-		{ "lock-wait", required_argument, NULL, OPT_LOCK_WAIT },
-		{ "max-dt", required_argument, NULL, OPT_MAX_DT },
-		{ "max-points", required_argument, NULL, OPT_MAX_POINTS },
-		{ "merge", no_argument, NULL, OPT_MERGE },
-		{ "min-span", required_argument, NULL, OPT_MIN_SPAN },
-		{ "min-step", required_argument, NULL, OPT_MIN_STEP },
-		{ "min-steps", required_argument, NULL, OPT_MIN_STEPS },
-		{ "output", required_argument, NULL, 'o' },
-		{ "ref-temp", required_argument, NULL, OPT_REF_TEMP },
-		{ "soc", required_argument, NULL, OPT_SOC },
-		{ "state", required_argument, NULL, OPT_STATE },
-		{ "state-out", no_argument, NULL, OPT_STATE_OUT },
-		{ "steady", required_argument, NULL, OPT_STEADY },
-		{ "steady-tol", required_argument, NULL, OPT_STEADY_TOL },
-		{ "temp", required_argument, NULL, OPT_TEMP },
-		{ "trend", no_argument, NULL, 't' },
-		{ "verbose", no_argument, NULL, 'v' },
-		{ "version", no_argument, NULL, OPT_VERSION },
-		{ NULL, 0, NULL, 0 }
-	};
-	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of, *sf = NULL;
-	struct dstate_read rd;
-	const char *outpath = NULL, *state = NULL;
-	int merge = 0, state_out = 0;
-	cw_time lock_wait = LOCK_WAIT_DEFAULT;
+	struct optparse op;
 	double w[2];
-	void **sorted;
-	size_t i, n;
-	int ch, rc;
+	int ch;
 
-	cw_setprog("cw-dcir");
-	memset(&t, 0, sizeof(t));
-	dcir_conf_default(&t.conf);
-	dcir_trend_conf_default(&t.tconf);
-	t.max_points = MAX_POINTS_DEFAULT;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":ho:tv", longopts, NULL)) !=
-	    -1) {
+	dcir_conf_default(&t->conf);
+	dcir_trend_conf_default(&t->tconf);
+	t->max_points = MAX_POINTS_DEFAULT;
+	t->lock_wait = LOCK_WAIT_DEFAULT;
+	optab_init(&op, &tool, t);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'h':
-			usage(stdout);
-			return fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA;
-		case 'o':
-			outpath = optarg;
-			break;
-		case 't':
-			t.trend = 1;
-			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
-		case OPT_ALLOW_NO_SOC:
-			t.conf.unknown_soc_ok = 1;
-			break;
 		case OPT_CONFIDENCE:
-			t.tconf.conf = opt_num_arg("--confidence", optarg,
+			t->tconf.conf = opt_num_arg("--confidence", optarg,
 			    0.5, 1);
-			if (t.tconf.conf <= 0.5 || t.tconf.conf >= 1)
+			if (t->tconf.conf <= 0.5 || t->tconf.conf >= 1)
 				cw_usage_error("--confidence: %s is not "
 				    "between 0.5 and 1 (exclusive)", optarg);
 			break;
-		case OPT_EA:
-			t.conf.ea_kj = opt_num_arg("--ea", optarg, 0, 1000);
-			break;
 		case OPT_EOL:
-			t.tconf.eol_pct = opt_num_arg("--eol", optarg, 100,
+			t->tconf.eol_pct = opt_num_arg("--eol", optarg, 100,
 			    100000);
-			if (t.tconf.eol_pct <= 100)
+			if (t->tconf.eol_pct <= 100)
 				cw_usage_error("--eol: %s is not above 100 "
 				    "(percent of r_start)", optarg);
 			break;
-		case OPT_MAX_DT:
-			t.conf.max_dt = opt_dur_arg("--max-dt", optarg, 0);
-			break;
 		case OPT_MAX_POINTS:
-			t.max_points = (size_t)opt_long_arg("--max-points",
+			t->max_points = (size_t)opt_long_arg("--max-points",
 			    optarg, 16, 1L << 24);
-			break;
-		case OPT_MERGE:
-			merge = 1;
-			break;
-		case OPT_LOCK_WAIT:
-			lock_wait = opt_dur_arg("--lock-wait", optarg, 1);
 			break;
 		case OPT_STATE:
 			if (optarg[0] == '\0')
 				cw_usage_error("--state needs a file name");
-			state = optarg;
-			break;
-		case OPT_STATE_OUT:
-			state_out = t.state_out = 1;
-			break;
-		case OPT_MIN_SPAN:
-			t.tconf.min_span = opt_dur_arg("--min-span", optarg,
-			    1);
+			t->state = optarg;
 			break;
 		case OPT_MIN_STEP:
-			t.conf.min_step = opt_num_arg("--min-step", optarg, 0,
+			t->conf.min_step = opt_num_arg("--min-step", optarg, 0,
 			    1e6);
-			if (t.conf.min_step <= 0)
+			if (t->conf.min_step <= 0)
 				cw_usage_error("--min-step: %s is not above 0",
 				    optarg);
 			break;
 		case OPT_MIN_STEPS:
-			t.tconf.min_steps = (unsigned long)opt_long_arg(
+			t->tconf.min_steps = (unsigned long)opt_long_arg(
 			    "--min-steps", optarg, 2, 1000000000L);
 			break;
 		case OPT_REF_TEMP:
-			t.conf.ref_temp_c = opt_temp_arg("--ref-temp", optarg);
-			if (t.conf.ref_temp_c <= -DCIR_KELVIN)
+			t->conf.ref_temp_c = opt_temp_arg("--ref-temp",
+			    optarg);
+			if (t->conf.ref_temp_c <= -DCIR_KELVIN)
 				cw_usage_error("--ref-temp: %s is not above "
 				    "absolute zero", optarg);
 			break;
 		case OPT_SOC:
 			if (strcmp(optarg, "auto") == 0) {
-				t.conf.soc_auto = 1;
+				t->conf.soc_auto = 1;
 				break;
 			}
-			t.conf.soc_auto = 0;
+			t->conf.soc_auto = 0;
 			opt_list_arg("--soc", optarg, w, 2, 0, 1);
 			if (w[0] < 0 || w[1] > 100)
 				cw_usage_error("--soc: %s is not within "
 				    "0..100", optarg);
-			t.conf.soc_lo = w[0];
-			t.conf.soc_hi = w[1];
-			break;
-		case OPT_STEADY:
-			t.conf.steady_n = (int)opt_long_arg("--steady", optarg,
-			    1, DCIR_HIST_MAX);
-			break;
-		case OPT_STEADY_TOL:
-			t.conf.steady_tol = opt_num_arg("--steady-tol", optarg,
-			    0, 100);
+			t->conf.soc_lo = w[0];
+			t->conf.soc_hi = w[1];
 			break;
 		case OPT_TEMP:
 			opt_list_arg("--temp", optarg, w, 2, 1, 1);
 			if (w[0] <= -DCIR_KELVIN)
 				cw_usage_error("--temp: %s: the window must "
 				    "lie above absolute zero", optarg);
-			t.conf.temp_lo = w[0];
-			t.conf.temp_hi = w[1];
+			t->conf.temp_lo = w[0];
+			t->conf.temp_hi = w[1];
 			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
-
-	if (state != NULL && outpath != NULL && strcmp(state, outpath) == 0)
+	optab_free(&op);
+	if (t->state != NULL && t->outpath != NULL &&
+	    strcmp(t->state, t->outpath) == 0)
 		cw_usage_error("--state and -o name the same file");
 	/* --merge has no steps to list: the trend, or the state. */
-	if (merge && !state_out)
-		t.trend = 1;
-	t.keep = t.trend || state != NULL || state_out;
-	t.sconf.c = &t.conf;
-	t.sconf.max_points = t.max_points;
+	if (t->merge && !t->state_out)
+		t->trend = 1;
+	t->keep = t->trend || t->state != NULL || t->state_out;
+	t->sconf.c = &t->conf;
+	t->sconf.max_points = t->max_points;
+	return optind;
+}
 
-	devs = devtab_new(sizeof(struct dev));
-	t.devs = devs;
-	memset(&rd, 0, sizeof(rd));
-	rd.sc = &t.sconf;
-	rd.dev = on_state;
-	rd.ctx = &t;
-	/* One run at a time on a state, from its read to its rename. */
-	if (state != NULL)
-		lock_state(state, lock_wait);
-	if (state != NULL && exists(state)) {
-		if ((rc = dstate_read(&rd, state, 1)) != 0 ||
-		    (rc = flush(&t)) != 0)
-			exit(rc);
-		/* Rows go on from each state, in order from there. */
-		for (i = 0; !merge && i < devtab_count(devs); i++) {
-			struct dev *d = devtab_at(devs, i);
+/*
+ * The --state FILE, when there is one, locked from its read to its
+ * rename, read and joined; rows then go on from each state.  Returns 0
+ * or the exit status.
+ */
+static int
+load_state(struct tool *t, struct dstate_read *rd)
+{
+	size_t i;
+	int rc;
 
-			d->loaded = 1;
-			d->upto = d->ds.last;
-			d->e.last_t = INT64_MIN;
-		}
+	if (t->state == NULL)
+		return 0;
+	lock_state(t->state, t->lock_wait);
+	if (!exists(t->state))
+		return 0;
+	if ((rc = dstate_read(rd, t->state, 1)) != 0 || (rc = flush(t)) != 0)
+		return rc;
+	for (i = 0; !t->merge && i < devtab_count(t->devs); i++) {
+		struct dev *d = devtab_at(t->devs, i);
+
+		d->loaded = 1;
+		d->upto = d->ds.last;
+		d->e.last_t = INT64_MIN;
 	}
-	if (state != NULL)
-		sf = outf_open(state);
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	if (!state_out)
-		csvout_header(&t.out, t.trend ? TREND_HEADER : STEP_HEADER);
+	return 0;
+}
 
-	if (merge) {
-		/* File operands are whole states; a stream may be sorted. */
-		for (i = 0; i < (size_t)argc; i++)
-			if ((rc = dstate_read(&rd, argv[i],
-			    strcmp(argv[i], "-") != 0)) != 0)
-				exit(rc);
-		if ((argc == 0 && (rc = dstate_read(&rd, "-", 0)) != 0) ||
-		    (rc = flush(&t)) != 0)
-			exit(rc);
-		if (cw_verbose)
-			cw_warn("%lu state rows read (%lu header, %lu end "
-			    "rows), %zu devices, %lu steps found across joins",
-			    rd.rows, rd.headers, rd.ends, devtab_count(devs),
-			    t.joined);
-		goto out;
-	}
+/*
+ * --merge: the operands (standard input when none) are states, joined;
+ * a file operand is a whole state, a stream may be sorted.  Returns 0 or
+ * the exit status.
+ */
+static int
+merge(struct tool *t, struct dstate_read *rd, char **argv, int argc)
+{
+	int k, rc;
+
+	for (k = 0; k < argc; k++)
+		if ((rc = dstate_read(rd, argv[k],
+		    strcmp(argv[k], "-") != 0)) != 0)
+			return rc;
+	if ((argc == 0 && (rc = dstate_read(rd, "-", 0)) != 0) ||
+	    (rc = flush(t)) != 0)
+		return rc;
+	if (cw_verbose)
+		cw_warn("%lu state rows read (%lu header, %lu end rows), %zu "
+		    "devices, %lu steps found across joins", rd->rows,
+		    rd->headers, rd->ends, devtab_count(t->devs), t->joined);
+	return 0;
+}
+
+/* The sample stream of the operands.  Returns 0 or the exit status. */
+static int
+samples(struct tool *t, char **argv, int argc)
+{
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	int rc;
 
 	memset(&sc, 0, sizeof(sc));
 	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
 	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT);
 	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
+	sc.ctx = t;
+	sc.devs = t->devs;
 	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc != 0) {
-		/* Complete rows written so far stay; the output is not
-		 * committed, so -o FILE keeps its old contents. */
-		csvout_flush(&t.out);
-		if (cw_verbose)
-			report(&t, devs, &st);
-		n = devtab_count(devs);
-		for (i = 0; i < n; i++)
-			dstate_free(&((struct dev *)devtab_at(devs, i))->ds);
-		csvout_free(&t.out);
-		devtab_free(devs);
-		return rc;
-	}
 	if (cw_verbose)
-		report(&t, devs, &st);
-	if (t.stale > 0)
+		report(t, t->devs, &st);
+	if (rc == 0 && t->stale > 0)
 		cw_warn("%lu rows not after the end of their device's state in "
-		    "%s skipped (already in it)", t.stale, state);
+		    "%s skipped (already in it)", t->stale, t->state);
+	return rc;
+}
 
-out:
-	sorted = devtab_sorted(devs);
-	n = devtab_count(devs);
-	if (t.trend && !state_out)
+int
+main(int argc, char *argv[])
+{
+	struct tool t;
+	struct outf *of, *sf = NULL;
+	struct dstate_read rd;
+	void **sorted;
+	size_t i, n;
+	int k, rc;
+
+	cw_setprog("cw-dcir");
+	memset(&t, 0, sizeof(t));
+	k = parse(&t, argc, argv);
+	argc -= k;
+	argv += k;
+	t.devs = devtab_new(sizeof(struct dev));
+	memset(&rd, 0, sizeof(rd));
+	rd.sc = &t.sconf;
+	rd.dev = on_state;
+	rd.ctx = &t;
+	if ((rc = load_state(&t, &rd)) != 0)
+		return rc;
+	if (t.state != NULL)
+		sf = outf_open(t.state);
+	of = outf_open(t.outpath);
+	csvout_init(&t.out, outf_fp(of));
+	/* Steps are written as they come; a merge writes after reading. */
+	if (!t.state_out && !t.merge)
+		csvout_header(&t.out, t.trend ? TREND_HEADER : STEP_HEADER);
+	rc = t.merge ? merge(&t, &rd, argv, argc) : samples(&t, argv, argc);
+	if (rc == 0 && !t.state_out && t.merge)
+		csvout_header(&t.out, TREND_HEADER);
+	sorted = devtab_sorted(t.devs);
+	n = devtab_count(t.devs);
+	if (rc == 0 && t.trend && !t.state_out)
 		for (i = 0; i < n; i++)
 			write_trend(&t, sorted[i]);
-	if (csvout_flush(&t.out) != 0) {
-		cw_warn("%s: write error: %s", outpath != NULL ? outpath :
-		    "standard output", strerror(errno));
-		return CW_EXIT_DATA;
-	}
-	if (state_out)
-		write_states(of, outpath, &t, sorted, n);
-	if (state != NULL)
-		write_states(sf, state, &t, sorted, n);
+	/*
+	 * After a data error, complete rows written so far stay; -o FILE
+	 * is not committed and keeps its old contents.  The state moves on
+	 * last, once the output is out.
+	 */
+	if (rc == 0 && t.state_out)
+		write_states(of, t.outpath, &t, sorted, n);
+	if (rc == 0 && sf != NULL)
+		write_states(sf, t.state, &t, sorted, n);
+	rc = cw_finish(&t.out, of, t.outpath, rc);
+	if (rc == 0 && sf != NULL && outf_commit(sf) != 0)
+		rc = CW_EXIT_DATA;
 	for (i = 0; i < n; i++)
 		dstate_free(&((struct dev *)sorted[i])->ds);
 	free(sorted);
 	free(t.piece);
-	/* The state moves on last, once the output is out. */
-	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
-		return CW_EXIT_DATA;
 	csvout_free(&t.out);
-	devtab_free(devs);
-	return CW_EXIT_OK;
+	devtab_free(t.devs);
+	return rc;
 }

@@ -2,6 +2,7 @@
  * cw-rainflow: rainflow cycle counting per device (ASTM E1049-85) over
  * the sample stream.  The counting is lib/rainflow.c; this is the glue.
  */
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -10,6 +11,7 @@
 #include "cw.h"
 #include "devtab.h"
 #include "finish.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -17,39 +19,6 @@
 #include "sampin.h"
 
 enum { OUT_CYCLES, OUT_HISTOGRAM, OUT_MATRIX, OUT_SUMMARY };
-
-enum {
-	OPT_HISTOGRAM = OPTAB_LONG, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
-	OPT_SIGNAL
-};
-
-static const struct optab opts[] = {
-	{ "histogram", 0, "WIDTH", "one row per range bin of width WIDTH",
-	    NULL, OPT_HISTOGRAM },
-	{ "hysteresis", 0, "X", "ignore reversals smaller than X", "1",
-	    OPT_HYSTERESIS },
-	{ "matrix", 0, "WIDTH[,MEAN_WIDTH]", "the range-mean matrix, range "
-	    "bins WIDTH wide and mean bins MEAN_WIDTH wide", "WIDTH",
-	    OPT_MATRIX },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
-	{ "residue", 0, "half|full|repeat", "count the residue as half "
-	    "cycles, full cycles, or as if the history repeated", "half",
-	    OPT_RESIDUE },
-	{ "summary", 's', NULL, "one row per device instead of one per cycle",
-	    NULL, 0 },
-	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
-	    OPT_SIGNAL },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
-};
-
-static const struct optool tool = {
-	"cw-rainflow", "[FILE ...]",
-	"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
-	"--histogram, --matrix and --summary exclude each other.\n",
-	opts
-};
 
 /* One device's state; the devtab header comes first. */
 struct dev {
@@ -63,6 +32,7 @@ struct dev {
 };
 
 struct run {
+	const char *outpath;	/* -o FILE, or NULL */
 	int out;		/* OUT_* */
 	int residue;		/* RF_RESIDUE_* */
 	int col;		/* the signal's sampin column */
@@ -75,7 +45,44 @@ struct run {
 	unsigned long nosig;	/* rows without a numeric signal */
 };
 
-static int parse(struct run *, int, char *[], const char **);
+enum {
+	OPT_HISTOGRAM = OPTAB_LONG, OPT_HYSTERESIS, OPT_MATRIX, OPT_RESIDUE,
+	OPT_SIGNAL
+};
+
+/* Where an option of the table is stored: a member of struct run. */
+#define R(m)	offsetof(struct run, m)
+
+static const struct optab opts[] = {
+	{ "histogram", 0, "WIDTH", "one row per range bin of width WIDTH",
+	    NULL, OPT_HISTOGRAM },
+	{ "hysteresis", 0, "X", "ignore reversals smaller than X", "1",
+	    OPT_HYSTERESIS },
+	{ "matrix", 0, "WIDTH[,MEAN_WIDTH]", "the range-mean matrix, range "
+	    "bins WIDTH wide and mean bins MEAN_WIDTH wide", "WIDTH",
+	    OPT_MATRIX },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0,
+	    OPTAB_STR, R(outpath), 0, 0 },
+	{ "residue", 0, "half|full|repeat", "count the residue as half "
+	    "cycles, full cycles, or as if the history repeated", "half",
+	    OPT_RESIDUE },
+	{ "summary", 's', NULL, "one row per device instead of one per cycle",
+	    NULL, 0 },
+	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
+	    OPT_SIGNAL },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
+};
+
+static const struct optool tool = {
+	"cw-rainflow", "[FILE ...]",
+	"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
+	"--histogram, --matrix and --summary exclude each other.\n",
+	opts,
+	"report counts on standard error"
+};
+
+static int parse(struct run *, int, char *[]);
 static double width_arg(const char *, const char *);
 static double nonneg_arg(const char *, const char *);
 static void matrix_arg(struct run *, const char *);
@@ -267,7 +274,7 @@ write_summary(struct run *r, struct dev *d)
  * first operand.
  */
 static int
-parse(struct run *r, int argc, char *argv[], const char **outpath)
+parse(struct run *r, int argc, char *argv[])
 {
 	struct optparse op;
 	int ch, nout = 0;
@@ -277,15 +284,9 @@ parse(struct run *r, int argc, char *argv[], const char **outpath)
 	r->hyst = 1;
 	r->rw = 1;
 	signal_arg(r, "soc_pct");
-	optab_init(&op, &tool, NULL);
+	optab_init(&op, &tool, r);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
 		case OPT_HISTOGRAM:
 			r->out = OUT_HISTOGRAM;
 			r->rw = width_arg("--histogram", optarg);
@@ -331,42 +332,30 @@ main(int argc, char *argv[])
 		"device,cycles,efc,max_range,mean_range,first,last"
 	};
 	struct run r;
-	struct sampin_conf conf;
-	struct sampin_stats st;
-	struct outf *o;
-	const char *outpath = NULL;
+	struct glue g;
 	void **sorted;
 	size_t i, n;
 	int rc, k;
 
 	cw_setprog("cw-rainflow");
 	memset(&r, 0, sizeof(r));
-	k = parse(&r, argc, argv, &outpath);
-
-	memset(&conf, 0, sizeof(conf));
-	conf.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
-	conf.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(r.col);
-	conf.row = on_row;
-	conf.ctx = &r;
-	r.devs = devtab_new(sizeof(struct dev));
-	conf.devs = r.devs;
-
-	o = outf_open(outpath);
-	csvout_init(&r.w, outf_fp(o));
-	csvout_header(&r.w, header[r.out]);
-	rc = sampin_run(&conf, argv + k, argc - k, &st);
+	k = parse(&r, argc, argv);
+	glue_open(&g, sizeof(struct dev), r.outpath, &r.w, header[r.out]);
+	r.devs = g.devs;
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(r.col), 0, on_row, &r);
+	g.sc.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
+	rc = glue_read(&g, argv + k, argc - k);
 	if (rc != 0)
 		/*
 		 * Rows written to standard output stay (they are whole); an
 		 * output file is not put in place.
 		 */
-		return cw_finish(&r.w, o, outpath, rc);
-	sorted = devtab_sorted(r.devs);
-	n = devtab_count(r.devs);
+		return glue_close(&g, rc);
+	sorted = glue_sorted(&g, &n);
 	for (i = 0; i < n; i++)
 		write_device(&r, sorted[i]);
-	if ((rc = cw_finish(&r.w, o, outpath, CW_EXIT_OK)) != 0)
+	if ((rc = cw_finish(&r.w, g.of, r.outpath, CW_EXIT_OK)) != 0)
 		return rc;
 
 	if (cw_verbose) {
@@ -379,14 +368,14 @@ main(int argc, char *argv[])
 			all.full += d->sum.full;
 			all.half += d->sum.half;
 		}
-		sampin_report(&st, conf.extra);
+		sampin_report(&g.st, g.sc.extra);
 		cw_warn("%zu device%s, %g cycles (%lu full, %lu half)", n,
 		    n == 1 ? "" : "s", all.cycles, all.full, all.half);
 		cw_warn("%lu rows without a numeric %s value skipped",
 		    r.nosig, r.signal);
-	} else if (st.used > 0 && r.nosig == st.used)
+	} else if (g.st.used > 0 && r.nosig == g.st.used)
 		cw_warn("no row has a numeric %s value (%lu rows)", r.signal,
-		    st.used);
+		    g.st.used);
 	for (i = 0; i < n; i++) {
 		struct dev *d = sorted[i];
 

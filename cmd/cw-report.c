@@ -56,8 +56,6 @@ static const struct optab opts[] = {
 	{ "topoff", 0, "N", "show top-off micro-cycles a day of N or more "
 	    "beside a listed pack", "10", OPT_TOPOFF },
 	{ "tz", 0, "+HH:MM", "dates at this offset from UTC", "UTC", OPT_TZ },
-	{ "verbose", 'v', NULL, "say what each input file was taken for",
-	    NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -70,7 +68,8 @@ static const struct optool tool = {
 	"attention, 0 when none does.\n",
 	"The thresholds are common practice, no source; the cell maker's data\n"
 	"sheet rules.  The report advises; it is not a safety system.\n",
-	opts
+	opts,
+	"say what each input file was taken for"
 };
 
 
@@ -98,9 +97,6 @@ main(int argc, char *argv[])
 			break;
 		case 'o':
 			outpath = optarg;
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_BY:
 			if (strcmp(optarg, "site") == 0)

@@ -53,7 +53,6 @@ static const struct optab opts[] = {
 	    0 },
 	{ "tz", 0, "+hh:mm", "the fleet's local time offset", "+01:00",
 	    OPT_TZ },
-	{ "verbose", 'v', NULL, "print what was written to stderr", NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -63,7 +62,8 @@ static const struct optool tool = {
 	"and write its raw gauge logs, one gzipped file per local day, with\n"
 	"the truth that was injected beside them.\n",
 	NULL,
-	opts
+	opts,
+	"print what was written to stderr"
 };
 
 static uint64_t seed_arg(const char *);
@@ -187,9 +187,6 @@ main(int argc, char *argv[])
 			break;
 		case 's':
 			c.seed = seed_arg(optarg);
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case 'z':
 			c.level = (int)opt_long_arg("--level", optarg, 0, 9);

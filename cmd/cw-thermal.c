@@ -13,6 +13,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -49,6 +50,7 @@ struct byval {
 };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
 	struct thermal_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -107,12 +109,12 @@ static const struct optab opts[] = {
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "summary", 's', NULL, "one row per device (per value with --by) "
 	    "instead of one per event", NULL, 0 },
 	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
 	    OPT_USE_LIMITS },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
 	{ "warm-margin", 0, "V", "voltage per cell allowed above the warm "
 	    "voltage", "0.02", OPT_WARM_MARGIN,
 	    OPTAB_NUM, T(conf.warm_margin), 0, 1 },
@@ -132,16 +134,17 @@ static const struct optool tool = {
 	"one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
 	"Durations take 90, 90s, 15m, 2h, 1d.\n"
 	"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
-static int	parse(struct tool *t, int argc, char *argv[],
-		    const char **outpath);
+static int	parse(struct tool *t, int argc, char *argv[]);
 static void	write_header(struct tool *t);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct thermal_dev *th,
 		    const struct thermal_event *ev);
 static void	write_summary(struct tool *t, const struct dev *d);
+static void	end_dev(void *ctx, void *dev);
 static struct byval *by_value(struct tool *t, struct dev *d,
 		    const struct cw_sample *s);
 static void	write_by_header(struct tool *t);
@@ -219,9 +222,7 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_str(&t->out, thermal_kind_name(ev->kind));
 	csvout_str(&t->out, thermal_zone_name(ev->zone));
-	csvout_time(&t->out, ev->start);
-	csvout_time(&t->out, ev->end);
-	csvout_num(&t->out, (double)(ev->end - ev->start) / CW_US_PER_S);
+	glue_span(&t->out, ev->start, ev->end);
 	csvout_num(&t->out, ev->temp_min);
 	csvout_num(&t->out, ev->temp_max);
 	csvout_num(&t->out, ev->charge_ah);
@@ -322,6 +323,18 @@ write_by_summary(struct tool *t, const struct byval *v)
 	csvout_endrow(&t->out);
 }
 
+/* The end of the stream for device DEV: its open event, its summary. */
+static void
+end_dev(void *ctx, void *dev)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	thermal_finish(&d->th, &t->conf);
+	if (t->summary && t->by == NULL)
+		write_summary(t, d);
+}
+
 static void
 write_summary(struct tool *t, const struct dev *d)
 {
@@ -386,7 +399,7 @@ report(const struct devtab *devs, const struct sampin_stats *st,
  * first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL;
@@ -398,14 +411,8 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 's':
 			t->summary = 1;
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_BY:
 			if (optarg[0] == '\0')
@@ -460,11 +467,7 @@ int
 main(int argc, char *argv[])
 {
 	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
-	const char *outpath = NULL;
+	struct glue g;
 	void **sorted;
 	size_t i, n;
 	int rc, k;
@@ -473,41 +476,21 @@ main(int argc, char *argv[])
 	memset(&t, 0, sizeof(t));
 	thermal_conf_default(&t.conf);
 	t.cap_ah = CW_MISSING;
-	k = parse(&t, argc, argv, &outpath);
-	argc -= k;
-	argv += k;
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, NULL);
 	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP);
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0, on_row, &t);
 	if (t.by != NULL) {
-		sc.tag = t.by;
-		sc.need |= SAMP_BIT(SAMP_TAG);
+		g.sc.tag = t.by;
+		g.sc.need |= SAMP_BIT(SAMP_TAG);
 		t.vals = devtab_new(sizeof(struct byval));
 		t.pairs = devtab_new(sizeof(struct devent));
 	}
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc == 0) {
-		/* What is still open ends with the stream, in name order. */
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
-		for (i = 0; i < n; i++)
-			thermal_finish(&((struct dev *)sorted[i])->th,
-			    &t.conf);
-		if (t.summary && t.by == NULL)
-			for (i = 0; i < n; i++)
-				write_summary(&t, sorted[i]);
-		free(sorted);
-	}
+	/* What is still open ends with the stream, in name order. */
+	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (rc == 0 && t.summary && t.by != NULL) {
 		sorted = devtab_sorted(t.vals);
 		n = devtab_count(t.vals);
@@ -516,12 +499,8 @@ main(int argc, char *argv[])
 		free(sorted);
 	}
 	if (cw_verbose)
-		report(devs, &st, t.by);
-	/* After a data error, complete rows written so far stay; -o FILE
-	 * is not committed and keeps its old contents. */
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
-	devtab_free(devs);
+		report(g.devs, &g.st, t.by);
+	rc = glue_close(&g, rc);
 	if (t.by != NULL) {
 		devtab_free(t.vals);
 		devtab_free(t.pairs);

@@ -13,6 +13,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -38,6 +39,7 @@ struct dev {
 enum mode { MODE_HOLDS, MODE_EVENTS, MODE_SUMMARY };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
 	struct topoff_conf conf;
 	struct csvout out;
 	int mode;		/* enum mode */
@@ -82,7 +84,8 @@ static const struct optab opts[] = {
 	    "counts", "0.5", OPT_MIN_DEPTH,
 	    OPTAB_NUM, T(conf.min_depth), 0.001, 100 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "summary", 's', NULL, "one row per device (-e and -s exclude each "
 	    "other)", NULL, 0 },
 	{ "standby-current", 0, "A", "discharge up to A amperes is standby "
@@ -98,7 +101,6 @@ static const struct optab opts[] = {
 	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
 	    OPT_USE_DIPS,
 	    OPTAB_FLAG, T(use_dips), 0, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -108,7 +110,8 @@ static const struct optool tool = {
 	"driven by use (discharge above the standby level) are counted\n"
 	"apart.\n",
 	"Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static struct dev *dev_of(struct topoff *top);
@@ -119,6 +122,7 @@ static void	on_cycle(void *ctx, struct topoff *top,
 static void	on_hold(void *ctx, struct topoff *top,
 		    const struct topoff_hold *h);
 static void	write_summary(struct tool *t, const struct dev *d);
+static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
 /* The device state that embeds TOP. */
@@ -192,9 +196,7 @@ on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 	if (t->mode != MODE_HOLDS)
 		return;
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
-	csvout_time(&t->out, h->start);
-	csvout_time(&t->out, h->end);
-	csvout_num(&t->out, (double)(h->end - h->start) / CW_US_PER_S);
+	glue_span(&t->out, h->start, h->end);
 	csvout_int(&t->out, (long long)h->cycles);
 	if (h->cycles > 0) {
 		csvout_num(&t->out, h->depth_sum / (double)h->cycles);
@@ -206,6 +208,18 @@ on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 	csvout_num(&t->out, h->topoff_ah);
 	csvout_int(&t->out, (long long)h->use_dips);
 	csvout_endrow(&t->out);
+}
+
+/* The end of the stream for device DEV: its open hold, its summary. */
+static void
+end_dev(void *ctx, void *dev)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	topoff_finish(&d->top, &t->conf);
+	if (t->mode == MODE_SUMMARY)
+		write_summary(t, d);
 }
 
 static void
@@ -288,7 +302,7 @@ report(const struct devtab *devs, const struct sampin_stats *st)
  * first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL;
@@ -302,14 +316,8 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 		case 'e':
 			events = 1;
 			break;
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 's':
 			summary = 1;
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_CAPACITY:
 			t->capacity = opt_num_arg("--capacity", optarg, 0,
@@ -356,58 +364,26 @@ main(int argc, char *argv[])
 	static const char *const header[] = { HOLD_HEADER, EVENT_HEADER,
 	    SUMMARY_HEADER };
 	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
-	const char *outpath = NULL;
-	void **sorted;
-	size_t i, n;
+	struct glue g;
 	int rc, k;
 
 	cw_setprog("cw-topoff");
 	memset(&t, 0, sizeof(t));
-	k = parse(&t, argc, argv, &outpath);
-	argc -= k;
-	argv += k;
-
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, header[t.mode]);
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, header[t.mode]);
 	t.conf.on_cycle = on_cycle;
 	t.conf.on_hold = on_hold;
 	t.conf.on_use = on_cycle;
 	t.conf.ctx = &t;
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT);
-	sc.need_any = SAMP_BIT(SAMP_SOC);
-	if (cw_isnum(t.conf.full_v))
-		sc.need_any |= SAMP_BIT(SAMP_VOLTAGE);
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc == 0) {
-		/* Holds still open end with the stream, in name order. */
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
-		for (i = 0; i < n; i++)
-			topoff_finish(&((struct dev *)sorted[i])->top, &t.conf);
-		if (t.mode == MODE_SUMMARY)
-			for (i = 0; i < n; i++)
-				write_summary(&t, sorted[i]);
-		free(sorted);
-	}
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
+	    (cw_isnum(t.conf.full_v) ? SAMP_BIT(SAMP_VOLTAGE) : 0), on_row,
+	    &t);
+	/* Holds still open end with the stream, in name order. */
+	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (cw_verbose)
-		report(devs, &st);
-	/* After a data error, complete rows written so far stay; -o FILE
-	 * is not committed and keeps its old contents. */
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
-	devtab_free(devs);
+		report(g.devs, &g.st);
+	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	return rc;
 }

@@ -13,6 +13,7 @@
 #include "devtab.h"
 #include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "opt.h"
 #include "optab.h"
 #include "outf.h"
@@ -34,6 +35,7 @@ struct dev {
 };
 
 struct tool {
+	const char *outpath;	/* -o FILE, or NULL */
 	struct volt_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -51,6 +53,7 @@ static void	on_event(void *ctx, struct volt_dev *vd,
 		    const struct volt_event *ev);
 static void	num_or_empty(struct csvout *o, double x);
 static void	write_summary(struct tool *t, const struct dev *d);
+static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
 
@@ -80,10 +83,10 @@ static const struct optab opts[] = {
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0 },
+	    "output", NULL, 0,
+	    OPTAB_STR, T(outpath), 0, 0 },
 	{ "summary", 's', NULL, "one row per device instead of one per event",
 	    NULL, 0 },
-	{ "verbose", 'v', NULL, "report counts on standard error", NULL, 0 },
 	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
@@ -94,7 +97,8 @@ static const struct optool tool = {
 	"The default limits are typical of NMC and LCO cells, from memory;\n"
 	"LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
 	"maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts
+	opts,
+	"report counts on standard error"
 };
 
 static int
@@ -123,9 +127,7 @@ on_event(void *ctx, struct volt_dev *vd, const struct volt_event *ev)
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_str(&t->out, volt_kind_name(ev->kind));
 	csvout_str(&t->out, volt_limit_name(ev->limit));
-	csvout_time(&t->out, ev->start);
-	csvout_time(&t->out, ev->end);
-	csvout_num(&t->out, (double)(ev->end - ev->start) / CW_US_PER_S);
+	glue_span(&t->out, ev->start, ev->end);
 	csvout_num(&t->out, ev->v_min);
 	csvout_num(&t->out, ev->v_max);
 	csvout_num(&t->out, ev->charge_ah);
@@ -143,6 +145,18 @@ num_or_empty(struct csvout *o, double x)
 		csvout_num(o, x);
 	else
 		csvout_empty(o);
+}
+
+/* The end of the stream for device DEV: its open event, its summary. */
+static void
+end_dev(void *ctx, void *dev)
+{
+	struct tool *t = ctx;
+	struct dev *d = dev;
+
+	volt_finish(&d->v, &t->conf);
+	if (t->summary)
+		write_summary(t, d);
 }
 
 static void
@@ -204,7 +218,7 @@ report(const struct devtab *devs, const struct sampin_stats *st)
  * first operand.
  */
 static int
-parse(struct tool *t, int argc, char *argv[], const char **outpath)
+parse(struct tool *t, int argc, char *argv[])
 {
 	struct optparse op;
 	const char *fleetpath = NULL;
@@ -215,14 +229,8 @@ parse(struct tool *t, int argc, char *argv[], const char **outpath)
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'o':
-			*outpath = optarg;
-			break;
 		case 's':
 			t->summary = 1;
-			break;
-		case 'v':
-			cw_verbose = 1;
 			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
@@ -246,52 +254,23 @@ int
 main(int argc, char *argv[])
 {
 	struct tool t;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct devtab *devs;
-	struct outf *of;
-	const char *outpath = NULL;
-	void **sorted;
-	size_t i, n;
+	struct glue g;
 	int rc, k;
 
 	cw_setprog("cw-volt");
 	memset(&t, 0, sizeof(t));
-	k = parse(&t, argc, argv, &outpath);
-	argc -= k;
-	argv += k;
-	devs = devtab_new(sizeof(struct dev));
-	of = outf_open(outpath);
-	csvout_init(&t.out, outf_fp(of));
-	csvout_header(&t.out, t.summary ? SUMMARY_HEADER : EVENT_HEADER);
+	k = parse(&t, argc, argv);
+	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.summary ?
+	    SUMMARY_HEADER : EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT);
-	sc.row = on_row;
-	sc.ctx = &t;
-	sc.devs = devs;
-	rc = sampin_run(&sc, argv, argc, &st);
-	if (rc == 0) {
-		/* What is still open ends with the stream, in name order. */
-		sorted = devtab_sorted(devs);
-		n = devtab_count(devs);
-		for (i = 0; i < n; i++)
-			volt_finish(&((struct dev *)sorted[i])->v, &t.conf);
-		if (t.summary)
-			for (i = 0; i < n; i++)
-				write_summary(&t, sorted[i]);
-		free(sorted);
-	}
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0, on_row, &t);
+	/* What is still open ends with the stream, in name order. */
+	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (cw_verbose)
-		report(devs, &st);
-	/* After a data error, complete rows written so far stay; -o FILE
-	 * is not committed and keeps its old contents. */
-	rc = cw_finish(&t.out, of, outpath, rc);
-	csvout_free(&t.out);
-	devtab_free(devs);
+		report(g.devs, &g.st);
+	rc = glue_close(&g, rc);
 	fleet_free(t.fleet);
 	return rc;
 }

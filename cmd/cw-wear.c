@@ -1,10 +1,10 @@
 /*
  * cw-wear: wear stress and modelled capacity fade per device, one row
  * each, from the sample stream.  The engine is lib/wear.c; the models are
- * in lib/model.c.
+ * in lib/model.c; how saved states are joined, lib/wearjoin.c.
  */
 #include <errno.h>
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -14,15 +14,19 @@
 #include "cw.h"
 #include "devtab.h"
 #include "dwell.h"
+#include "finish.h"
 #include "fleet.h"
+#include "glue.h"
 #include "measured.h"
 #include "lock.h"
 #include "model.h"
 #include "opt.h"
+#include "optab.h"
 #include "outf.h"
 #include "sampin.h"
 #include "ts.h"
 #include "wear.h"
+#include "wearjoin.h"
 #include "wearstate.h"
 
 #define HEADER "device,first,last,days,charge_ah,efc,max_depth_pct," \
@@ -35,20 +39,7 @@
 #define HEADER_FIT "quantity,before,after,stderr"
 #define HEADER_DWELL "device,soc_lo,soc_hi,temp_lo_c,temp_hi_c,hours," \
 	"idle_hours"
-#define MAXWARN 10	/* messages of one kind, then only a count */
-
-/* A device's state in the devtab: the devent first, as devtab.h asks. */
-struct dev {
-	struct devent e;
-	int started;
-	int loaded;		/* from a --state file, up to UPTO */
-	int past;		/* a row after UPTO came */
-	int seen_end;		/* a row at UPTO came: the state's last */
-	cw_time upto;
-	cw_time stale_first, stale_last;	/* rows up to UPTO */
-	unsigned long nstale;
-	struct wear_dev w;
-};
+#define MAXWARN WJOIN_MAXWARN
 
 /* A device's state with --dwell. */
 struct ddev {
@@ -56,337 +47,135 @@ struct ddev {
 	struct dwell_dev d;
 };
 
-/* A state read back, with where it came from. */
-struct piece {
-	struct wear_dev w;
-	unsigned long line;
-	char src[256];
-};
-
 struct run {
 	struct wear_conf conf;
 	double capacity;	/* Ah, 0 when not given */
 	struct fleet *fleet;	/* --fleet, or NULL */
-	const char *fleet_path;
 	struct meas *meas;	/* --measured, or NULL */
 	unsigned long meas_why[MEAS_NWHY];	/* packs by why (not) */
 	unsigned long late_service;	/* in_service after the first row */
-	struct devtab *devs;
-	unsigned long joins;	/* states joined after or before another */
-	unsigned long stale;	/* rows already in a loaded state */
-	unsigned long stale_devs;
-	unsigned long straddles;	/* states overlapping by a little */
-	/* States read for RUN_DEV, not joined yet. */
-	struct dev *run_dev;
-	struct piece *piece;
-	size_t npiece, piececap;
+	struct wjoin join;	/* the devices and their states */
+	struct wstate_read rd;
+	/* The options. */
+	const char *out, *state, *fleet_path, *measured;
+	double cycle_life, calendar_life;	/* 0: not given */
+	int merge, state_out, dwell, fitting, partition;
+	cw_time lock_wait;
+	unsigned fixed;		/* WSTATE_SET_*: settings given */
 };
 
 enum {
-	OPT_CALENDAR_LIFE = 256, OPT_CAPACITY, OPT_CYCLE_LIFE, OPT_DWELL,
-	OPT_FIT_SCALES, OPT_FLEET, OPT_FULL,
-	OPT_FULL_VOLTAGE, OPT_HYSTERESIS, OPT_LIMITS, OPT_LOCK_WAIT,
-	OPT_MAX_GAP, OPT_MERGE, OPT_MEASURED, OPT_MIN_CURRENT, OPT_MIN_DEPTH,
-	OPT_MODEL, OPT_PARTITION, OPT_RESIDUE, OPT_STATE,
-	OPT_STATE_OUT, OPT_VERSION
+	OPT_CALENDAR_LIFE = OPTAB_LONG, OPT_CAPACITY, OPT_CYCLE_LIFE,
+	OPT_DWELL, OPT_FIT_SCALES, OPT_FLEET, OPT_FULL, OPT_FULL_VOLTAGE,
+	OPT_HYSTERESIS, OPT_LIMITS, OPT_LOCK_WAIT, OPT_MAX_GAP, OPT_MERGE,
+	OPT_MEASURED, OPT_MIN_CURRENT, OPT_MIN_DEPTH, OPT_MODEL,
+	OPT_PARTITION, OPT_RESIDUE, OPT_STATE, OPT_STATE_OUT
 };
 
-static const struct option longopts[] = {
-	{ "calendar-life", required_argument, NULL, OPT_CALENDAR_LIFE },
-	{ "capacity", required_argument, NULL, OPT_CAPACITY },
-	{ "cycle-life", required_argument, NULL, OPT_CYCLE_LIFE },
-	{ "dwell", no_argument, NULL, OPT_DWELL },
-	{ "fit-scales", no_argument, NULL, OPT_FIT_SCALES },
-	{ "fleet", required_argument, NULL, OPT_FLEET },
-	{ "full", required_argument, NULL, OPT_FULL },
-	{ "full-voltage", required_argument, NULL, OPT_FULL_VOLTAGE },
-	{ "help", no_argument, NULL, 'h' },
-	{ "hysteresis", required_argument, NULL, OPT_HYSTERESIS },
-	{ "limits", required_argument, NULL, OPT_LIMITS },
-	{ "lock-wait", required_argument, NULL, OPT_LOCK_WAIT },
-	{ "max-gap", required_argument, NULL, OPT_MAX_GAP },
-	{ "measured", required_argument, NULL, OPT_MEASURED },
-	{ "merge", no_argument, NULL, OPT_MERGE },
-	{ "min-current", required_argument, NULL, OPT_MIN_CURRENT },
-	{ "partition", no_argument, NULL, OPT_PARTITION },
-	{ "min-depth", required_argument, NULL, OPT_MIN_DEPTH },
-	{ "model", required_argument, NULL, OPT_MODEL },
-	{ "output", required_argument, NULL, 'o' },
-	{ "residue", required_argument, NULL, OPT_RESIDUE },
-	{ "state", required_argument, NULL, OPT_STATE },
-	{ "state-out", no_argument, NULL, OPT_STATE_OUT },
-	{ "verbose", no_argument, NULL, 'v' },
-	{ "version", no_argument, NULL, OPT_VERSION },
-	{ NULL, 0, NULL, 0 }
+/* Where an option of the table is stored: a member of struct run. */
+#define R(m)	offsetof(struct run, m)
+
+static const struct optab opts[] = {
+	{ "calendar-life", 0, "DAYS", "DAYS at rest at 25 C, 50 % SoC give "
+	    "20 % fade (unset: the published constant)", NULL,
+	    OPT_CALENDAR_LIFE,
+	    OPTAB_NUM, R(calendar_life), 1e-3, 1e9 },
+	{ "capacity", 0, "AH", "rated capacity, for C-rates and Ah lost",
+	    NULL, OPT_CAPACITY,
+	    OPTAB_NUM, R(capacity), 1e-6, 1e9 },
+	{ "cycle-life", 0, "N", "N full cycles at 25 C, 50 % SoC give 20 % "
+	    "fade (unset: the published constants)", NULL, OPT_CYCLE_LIFE,
+	    OPTAB_NUM, R(cycle_life), 1e-3, 1e9 },
+	{ "dwell", 0, NULL, "hours by SoC and temperature band instead", NULL,
+	    OPT_DWELL,
+	    OPTAB_FLAG, R(dwell), 0, 0 },
+	{ "fit-scales", 0, NULL, "fit the cycle and calendar scales to "
+	    "--measured (least squares over packs) and print them", NULL,
+	    OPT_FIT_SCALES,
+	    OPTAB_FLAG, R(fitting), 0, 0 },
+	{ "fleet", 0, "FILE", "the fleet file: soh_pct, in_service, "
+	    "efc_prior, capacity_ah per pack", NULL, OPT_FLEET,
+	    OPTAB_STR, R(fleet_path), 0, 0 },
+	{ "full", 0, "PCT", "near full at PCT % SoC or more", "95",
+	    OPT_FULL },
+	{ "full-voltage", 0, "V", "judge rows without SoC by voltage", NULL,
+	    OPT_FULL_VOLTAGE },
+	{ "hysteresis", 0, "PCT", "rainflow ignores smaller reversals", "1",
+	    OPT_HYSTERESIS },
+	{ "limits", 0, "T1,T2,T3,T4", "the zone thresholds", "0,10,45,60",
+	    OPT_LIMITS },
+	{ "lock-wait", 0, "DUR", "wait so long for another run on the "
+	    "--state FILE", "1h; 0: refuse at once", OPT_LOCK_WAIT,
+	    OPTAB_DUR, R(lock_wait), -1, 0 },
+	{ "max-gap", 0, "DUR", "a longer interval carries no charge", "15m",
+	    OPT_MAX_GAP },
+	{ "measured", 0, "FILE", "add measured_fade_pct and model_error_pct "
+	    "from a cw-capacity --trend output", NULL, OPT_MEASURED,
+	    OPTAB_STR, R(measured), 0, 0 },
+	{ "merge", 0, NULL, "the operands are states: join and report", NULL,
+	    OPT_MERGE,
+	    OPTAB_FLAG, R(merge), 0, 0 },
+	{ "min-current", 0, "A", "charging above A, idle below", "0.05",
+	    OPT_MIN_CURRENT },
+	{ "min-depth", 0, "PCT", "the smallest top-off micro-cycle", "0.5",
+	    OPT_MIN_DEPTH },
+	{ "model", 0, "NAME", "the degradation model", "xu2018", OPT_MODEL },
+	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
+	    "output", NULL, 0,
+	    OPTAB_STR, R(out), 0, 0 },
+	{ "partition", 0, NULL, "with --merge, standard input holds the "
+	    "states of some devices only (a reducer's share): end rows "
+	    "checked for form, not for the rows they count (unset: whole "
+	    "states, row counts checked)", NULL, OPT_PARTITION,
+	    OPTAB_FLAG, R(partition), 0, 0 },
+	{ "residue", 0, "half|full|repeat", "the open cycles at the end",
+	    "half", OPT_RESIDUE },
+	{ "state", 0, "FILE", "go on from the states in FILE and write them "
+	    "back", NULL, OPT_STATE },
+	{ "state-out", 0, NULL, "write the states instead of the report",
+	    NULL, OPT_STATE_OUT,
+	    OPTAB_FLAG, R(state_out), 0, 0 },
+	{ NULL, 0, NULL, NULL, NULL, 0 }
 };
 
-static void usage(FILE *);
+static const struct optool tool = {
+	"cw-wear", "[FILE ...]",
+	"Wear stress, modelled fade and its causes per pack, from the sample\n"
+	"stream.\n",
+	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; durations "
+	"90, 90s,\n15m, 2h, 1d.  The tools advise; they are not a safety "
+	"system.\n",
+	opts,
+	"report counts on standard error"
+};
+
 static int on_row(void *, void *, const struct cw_sample *);
-static int on_state(void *, const char *, unsigned long, const char *,
-    size_t, struct wear_dev *);
-static int piece_cmp(const void *, const void *);
-static void straddle(struct run *, const struct piece *,
-    const struct dev *, const char *);
-static int flush(struct run *);
-static int exists(const char *);
-static void stale_check(struct run *, const char *);
 static void write_row(struct csvout *, const struct run *,
-    const struct dev *, const struct wear_result *);
+    const struct wjoin_dev *, const struct wear_result *);
 static void write_states(struct outf *, const char *, struct run *,
-    struct dev **, size_t);
-static void report(const struct run *, struct dev **, size_t);
-static void set_prior(struct run *, struct dev *);
+    struct wjoin_dev **, size_t);
+static void report(const struct run *, struct wjoin_dev **, size_t);
+static void set_prior(struct run *, struct wjoin_dev *);
 static int on_dwell(void *, void *, const struct cw_sample *);
-static void dwell_run(struct run *, char **, int, const char *);
+static int dwell_run(struct run *, char **, int);
 static void fit_row(struct csvout *, const char *, double, double, double);
-static void fit_run(struct run *, struct dev **, size_t, struct csvout *);
-
-static void
-usage(FILE *fp)
-{
-	fprintf(fp,
-	    "usage: cw-wear [-hv] [--calendar-life DAYS] [--capacity AH] "
-	    "[--cycle-life N]\n"
-	    "               [--dwell] [--fit-scales] [--fleet FILE] "
-	    "[--full PCT]\n"
-	    "               [--full-voltage V] [--hysteresis PCT] "
-	    "[--limits T1,T2,T3,T4]\n"
-	    "               [--lock-wait DUR] [--max-gap DUR] "
-	    "[--measured FILE] [--merge]\n"
-	    "               [--min-current A] [--min-depth PCT] "
-	    "[--model NAME]\n"
-	    "               [-o FILE] [--partition] [--residue half|full|repeat]\n"
-	    "               [--state FILE] [--state-out] [--version] "
-	    "[file ...]\n"
-	    "\n"
-	    "Wear stress, modelled fade and its causes per pack, from the "
-	    "sample stream.\n"
-	    "\n"
-	    "      --calendar-life DAYS  DAYS at rest at 25 C, 50 %% SoC give "
-	    "20 %% fade\n"
-	    "                            (default: the published constant)\n"
-	    "      --capacity AH         rated capacity, for C-rates and Ah "
-	    "lost\n"
-	    "      --cycle-life N        N full cycles at 25 C, 50 %% SoC give "
-	    "20 %% fade\n"
-	    "                            (default: the published constants)\n"
-	    "      --dwell               hours by SoC and temperature band "
-	    "instead\n"
-	    "      --fit-scales          fit the cycle and calendar scales to "
-	    "--measured\n"
-	    "                            (least squares over packs) and "
-	    "print them\n"
-	    "      --fleet FILE          the fleet file: soh_pct, in_service, "
-	    "efc_prior,\n"
-	    "                            capacity_ah per pack\n"
-	    "      --full PCT            near full at PCT %% SoC or more "
-	    "(default 95)\n"
-	    "      --full-voltage V      judge rows without SoC by voltage\n"
-	    "  -h, --help                print this help and exit 0\n"
-	    "      --hysteresis PCT      rainflow ignores smaller reversals "
-	    "(default 1)\n"
-	    "      --limits T1,T2,T3,T4  the zone thresholds "
-	    "(default 0,10,45,60)\n"
-	    "      --lock-wait DUR       wait so long for another run on the "
-	    "--state FILE\n"
-	    "                            (default 1h; 0: refuse at once)\n"
-	    "      --max-gap DUR         a longer interval carries no charge "
-	    "(default 15m)\n"
-	    "      --measured FILE       add measured_fade_pct and "
-	    "model_error_pct from a\n"
-	    "                            cw-capacity --trend output\n"
-	    "      --merge               the operands are states: join and "
-	    "report\n"
-	    "      --min-current A       charging above A, idle below "
-	    "(default 0.05)\n"
-	    "      --min-depth PCT       the smallest top-off micro-cycle "
-	    "(default 0.5)\n"
-	    "      --model NAME          the degradation model "
-	    "(default xu2018)\n"
-	    "      --partition           with --merge, standard input holds the "
-	    "states\n"
-	    "                            of some devices only (a reducer's "
-	    "share): end\n"
-	    "                            rows checked for form, not for the "
-	    "rows they count\n"
-	    "                            (default: whole states, row counts "
-	    "checked)\n"
-	    "  -o, --output FILE         write to FILE atomically, not "
-	    "standard output\n"
-	    "      --residue half|full|repeat\n"
-	    "                            the open cycles at the end "
-	    "(default half)\n"
-	    "      --state FILE          go on from the states in FILE and "
-	    "write them back\n"
-	    "      --state-out           write the states instead of the "
-	    "report\n"
-	    "  -v, --verbose             report counts on standard error\n"
-	    "      --version             print the version and exit 0\n"
-	    "\n"
-	    "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; "
-	    "durations 90, 90s,\n"
-	    "15m, 2h, 1d.  The tools advise; they are not a safety system.\n");
-}
+static void fit_run(struct run *, struct wjoin_dev **, size_t, struct csvout *);
+static int exists(const char *);
 
 static int
 on_row(void *ctx, void *state, const struct cw_sample *s)
 {
 	struct run *r = ctx;
-	struct dev *d = state;
+	struct wjoin_dev *d = state;
 
-	if (!d->started) {
-		wear_init(&d->w, &r->conf);
-		d->started = 1;
-	}
-	if (d->loaded) {
-		/*
-		 * Rows up to the end of the state are in it already when
-		 * they come with its last row (the same day again); see
-		 * stale_check() for the others.
-		 */
-		if (s->t <= d->upto) {
-			if (d->nstale++ == 0)
-				d->stale_first = s->t;
-			d->stale_last = s->t;
-			d->seen_end |= s->t == d->upto;
-			return 0;
-		}
-		d->loaded = 0;
-		d->past = 1;
-	}
-	wear_push(&d->w, &r->conf, s->t, s->v, s->i, s->temp, s->soc);
-	return 0;
-}
-
-/*
- * A device state read back.  The states of one device that come one after
- * the other (a stream sorted or grouped by device, such as a reducer's
- * input, in which a device's states may come in any time order) are
- * gathered, then joined in time order when another device comes; each
- * must be after or before what its device holds, never overlap it.
- */
-static int
-on_state(void *ctx, const char *src, unsigned long line, const char *name,
-    size_t len, struct wear_dev *w)
-{
-	struct run *r = ctx;
-	struct dev *d;
-	struct piece *p;
-	int rc;
-
-	d = devtab_get(r->devs, name, len, NULL);
-	if (d != r->run_dev && (rc = flush(r)) != 0) {
-		wear_free(w);
-		return rc;
-	}
-	r->run_dev = d;
-	if (r->npiece == r->piececap) {
-		r->piececap = r->piececap ? 2 * r->piececap : 16;
-		r->piece = cw_realloc(r->piece, r->piececap *
-		    sizeof(*r->piece));
-	}
-	p = &r->piece[r->npiece++];
-	p->w = *w;
-	p->line = line;
-	snprintf(p->src, sizeof(p->src), "%s", src);
-	return 0;
-}
-
-static int
-piece_cmp(const void *pa, const void *pb)
-{
-	const struct piece *a = pa, *b = pb;
-
-	if (a->w.acc.first != b->w.acc.first)
-		return a->w.acc.first < b->w.acc.first ? -1 : 1;
-	if (a->w.acc.last != b->w.acc.last)
-		return a->w.acc.last < b->w.acc.last ? -1 : 1;
-	return a->line < b->line ? -1 : a->line > b->line;
-}
-
-/*
- * State P of device D overlaps the one D holds by a little, at its end or
- * its beginning (WHERE): a clock that went back across the boundary of
- * two files.  It is joined all the same, after or before, and counted.
- */
-static void
-straddle(struct run *r, const struct piece *p, const struct dev *d,
-    const char *where)
-{
-	char t[3][TS_FMTMAX];
-
-	if (r->straddles++ >= MAXWARN)
-		return;
-	ts_format(p->w.acc.first, t[0]);
-	ts_format(p->w.acc.last, t[1]);
-	ts_format(where[0] == 'e' ? d->w.acc.last : d->w.acc.first, t[2]);
-	cw_warn_at(p->src, p->line, "the state of %s from %s to %s overlaps "
-	    "the one joined so far, which %s at %s: joined all the same, its "
-	    "rows on the other side of %s counted (one pass over the rows "
-	    "would skip them as going back in time)%s", d->e.name, t[0],
-	    t[1], where, t[2], t[2], r->straddles == MAXWARN ?
-	    " (further ones only counted)" : "");
-}
-
-/* Join the gathered states of R->run_dev into it, in time order. */
-static int
-flush(struct run *r)
-{
-	struct dev *d = r->run_dev;
-	struct wear_dev *w;
-	char t[4][TS_FMTMAX];
-	size_t k;
-
-	if (r->npiece == 0)
-		return 0;
-	qsort(r->piece, r->npiece, sizeof(*r->piece), piece_cmp);
-	for (k = 0; k < r->npiece; k++) {
-		w = &r->piece[k].w;
-		if (!d->started) {
-			d->w = *w;
-			d->started = 1;
-		} else if (w->acc.first >= d->w.acc.last) {
-			wear_join(&d->w, w, &r->conf);
-			r->joins++;
-		} else if (w->acc.last <= d->w.acc.first) {
-			wear_join(w, &d->w, &r->conf);
-			d->w = *w;
-			r->joins++;
-		} else if (w->acc.first > d->w.acc.first &&
-		    w->acc.last > d->w.acc.last) {
-			/* It begins before the end: a clock gone back. */
-			straddle(r, &r->piece[k], d, "ends");
-			wear_join(&d->w, w, &r->conf);
-			r->joins++;
-		} else if (w->acc.first < d->w.acc.first &&
-		    w->acc.last < d->w.acc.last) {
-			straddle(r, &r->piece[k], d, "begins");
-			wear_join(w, &d->w, &r->conf);
-			d->w = *w;
-			r->joins++;
-		} else {
-			ts_format(w->acc.first, t[0]);
-			ts_format(w->acc.last, t[1]);
-			ts_format(d->w.acc.first, t[2]);
-			ts_format(d->w.acc.last, t[3]);
-			cw_warn_at(r->piece[k].src, r->piece[k].line, "the "
-			    "state of %s from %s to %s overlaps the one joined "
-			    "so far, from %s to %s: the same rows twice, or a "
-			    "state that falls between two joined before it",
-			    d->e.name, t[0], t[1], t[2], t[3]);
-			for (; k < r->npiece; k++)
-				wear_free(&r->piece[k].w);
-			r->npiece = 0;
-			return CW_EXIT_DATA;
-		}
-		d->e.last_t = d->w.acc.last;
-	}
-	r->npiece = 0;
+	if (wjoin_row(&r->join, d, s->t) == 0)
+		wear_push(&d->w, &r->conf, s->t, s->v, s->i, s->temp,
+		    s->soc);
 	return 0;
 }
 
 static void
-write_row(struct csvout *w, const struct run *r, const struct dev *d,
+write_row(struct csvout *w, const struct run *r, const struct wjoin_dev *d,
     const struct wear_result *x)
 {
 	csvout_strn(w, d->e.name, d->e.namelen);
@@ -436,7 +225,7 @@ write_row(struct csvout *w, const struct run *r, const struct dev *d,
  */
 static void
 write_states(struct outf *o, const char *path, struct run *r,
-    struct dev **devs, size_t n)
+    struct wjoin_dev **devs, size_t n)
 {
 	FILE *fp = outf_fp(o);
 	size_t k;
@@ -448,14 +237,15 @@ write_states(struct outf *o, const char *path, struct run *r,
 		    &devs[k]->w, &r->conf);
 	if (bad == 0)
 		bad = wstate_write_end(fp, (unsigned long)n);
-	if (bad != 0)
-		cw_die(CW_EXIT_DATA, "%s: write error: %s", path != NULL ?
-		    path : "standard output", strerror(errno));
+	if (bad != 0) {
+		cw_write_error(path, errno);
+		exit(CW_EXIT_DATA);
+	}
 }
 
 /* With -v: what was left out of which term, over all devices. */
 static void
-report(const struct run *r, struct dev **devs, size_t n)
+report(const struct run *r, struct wjoin_dev **devs, size_t n)
 {
 	struct wear_acc t;
 	unsigned long kind[WEAR_PRIOR_NKIND] = { 0 };
@@ -498,73 +288,14 @@ report(const struct run *r, struct dev **devs, size_t n)
 		    r->meas_why[MEAS_NOSLOPE], meas_why(MEAS_NOSLOPE),
 		    r->meas_why[MEAS_UNSURE], meas_why(MEAS_UNSURE),
 		    r->meas_why[MEAS_SPAN], meas_why(MEAS_SPAN));
-	if (r->joins > 0)
+	if (r->join.joins > 0)
 		cw_warn("%lu states joined to the one before or after them",
-		    r->joins);
+		    r->join.joins);
 	if (t.topoff_cut > 0)
 		cw_warn("%lu joins across a hold near full that ran over %d "
 		    "rows without a row that settles the top-off detector: "
 		    "micro-cycles there counted on each side apart",
 		    t.topoff_cut, WEAR_PRE_MAX);
-}
-
-/*
- * Rows of a device at or before the end of its state STATE: the same rows
- * again when its last row is among them (skipped, counted); a clock gone
- * back across the boundary when they are within --max-gap of the end and
- * newer rows follow (skipped, counted apart); otherwise rows the state does
- * not hold (a day that came late): an error, nothing written.
- */
-static void
-stale_check(struct run *r, const char *state)
-{
-	char t[3][TS_FMTMAX];
-	unsigned long late = 0, late_devs = 0, back = 0, back_devs = 0;
-	size_t k;
-
-	for (k = 0; k < devtab_count(r->devs); k++) {
-		struct dev *d = devtab_at(r->devs, k);
-
-		if (d->nstale == 0)
-			continue;
-		if (d->seen_end) {
-			r->stale += d->nstale;
-			r->stale_devs++;
-			continue;
-		}
-		if (d->past && d->stale_first >= d->upto - r->conf.max_gap) {
-			back += d->nstale;
-			back_devs++;
-			continue;
-		}
-		late += d->nstale;
-		if (late_devs++ >= MAXWARN)
-			continue;
-		ts_format(d->stale_first, t[0]);
-		ts_format(d->stale_last, t[1]);
-		ts_format(d->upto, t[2]);
-		cw_warn("%s: %.*s: %lu rows from %s to %s come before the end "
-		    "of its state (%s) but not with its last row: not in the "
-		    "state", state, (int)d->e.namelen, d->e.name, d->nstale,
-		    t[0], t[1], t[2]);
-	}
-	if (late > 0)
-		cw_die(CW_EXIT_DATA, "%s: %lu rows of %lu devices are older "
-		    "than the state and not in it (a day that came late?); "
-		    "nothing written, the state is as it was.  To fold them "
-		    "in, rebuild the state from every day in time order, with "
-		    "each day's cw-wear --state-out and one cw-wear --merge "
-		    "(README, \"A day that comes late\")", state, late,
-		    late_devs);
-	if (back > 0)
-		cw_warn("%s: %lu rows of %lu devices within --max-gap before "
-		    "the end of their state, followed by newer rows (a clock "
-		    "gone back across the boundary?): not in the state, "
-		    "skipped", state, back, back_devs);
-	if (r->stale > 0)
-		cw_warn("%s: %lu rows of %lu devices up to the end of their "
-		    "state came again, its last row among them: already in "
-		    "it, skipped", state, r->stale, r->stale_devs);
 }
 
 /*
@@ -574,7 +305,7 @@ stale_check(struct run *r, const char *state)
  * equivalent full cycles.
  */
 static void
-set_prior(struct run *r, struct dev *d)
+set_prior(struct run *r, struct wjoin_dev *d)
 {
 	const struct fleet_pack *p;
 	struct wear_prior *w = &d->w.prior;
@@ -621,16 +352,15 @@ on_dwell(void *ctx, void *state, const struct cw_sample *s)
 
 /*
  * --dwell: the hours of every device by SoC and temperature band, the
- * cells with time in them only, devices in name order, to OUT.
+ * cells with time in them only, devices in name order, to -o.  Returns
+ * the exit status.
  */
-static void
-dwell_run(struct run *r, char **argv, int argc, const char *out)
+static int
+dwell_run(struct run *r, char **argv, int argc)
 {
 	struct dwell_conf dc;
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g;
 	struct csvout w;
-	struct outf *of;
 	struct ddev **v;
 	unsigned long skipped = 0, empty = 0;
 	size_t n, k;
@@ -638,22 +368,15 @@ dwell_run(struct run *r, char **argv, int argc, const char *out)
 
 	dwell_conf_set(&dc, &r->conf.lim, r->conf.min_current,
 	    r->conf.max_gap);
-	r->devs = devtab_new(sizeof(struct ddev));
-	of = outf_open(out);
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
-	sc.row = on_dwell;
-	sc.ctx = &dc;
-	sc.devs = r->devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_open(&g, sizeof(struct ddev), r->out, &w, NULL);
+	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
+	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), 0, on_dwell, &dc);
+	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
-		sampin_report(&st, NULL);
+		sampin_report(&g.st, NULL);
 	if (rc != 0)
-		exit(rc);
-	v = (struct ddev **)devtab_sorted(r->devs);
-	n = devtab_count(r->devs);
-	csvout_init(&w, outf_fp(of));
+		return glue_close(&g, rc);
+	v = (struct ddev **)glue_sorted(&g, &n);
 	csvout_header(&w, HEADER_DWELL);
 	for (k = 0; k < n; k++) {
 		const struct dwell_dev *d = &v[k]->d;
@@ -674,22 +397,13 @@ dwell_run(struct run *r, char **argv, int argc, const char *out)
 				csvout_endrow(&w);
 			}
 	}
-	if (csvout_flush(&w) != 0) {
-		int e = errno;
-
-		csvout_free(&w);
-		cw_die(CW_EXIT_DATA, "%s: write error: %s", out != NULL ?
-		    out : "standard output", strerror(e));
-	}
-	csvout_free(&w);
-	if (cw_verbose)
+	free(v);
+	rc = glue_close(&g, 0);
+	if (rc == 0 && cw_verbose)
 		cw_warn("%zu devices, %lu of them without two rows with SoC "
 		    "and temperature (no rows); %lu rows without SoC or "
 		    "temperature passed over", n, empty, skipped);
-	free(v);
-	devtab_free(r->devs);
-	if (outf_commit(of) != 0)
-		exit(CW_EXIT_DATA);
+	return rc;
 }
 
 /* One row of the fit's table. */
@@ -710,7 +424,7 @@ fit_row(struct csvout *w, const char *q, double before, double after,
  * rows of quantity,before,after,stderr to W.
  */
 static void
-fit_run(struct run *r, struct dev **devs, size_t n, struct csvout *w)
+fit_run(struct run *r, struct wjoin_dev **devs, size_t n, struct csvout *w)
 {
 	static const char *const life[2] = { "cycle_life", "calendar_life_days" };
 	struct meas_obs *o;
@@ -786,301 +500,300 @@ exists(const char *path)
 	return 0;
 }
 
-int
-main(int argc, char *argv[])
+/*
+ * The options into R; the index of the first operand.  Exits 2 on a
+ * usage error.
+ */
+static int
+parse(struct run *r, int argc, char *argv[])
 {
-	static struct run r;
-	struct sampin_conf sc;
-	struct sampin_stats st;
-	struct wstate_read rd;
-	struct wear_result x;
-	struct csvout w;
-	struct outf *of, *sf = NULL;
-	struct dev **sorted;
-	const char *out = NULL, *state = NULL, *fleet = NULL;
-	double cycle_life = 0, calendar_life = 0;
-	size_t n, k;
-	unsigned fixed = 0;
-	const char *measured = NULL;
-	int ch, rc, merge = 0, state_out = 0, dwell = 0, fitting = 0;
-	int partition = 0;
-	cw_time lock_wait = LOCK_WAIT_DEFAULT;
+	struct optparse op;
+	int ch;
 
-	cw_setprog("cw-wear");
-	wear_conf_default(&r.conf);
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":ho:v", longopts, NULL)) != -1) {
+	wear_conf_default(&r->conf);
+	r->lock_wait = LOCK_WAIT_DEFAULT;
+	optab_init(&op, &tool, r);
+	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case 'h':
-			usage(stdout);
-			exit(fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA);
-		case 'o':
-			out = optarg;
-			break;
-		case 'v':
-			cw_verbose = 1;
-			break;
-		case OPT_CALENDAR_LIFE:
-			calendar_life = opt_num_arg("--calendar-life", optarg,
-			    1e-3, 1e9);
-			break;
-		case OPT_CAPACITY:
-			r.capacity = opt_num_arg("--capacity", optarg, 1e-6,
-			    1e9);
-			break;
-		case OPT_CYCLE_LIFE:
-			cycle_life = opt_num_arg("--cycle-life", optarg, 1e-3,
-			    1e9);
-			break;
-		case OPT_DWELL:
-			dwell = 1;
-			break;
-		case OPT_FIT_SCALES:
-			fitting = 1;
-			break;
-		case OPT_FLEET:
-			fleet = optarg;
-			break;
 		case OPT_FULL:
-			r.conf.topoff.full_pct = opt_num_arg("--full", optarg,
+			r->conf.topoff.full_pct = opt_num_arg("--full", optarg,
 			    0, 100);
-			fixed |= WSTATE_SET_FULL;
+			r->fixed |= WSTATE_SET_FULL;
 			break;
 		case OPT_FULL_VOLTAGE:
-			r.conf.topoff.full_v = opt_num_arg("--full-voltage",
+			r->conf.topoff.full_v = opt_num_arg("--full-voltage",
 			    optarg, 1e-3, 1e6);
-			fixed |= WSTATE_SET_FULL_VOLTAGE;
+			r->fixed |= WSTATE_SET_FULL_VOLTAGE;
 			break;
 		case OPT_HYSTERESIS:
-			r.conf.hysteresis = opt_num_arg("--hysteresis", optarg,
-			    0, 100);
-			fixed |= WSTATE_SET_HYSTERESIS;
+			r->conf.hysteresis = opt_num_arg("--hysteresis",
+			    optarg, 0, 100);
+			r->fixed |= WSTATE_SET_HYSTERESIS;
 			break;
 		case OPT_LIMITS:
-			opt_list_arg("--limits", optarg, r.conf.lim.t, 4, 1, 1);
-			fixed |= WSTATE_SET_LIMITS;
-			break;
-		case OPT_LOCK_WAIT:
-			lock_wait = opt_dur_arg("--lock-wait", optarg, 1);
+			opt_list_arg("--limits", optarg, r->conf.lim.t, 4, 1,
+			    1);
+			r->fixed |= WSTATE_SET_LIMITS;
 			break;
 		case OPT_MAX_GAP:
-			r.conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			r.conf.topoff.max_gap = r.conf.max_gap;
-			fixed |= WSTATE_SET_MAX_GAP;
-			break;
-		case OPT_MEASURED:
-			measured = optarg;
-			break;
-		case OPT_MERGE:
-			merge = 1;
-			break;
-		case OPT_PARTITION:
-			partition = 1;
+			r->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
+			r->conf.topoff.max_gap = r->conf.max_gap;
+			r->fixed |= WSTATE_SET_MAX_GAP;
 			break;
 		case OPT_MIN_CURRENT:
-			r.conf.min_current = opt_num_arg("--min-current",
+			r->conf.min_current = opt_num_arg("--min-current",
 			    optarg, 0, 1e6);
-			r.conf.topoff.min_current = r.conf.min_current;
-			fixed |= WSTATE_SET_MIN_CURRENT;
+			r->conf.topoff.min_current = r->conf.min_current;
+			r->fixed |= WSTATE_SET_MIN_CURRENT;
 			break;
 		case OPT_MIN_DEPTH:
-			r.conf.topoff.min_depth = opt_num_arg("--min-depth",
+			r->conf.topoff.min_depth = opt_num_arg("--min-depth",
 			    optarg, 1e-6, 100);
-			fixed |= WSTATE_SET_MIN_DEPTH;
+			r->fixed |= WSTATE_SET_MIN_DEPTH;
 			break;
 		case OPT_MODEL:
-			r.conf.model = model_find(optarg);
-			if (r.conf.model == NULL)
+			r->conf.model = model_find(optarg);
+			if (r->conf.model == NULL)
 				cw_usage_error("--model: no model '%s' (there "
 				    "is: %s)", optarg, model_table[0]->name);
-			fixed |= WSTATE_SET_MODEL;
+			r->fixed |= WSTATE_SET_MODEL;
 			break;
 		case OPT_RESIDUE:
-			if ((r.conf.residue = rf_residue_parse(optarg)) < 0)
+			if ((r->conf.residue = rf_residue_parse(optarg)) < 0)
 				cw_usage_error("--residue: '%s' is not half, "
 				    "full or repeat", optarg);
 			break;
 		case OPT_STATE:
 			if (optarg[0] == '\0' || strcmp(optarg, "-") == 0)
 				cw_usage_error("--state needs a file name");
-			state = optarg;
+			r->state = optarg;
 			break;
-		case OPT_STATE_OUT:
-			state_out = 1;
-			break;
-		case OPT_VERSION:
-			cw_print_version();
-		default:
-			opt_getopt_fail(ch, argv);
 		}
 	}
-	argc -= optind;
-	argv += optind;
-	if (state != NULL && out != NULL && strcmp(out, "-") != 0 &&
-	    outf_same(state, out))
+	optab_free(&op);
+	if (r->state != NULL && r->out != NULL && strcmp(r->out, "-") != 0 &&
+	    outf_same(r->state, r->out))
 		cw_usage_error("--state and -o name the same file");
-	if (partition && !merge)
+	if (r->partition && !r->merge)
 		cw_usage_error("--partition goes with --merge");
-	if (dwell && (state != NULL || state_out || merge))
+	if (r->dwell && (r->state != NULL || r->state_out || r->merge))
 		cw_usage_error("--dwell does not go with --state, --state-out "
 		    "or --merge (a dwell table is not kept in a state)");
-	if (fitting && measured == NULL)
+	if (r->fitting && r->measured == NULL)
 		cw_usage_error("--fit-scales needs --measured FILE");
-	if ((fitting || measured != NULL) && (dwell || state_out))
+	if ((r->fitting || r->measured != NULL) && (r->dwell ||
+	    r->state_out))
 		cw_usage_error("--measured and --fit-scales go with the report, "
 		    "not with --dwell or --state-out");
-	if (dwell) {
-		dwell_run(&r, argv, argc, out);
-		return CW_EXIT_OK;
-	}
+	return optind;
+}
 
+/*
+ * The --state FILE, when there is one: a regular file, locked from its
+ * read to its rename, read and joined; samples then go on from each
+ * state.  Returns 0 or the exit status.
+ */
+static int
+load_state(struct run *r)
+{
+	int rc;
+
+	if (r->state == NULL)
+		return 0;
+	outf_check_state(r->state);
+	lock_state(r->state, r->lock_wait);
+	if (!exists(r->state)) {
+		cw_warn("%s: no such state: a new history starts (as on the "
+		    "first night)", r->state);
+		return 0;
+	}
+	if ((rc = wstate_read(&r->rd, r->state, 1)) != 0 ||
+	    (rc = wjoin_flush(&r->join)) != 0)
+		return rc;
+	if (!r->merge)
+		wjoin_go_on(&r->join);
+	return 0;
+}
+
+/*
+ * --merge: the operands (standard input when none) are states, joined.
+ * A file operand is a whole state; a stream may be sorted or, with
+ * --partition, a share of the devices.  Returns 0 or the exit status.
+ */
+static int
+merge(struct run *r, char **argv, int argc)
+{
+	int k, rc;
+
+	for (k = 0; k < argc; k++)
+		if ((rc = wstate_read(&r->rd, argv[k],
+		    strcmp(argv[k], "-") != 0 || !r->partition)) != 0)
+			return rc;
+	if (argc == 0 && (rc = wstate_read(&r->rd, "-", !r->partition)) != 0)
+		return rc;
+	if ((rc = wjoin_flush(&r->join)) != 0)
+		return rc;
+	if (r->join.straddles > 0)
+		cw_warn("%lu states overlapped the one before or after them "
+		    "by a little, and were joined all the same",
+		    r->join.straddles);
+	if (cw_verbose)
+		cw_warn("%lu state rows read (%lu header, %lu end rows), %zu "
+		    "devices", r->rd.rows, r->rd.headers, r->rd.ends,
+		    devtab_count(r->join.devs));
+	return 0;
+}
+
+/* The sample stream of the operands.  Returns 0 or the exit status. */
+static int
+samples(struct run *r, char **argv, int argc)
+{
+	struct sampin_conf sc;
+	struct sampin_stats st;
+	int rc;
+
+	memset(&sc, 0, sizeof(sc));
+	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME);
+	sc.need_any = SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
+	sc.row = on_row;
+	sc.ctx = r;
+	sc.devs = r->join.devs;
+	rc = sampin_run(&sc, argv, argc, &st);
+	if (cw_verbose)
+		sampin_report(&st, NULL);
+	if (rc == 0 && r->state != NULL)
+		wjoin_stale_check(&r->join, r->state);
+	return rc;
+}
+
+/*
+ * The report of the N devices (or, with --fit-scales, the fit) to -o,
+ * opened as O.  Returns the exit status.
+ */
+static int
+write_report(struct run *r, struct wjoin_dev **devs, size_t n,
+    struct outf *o)
+{
+	struct wear_result x;
+	struct csvout w;
+	size_t k;
+	double m;
+	int rc;
+
+	csvout_init(&w, outf_fp(o));
+	/* --fit-scales: the fit's table, not the rows. */
+	if (!r->fitting)
+		csvout_header(&w, r->capacity > 0 || r->fleet != NULL ?
+		    (r->meas != NULL ? HEADER HEADER_CAP HEADER_MEAS :
+		    HEADER HEADER_CAP) : r->meas != NULL ?
+		    HEADER HEADER_MEAS : HEADER);
+	for (k = 0; k < n; k++) {
+		wear_finish(&devs[k]->w, &r->conf);
+		wear_report(&r->conf, &devs[k]->w.acc, &devs[k]->w.prior,
+		    fleet_capacity(r->fleet, devs[k]->e.name,
+		    devs[k]->e.namelen, r->capacity), &x);
+		if (!r->fitting)
+			write_row(&w, r, devs[k], &x);
+		if (r->meas != NULL)
+			r->meas_why[meas_fade(meas_find(r->meas,
+			    devs[k]->e.name, devs[k]->e.namelen),
+			    devs[k]->w.acc.first, devs[k]->w.acc.last, 1,
+			    &m)]++;
+	}
+	if (r->fitting)
+		fit_run(r, devs, n, &w);
+	/* Not committed yet: the state moves on first. */
+	rc = 0;
+	if (csvout_flush(&w) != 0) {
+		cw_write_error(r->out, w.errnum != 0 ? w.errnum : EIO);
+		rc = CW_EXIT_DATA;
+	}
+	csvout_free(&w);
+	return rc;
+}
+
+/*
+ * What the run ends with, for the N devices: the --state FILE written
+ * to SF, then the states (--state-out) or the report to O.  Returns the
+ * exit status.
+ */
+static int
+finish(struct run *r, struct outf *sf, struct outf *o)
+{
+	struct wjoin_dev **sorted;
+	size_t n, k;
+	int rc = 0;
+
+	/* The scales depend on the model, which a state may have set. */
+	if (r->cycle_life > 0)
+		wear_set_cycle_life(&r->conf, r->cycle_life);
+	if (r->calendar_life > 0)
+		wear_set_calendar_life(&r->conf, r->calendar_life);
+	sorted = (struct wjoin_dev **)devtab_sorted(r->join.devs);
+	n = devtab_count(r->join.devs);
+	for (k = 0; k < n; k++)
+		set_prior(r, sorted[k]);
+	if (r->late_service > MAXWARN)
+		cw_warn("%lu packs in all entered service after their first "
+		    "row", r->late_service);
+	if (sf != NULL) {
+		for (k = 0; k < n; k++)
+			wear_compact(&sorted[k]->w, &r->conf);
+		write_states(sf, r->state, r, sorted, n);
+	}
+	if (r->state_out)
+		write_states(o, r->out, r, sorted, n);
+	else
+		rc = write_report(r, sorted, n, o);
+	if (rc == 0 && cw_verbose)
+		report(r, sorted, n);
+	for (k = 0; k < n; k++)
+		wear_free(&sorted[k]->w);
+	free(sorted);
+	return rc;
+}
+
+int
+main(int argc, char *argv[])
+{
+	static struct run r;
+	struct outf *of, *sf = NULL;
+	int k, rc;
+
+	cw_setprog("cw-wear");
+	k = parse(&r, argc, argv);
+	argc -= k;
+	argv += k;
+	if (r.dwell)
+		return dwell_run(&r, argv, argc);
 	/*
 	 * A state to be joined before another keeps a raw rainflow start
 	 * side; one that is only ever continued (--state) stays compact.
 	 */
-	r.conf.joinable = state_out && state == NULL;
-	if (fleet != NULL) {
-		r.fleet = fleet_load(fleet);
-		r.fleet_path = fleet;
-	}
-	if (measured != NULL)
-		r.meas = meas_load(measured);
-	r.devs = devtab_new(sizeof(struct dev));
-	memset(&rd, 0, sizeof(rd));
-	rd.conf = &r.conf;
-	rd.fixed = fixed;
-	rd.dev = on_state;
-	rd.ctx = &r;
-	/*
-	 * A state must be a regular file; one run at a time on it, from its
-	 * read to its rename.
-	 */
-	if (state != NULL) {
-		outf_check_state(state);
-		lock_state(state, lock_wait);
-	}
-	if (state != NULL && !exists(state))
-		cw_warn("%s: no such state: a new history starts (as on the "
-		    "first night)", state);
-	else if (state != NULL) {
-		if ((rc = wstate_read(&rd, state, 1)) != 0 ||
-		    (rc = flush(&r)) != 0)
-			exit(rc);
-		/* Samples go on from each state, in order from there. */
-		for (k = 0; !merge && k < devtab_count(r.devs); k++) {
-			struct dev *d = devtab_at(r.devs, k);
-
-			d->loaded = 1;
-			d->upto = d->w.acc.last;
-			d->e.last_t = INT64_MIN;
-		}
-	}
-	if (state != NULL)
-		sf = outf_open_state(state);
-	of = state_out ? outf_open_state(out) : outf_open(out);
-	if (merge) {
-		/* File operands are whole states; a stream may be sorted. */
-		for (k = 0; k < (size_t)argc; k++) {
-			rc = wstate_read(&rd, argv[k],
-			    strcmp(argv[k], "-") != 0 || !partition);
-			if (rc != 0)
-				exit(rc);
-		}
-		if (argc == 0 && (rc = wstate_read(&rd, "-", !partition)) !=
-		    0)
-			exit(rc);
-		if ((rc = flush(&r)) != 0)
-			exit(rc);
-		if (r.straddles > 0)
-			cw_warn("%lu states overlapped the one before or "
-			    "after them by a little, and were joined all the "
-			    "same", r.straddles);
-		if (cw_verbose)
-			cw_warn("%lu state rows read (%lu header, %lu end "
-			    "rows), %zu devices", rd.rows, rd.headers,
-			    rd.ends, devtab_count(r.devs));
-	} else {
-		memset(&sc, 0, sizeof(sc));
-		sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME);
-		sc.need_any = SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
-		sc.row = on_row;
-		sc.ctx = &r;
-		sc.devs = r.devs;
-		rc = sampin_run(&sc, argv, argc, &st);
-		if (cw_verbose)
-			sampin_report(&st, NULL);
-		if (rc != 0)
-			exit(rc);
-		if (state != NULL)
-			stale_check(&r, state);
-	}
-	/* The scales depend on the model, which a state may have set. */
-	if (cycle_life > 0)
-		wear_set_cycle_life(&r.conf, cycle_life);
-	if (calendar_life > 0)
-		wear_set_calendar_life(&r.conf, calendar_life);
-
-	sorted = (struct dev **)devtab_sorted(r.devs);
-	n = devtab_count(r.devs);
-	for (k = 0; k < n; k++)
-		set_prior(&r, sorted[k]);
-	if (r.late_service > MAXWARN)
-		cw_warn("%lu packs in all entered service after their first "
-		    "row", r.late_service);
-	if (state != NULL) {
-		for (k = 0; k < n; k++)
-			wear_compact(&sorted[k]->w, &r.conf);
-		write_states(sf, state, &r, sorted, n);
-	}
-	if (state_out)
-		write_states(of, out, &r, sorted, n);
-	else {
-		csvout_init(&w, outf_fp(of));
-		/* --fit-scales: the fit's table, not the rows. */
-		if (!fitting)
-			csvout_header(&w, r.capacity > 0 || r.fleet != NULL ?
-			    (r.meas != NULL ? HEADER HEADER_CAP HEADER_MEAS :
-			    HEADER HEADER_CAP) : r.meas != NULL ?
-			    HEADER HEADER_MEAS : HEADER);
-		for (k = 0; k < n; k++) {
-			wear_finish(&sorted[k]->w, &r.conf);
-			wear_report(&r.conf, &sorted[k]->w.acc,
-			    &sorted[k]->w.prior, fleet_capacity(r.fleet,
-			    sorted[k]->e.name, sorted[k]->e.namelen,
-			    r.capacity), &x);
-			if (!fitting)
-				write_row(&w, &r, sorted[k], &x);
-			if (r.meas != NULL) {
-				double m;
-
-				r.meas_why[meas_fade(meas_find(r.meas,
-				    sorted[k]->e.name, sorted[k]->e.namelen),
-				    sorted[k]->w.acc.first,
-				    sorted[k]->w.acc.last, 1, &m)]++;
-			}
-		}
-		if (fitting)
-			fit_run(&r, sorted, n, &w);
-		if (csvout_flush(&w) != 0) {
-			int e = errno;
-
-			csvout_free(&w);
-			cw_die(CW_EXIT_DATA, "%s: write error: %s", out != NULL ?
-			    out : "standard output", strerror(e));
-		}
-		csvout_free(&w);
-	}
-	if (cw_verbose)
-		report(&r, sorted, n);
-	for (k = 0; k < n; k++)
-		wear_free(&sorted[k]->w);
-	free(sorted);
-	free(r.piece);
-	devtab_free(r.devs);
+	r.conf.joinable = r.state_out && r.state == NULL;
+	if (r.fleet_path != NULL)
+		r.fleet = fleet_load(r.fleet_path);
+	if (r.measured != NULL)
+		r.meas = meas_load(r.measured);
+	wjoin_init(&r.join, &r.conf);
+	r.rd.conf = &r.conf;
+	r.rd.fixed = r.fixed;
+	r.rd.dev = wjoin_state;
+	r.rd.ctx = &r.join;
+	if ((rc = load_state(&r)) != 0)
+		return rc;
+	if (r.state != NULL)
+		sf = outf_open_state(r.state);
+	of = r.state_out ? outf_open_state(r.out) : outf_open(r.out);
+	rc = r.merge ? merge(&r, argv, argc) : samples(&r, argv, argc);
+	if (rc == 0)
+		rc = finish(&r, sf, of);
+	wjoin_free(&r.join);
 	fleet_free(r.fleet);
 	meas_free(r.meas);
 	/* The state moves on last, once the report is out. */
-	if (outf_commit(of) != 0 || (sf != NULL && outf_commit(sf) != 0))
-		exit(CW_EXIT_DATA);
-	return CW_EXIT_OK;
+	if (rc == 0 && (outf_commit(of) != 0 || (sf != NULL &&
+	    outf_commit(sf) != 0)))
+		rc = CW_EXIT_DATA;
+	return rc;
 }

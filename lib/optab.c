@@ -15,14 +15,32 @@
 #define TEXTMAX	30	/* and at most: longer options break the line */
 #define ID_HELP		'h'
 #define ID_VERSION	(OPTAB_LONG - 1)
+#define ID_VERBOSE	'v'
 
-/* The two options every tool has, after its own. */
-static const struct optab common[] = {
-	{ "help", 'h', NULL, "print this help and exit 0", NULL, ID_HELP },
-	{ "version", 0, NULL, "print the version and exit 0", NULL,
-	    ID_VERSION },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
-};
+/*
+ * The options every tool has, after its own, into C (four entries):
+ * help and version, and -v/--verbose when the tool gives its text.
+ */
+static const struct optab *
+common(const struct optool *tool, struct optab c[4])
+{
+	static const struct optab help = { "help", 'h', NULL,
+	    "print this help and exit 0", NULL, ID_HELP };
+	static const struct optab version = { "version", 0, NULL,
+	    "print the version and exit 0", NULL, ID_VERSION };
+	size_t k = 0;
+
+	memset(c, 0, 4 * sizeof(*c));
+	c[k++] = help;
+	if (tool->verbose != NULL) {
+		c[k].name = "verbose";
+		c[k].letter = 'v';
+		c[k].help = tool->verbose;
+		c[k++].id = ID_VERBOSE;
+	}
+	c[k] = version;
+	return c;
+}
 
 static size_t
 count(const struct optab *t)
@@ -43,13 +61,14 @@ id_of(const struct optab *o)
 void
 optab_init(struct optparse *p, const struct optool *tool, void *base)
 {
-	const struct optab *sets[2] = { tool->opts, common };
+	struct optab com[4];
+	const struct optab *sets[2] = { tool->opts, common(tool, com) };
 	size_t n, i, k = 0, s;
 	char *sh = p->shorts;
 
 	p->tool = tool;
 	p->base = base;
-	n = count(tool->opts) + count(common);
+	n = count(tool->opts) + count(sets[1]);
 	p->longopts = cw_calloc(n + 1, sizeof(*p->longopts));
 	*sh++ = ':';
 	for (s = 0; s < 2; s++)
@@ -108,11 +127,11 @@ stored(const struct optparse *p, int ch)
 {
 	const struct optab *o;
 
-	if (p->base == NULL)
-		return NULL;
-	for (o = p->tool->opts; o->name != NULL; o++)
-		if (id_of(o) == ch)
-			return o->kind != OPTAB_CASE ? o : NULL;
+	for (o = p->tool->opts; o->name != NULL; o++) {
+		if (id_of(o) != ch)
+			continue;
+		return o->kind != OPTAB_CASE && p->base != NULL ? o : NULL;
+	}
 	return NULL;
 }
 
@@ -132,6 +151,11 @@ optab_next(struct optparse *p, int argc, char *argv[])
 			exit(fflush(stdout) == 0 ? CW_EXIT_OK : CW_EXIT_DATA);
 		case ID_VERSION:
 			cw_print_version();
+		case ID_VERBOSE:
+			if (p->tool->verbose == NULL)
+				break;
+			cw_verbose = 1;
+			continue;
 		case ':':
 		case '?':
 			opt_getopt_fail(ch, argv);
@@ -224,13 +248,14 @@ put_text(FILE *fp, const char *text, size_t *col, size_t ind)
 static void
 synopsis(FILE *fp, const struct optool *tool)
 {
-	const struct optab *sets[2] = { tool->opts, common };
+	struct optab com[4];
+	const struct optab *sets[2] = { tool->opts, common(tool, com) };
 	const struct optab **v;
 	char flags[64], buf[256];
 	size_t n, i, k = 0, nf = 0, col, ind;
 	int s;
 
-	n = count(tool->opts) + count(common);
+	n = count(tool->opts) + count(sets[1]);
 	v = cw_calloc(n, sizeof(*v));
 	for (s = 0; s < 2; s++)
 		for (i = 0; sets[s][i].name != NULL; i++) {
@@ -299,7 +324,8 @@ head(char *buf, size_t size, const struct optab *o)
 void
 optab_help(FILE *fp, const struct optool *tool)
 {
-	const struct optab *sets[2] = { tool->opts, common };
+	struct optab com[4];
+	const struct optab *sets[2] = { tool->opts, common(tool, com) };
 	const struct optab **v;
 	char buf[256];
 	size_t n, i, k = 0, col, ind = TEXTCOL;
@@ -309,7 +335,7 @@ optab_help(FILE *fp, const struct optool *tool)
 	if (tool->about != NULL)
 		fprintf(fp, "\n%s", tool->about);
 	fputc('\n', fp);
-	n = count(tool->opts) + count(common);
+	n = count(tool->opts) + count(sets[1]);
 	v = cw_calloc(n, sizeof(*v));
 	for (s = 0; s < 2; s++)
 		for (i = 0; sets[s][i].name != NULL; i++)

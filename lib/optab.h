@@ -4,7 +4,7 @@
  * tests/tools/helpman.sh checks the manual page against that help, so
  * the three cannot drift apart.
  *
- * -h/--help and --version are handled here; a missing value or an
+ * -h/--help, --version and -v/--verbose are handled here; a missing value or an
  * unknown option is a usage error (exit 2).  Values are still checked by
  * the opt_*_arg() functions of opt.h, in the tool.
  */
@@ -50,7 +50,9 @@ struct optool {
 	const char *operands;	/* after the options: "[FILE ...]" */
 	const char *about;	/* the help's paragraph, lines ending in \n */
 	const char *epilogue;	/* after the options, or NULL */
-	const struct optab *opts;	/* without help and version */
+	const struct optab *opts;	/* without help, version, verbose */
+	const char *verbose;	/* -v/--verbose's text (it sets cw_verbose),
+				   or NULL: the tool has no -v */
 };
 
 struct optparse {

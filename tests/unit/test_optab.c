@@ -239,6 +239,53 @@ test_stored_bad(void **state)
 	}
 }
 
+/*
+ * -v sets cw_verbose itself, with a struct to store into or without,
+ * and is in the help, when the tool gives its text; without it, -v is
+ * an unknown option like any other (exit 2, test_exits' way).
+ */
+static void
+test_verbose(void **state)
+{
+	static const struct optab vopts[] = {
+		{ "quiet", 'q', NULL, "the caller's own", NULL, 0 },
+		{ NULL, 0, NULL, NULL, NULL, 0 }
+	};
+	static const struct optool vtool = { "cw-test", NULL, NULL, NULL,
+	    vopts, "report counts" };
+	char *argv[] = { "cw-test", "-q", "-v", "file", NULL };
+	struct optparse op;
+	char buf[2048];
+	FILE *fp;
+	size_t n;
+	int base, pass;
+
+	(void)state;
+	for (pass = 0; pass < 2; pass++) {
+		cw_verbose = 0;
+		optind = 1;
+		optab_init(&op, &vtool, pass ? &base : NULL);
+		assert_int_equal(optab_next(&op, 4, argv), 'q');
+		assert_int_equal(cw_verbose, 0);
+		/* -v is not handed back: the next is the end. */
+		assert_int_equal(optab_next(&op, 4, argv), -1);
+		assert_int_equal(cw_verbose, 1);
+		assert_int_equal(optind, 3);
+		optab_free(&op);
+	}
+	cw_verbose = 0;
+	fp = tmpfile();
+	assert_non_null(fp);
+	optab_help(fp, &vtool);
+	rewind(fp);
+	n = fread(buf, 1, sizeof(buf) - 1, fp);
+	buf[n] = '\0';
+	fclose(fp);
+	assert_non_null(strstr(buf, "usage: cw-test [-hqv]"));
+	assert_non_null(strstr(buf, "  -v, --verbose"));
+	assert_non_null(strstr(buf, "report counts\n"));
+}
+
 int
 main(void)
 {
@@ -248,6 +295,7 @@ main(void)
 		cmocka_unit_test(test_exits),
 		cmocka_unit_test(test_stored),
 		cmocka_unit_test(test_stored_bad),
+		cmocka_unit_test(test_verbose),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

@@ -1,0 +1,117 @@
+/*
+ * glue.c: what the tools' main() functions share (glue.h).
+ */
+#include <stdlib.h>
+#include <string.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "finish.h"
+#include "glue.h"
+#include "outf.h"
+#include "sampin.h"
+
+void
+glue_open(struct glue *g, size_t devsize, const char *path, struct csvout *w,
+    const char *header)
+{
+	memset(g, 0, sizeof(*g));
+	g->devs = devsize > 0 ? devtab_new(devsize) : NULL;
+	g->path = path;
+	g->of = outf_open(path);
+	g->w = w;
+	csvout_init(w, outf_fp(g->of));
+	if (header != NULL)
+		csvout_header(w, header);
+}
+
+void
+glue_sampin(struct glue *g, unsigned need, unsigned need_any,
+    int (*row)(void *, void *, const struct cw_sample *), void *ctx)
+{
+	struct sampin_conf *sc = &g->sc;
+
+	memset(sc, 0, sizeof(*sc));
+	sc->need = need;
+	sc->need_any = need_any;
+	sc->row = row;
+	sc->ctx = ctx;
+	sc->devs = g->devs;
+}
+
+int
+glue_read(struct glue *g, char **files, int n)
+{
+	return sampin_run(&g->sc, files, n, &g->st);
+}
+
+int
+glue_run(struct glue *g, char **files, int n, void (*end)(void *, void *),
+    void *ctx)
+{
+	int rc = glue_read(g, files, n);
+
+	if (rc == 0 && end != NULL)
+		glue_each(g, end, ctx);
+	return rc;
+}
+
+void
+glue_each(const struct glue *g, void (*fn)(void *, void *), void *ctx)
+{
+	void **v;
+	size_t i, n;
+
+	v = glue_sorted(g, &n);
+	for (i = 0; i < n; i++)
+		fn(ctx, v[i]);
+	free(v);
+}
+
+void **
+glue_sorted(const struct glue *g, size_t *n)
+{
+	*n = devtab_count(g->devs);
+	return devtab_sorted(g->devs);
+}
+
+int
+glue_close(struct glue *g, int rc)
+{
+	rc = cw_finish(g->w, g->of, g->path, rc);
+	csvout_free(g->w);
+	if (g->devs != NULL)
+		devtab_free(g->devs);
+	g->devs = NULL;
+	return rc;
+}
+
+void
+glue_span(struct csvout *w, cw_time start, cw_time end)
+{
+	csvout_time(w, start);
+	csvout_time(w, end);
+	csvout_num(w, (double)(end - start) / CW_US_PER_S);
+}
+
+void
+glue_first_last(struct csvout *w, int have, cw_time first, cw_time last)
+{
+	if (have) {
+		csvout_time(w, first);
+		csvout_time(w, last);
+	} else {
+		csvout_empty(w);
+		csvout_empty(w);
+	}
+}
+
+void
+glue_date(struct csvout *w, int have, cw_time t)
+{
+	if (have)
+		csvout_date(w, t);
+	else
+		csvout_empty(w);
+}

@@ -1,0 +1,71 @@
+/*
+ * glue.h: what the tools' main() functions share around their engines:
+ * the devices' table, the -o output and its header, a sample stream
+ * reader set up for the tool's columns, and the one ending (cw_finish).
+ * A cmd/ file is then its options, a call into lib/ and glue_close().
+ */
+#ifndef GLUE_H
+#define GLUE_H
+
+#include <stddef.h>
+
+#include "csvout.h"
+#include "cw.h"
+#include "devtab.h"
+#include "outf.h"
+#include "sampin.h"
+
+struct glue {
+	struct devtab *devs;	/* the tool's device states */
+	struct outf *of;	/* -o FILE or standard output */
+	const char *path;	/* -o's FILE, or NULL */
+	struct csvout *w;	/* the tool's writer onto OF */
+	struct sampin_conf sc;	/* the reader, as glue_sampin() sets it */
+	struct sampin_stats st;	/* its counts, after glue_read() */
+};
+
+/*
+ * A table of device states of DEVSIZE bytes (0: none), the output PATH
+ * (NULL: standard output) opened atomically onto W, and its HEADER
+ * written (NULL: none yet).
+ */
+void	glue_open(struct glue *g, size_t devsize, const char *path,
+	    struct csvout *w, const char *header);
+/*
+ * Set G's reader up to read the sample stream into its devices: the
+ * columns NEED must be there, and one of NEED_ANY when it is not 0; each
+ * row goes to ROW(CTX, its device's state, the row).  G->sc may then be
+ * changed further (a text column, an extra one).
+ */
+void	glue_sampin(struct glue *g, unsigned need, unsigned need_any,
+	    int (*row)(void *, void *, const struct cw_sample *), void *ctx);
+/* Read FILES[0..N) (standard input when N is 0); 0 or an exit code. */
+int	glue_read(struct glue *g, char **files, int n);
+/*
+ * glue_read(), then, when it went well, END(CTX, state) for each device
+ * in name order (END NULL: none): the end of the stream for each.
+ * Returns 0 or an exit code.
+ */
+int	glue_run(struct glue *g, char **files, int n,
+	    void (*end)(void *, void *), void *ctx);
+/* FN(CTX, state) for each device in name order. */
+void	glue_each(const struct glue *g, void (*fn)(void *, void *),
+	    void *ctx);
+/* The devices in name order (free() it), their count in *N. */
+void	**glue_sorted(const struct glue *g, size_t *n);
+/*
+ * The end: cw_finish() with the run's status RC (complete rows stay, -o
+ * FILE is committed only when RC is 0 and every write went well), then
+ * the writer and the devices' table are freed.  Returns the exit status.
+ */
+int	glue_close(struct glue *g, int rc);
+
+/* A span's start, end and its length in seconds, as three fields. */
+void	glue_span(struct csvout *w, cw_time start, cw_time end);
+/* FIRST and LAST as two times when HAVE, else two empty fields. */
+void	glue_first_last(struct csvout *w, int have, cw_time first,
+	    cw_time last);
+/* T as a date when HAVE, else an empty field. */
+void	glue_date(struct csvout *w, int have, cw_time t);
+
+#endif
