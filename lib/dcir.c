@@ -171,12 +171,17 @@ dcir_soc_bin(double soc)
 	return (int)soc;
 }
 
-/* The bucket of time T at LEVEL: floor(T / 2^LEVEL s). */
+/*
+ * The bucket of time T at LEVEL: floor(T / 2^LEVEL s); above
+ * DCIR_LEVEL_TIME, one bucket.
+ */
 static cw_time
 bucket(cw_time t, int level)
 {
 	cw_time w = CW_US_PER_S, q;
 
+	if (level > DCIR_LEVEL_TIME)
+		return 0;
 	w <<= level;
 	q = t / w;
 	if (t % w != 0 && t < 0)
@@ -197,8 +202,21 @@ pt_grow(struct dcir_series *s, size_t want, size_t maxpts)
 }
 
 /*
- * Keep, at LEVEL, the first point of each bucket and bin; the points are
- * in time order, so the points of a bucket follow each other.
+ * The SoC group of BIN at LEVEL: the bin itself up to DCIR_LEVEL_TIME,
+ * then bins of 2^(LEVEL - DCIR_LEVEL_TIME) points; unknown SoC stays
+ * apart.
+ */
+static int
+group(int bin, int level)
+{
+	if (level <= DCIR_LEVEL_TIME || bin == DCIR_NBIN)
+		return bin;
+	return bin >> (level - DCIR_LEVEL_TIME);
+}
+
+/*
+ * Keep, at LEVEL, the first point of each bucket and SoC group; the
+ * points are in time order, so the points of a bucket follow each other.
  */
 static void
 thin(struct dcir_series *s, int level)
@@ -215,9 +233,9 @@ thin(struct dcir_series *s, int level)
 			memset(seen, 0, sizeof seen);
 			cur = b;
 		}
-		if (seen[s->pt[i].bin])
+		if (seen[group(s->pt[i].bin, level)])
 			continue;
-		seen[s->pt[i].bin] = 1;
+		seen[group(s->pt[i].bin, level)] = 1;
 		s->pt[j++] = s->pt[i];
 	}
 	s->n = j;
@@ -231,13 +249,19 @@ cap_points(struct dcir_series *s, size_t maxpts)
 }
 
 void
+dcir_series_cap(struct dcir_series *s, size_t maxpts)
+{
+	cap_points(s, maxpts < 2 ? 2 : maxpts);
+}
+
+void
 dcir_series_add(struct dcir_series *s, cw_time t, double r_ref, double soc,
     size_t maxpts)
 {
 	struct dcir_bin *bn;
 	cw_time b;
 	size_t k;
-	int bin = dcir_soc_bin(soc);
+	int bin = dcir_soc_bin(soc), g;
 
 	if (maxpts < 2)
 		maxpts = 2;
@@ -250,10 +274,11 @@ dcir_series_add(struct dcir_series *s, cw_time t, double r_ref, double soc,
 	if (bn->n++ == 0)
 		bn->first = t;
 	bn->last = t;
-	/* An earlier point of this bucket and bin keeps its place. */
+	/* An earlier point of this bucket and SoC group keeps its place. */
 	b = bucket(t, s->level);
+	g = group(bin, s->level);
 	for (k = s->n; k > 0 && bucket(s->pt[k - 1].t, s->level) == b; k--)
-		if (s->pt[k - 1].bin == bin)
+		if (group(s->pt[k - 1].bin, s->level) == g)
 			return;
 	pt_grow(s, s->n + 1, maxpts);
 	s->pt[s->n].t = t;

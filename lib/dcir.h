@@ -114,11 +114,15 @@ double	dcir_arrhenius(double r, double temp_c, double ref_c, double ea_kj);
 #define DCIR_NBIN	100
 #define DCIR_WINDOW	30
 /*
- * The coarsest thinning: buckets of 2^40 s (35,000 years) hold any
- * history whole, leaving one point per SoC bin with steps, which may be
- * more than the cap (101 at most).
+ * Thinning levels: up to DCIR_LEVEL_TIME, buckets of 2^level seconds
+ * (2^40 s, 35,000 years, at the top) and 1-point SoC bins; above it, one
+ * bucket for the whole history and SoC bins merged pairwise per level
+ * (bins of 2^(level - DCIR_LEVEL_TIME) points), the steps of unknown SoC
+ * still apart.  At DCIR_LEVEL_MAX all known SoC is one bin, so at most 2
+ * points are left, within any cap.
  */
-#define DCIR_LEVEL_MAX	40
+#define DCIR_LEVEL_TIME	40
+#define DCIR_LEVEL_MAX	(DCIR_LEVEL_TIME + 7)
 
 struct dcir_bin {
 	unsigned long n;	/* steps */
@@ -135,14 +139,17 @@ struct dcir_kpt {
  * The steps of one device kept for the trend; zeroed is empty.
  *
  * Thinning, split-invariant: time is cut into buckets of 2^level seconds
- * aligned to the epoch, and of the steps in one bucket and one SoC bin
+ * aligned to the epoch, and of the steps in one bucket and one SoC group
  * only the earliest is kept (the first added, on equal times).  Whenever
  * more than MAXPTS points are kept, level goes up by one and buckets
- * merge pairwise (the earlier point of the two stays).  So the points
- * kept are those of level L*, the lowest level at which the whole history
- * leaves at most MAXPTS points, whatever way the history was cut into
- * pieces and joined (dcir_series_join), and the first step of every bin
- * is always among them.
+ * merge pairwise (the earlier point of the two stays); above
+ * DCIR_LEVEL_TIME the whole history is one bucket and the SoC groups
+ * merge pairwise instead (a group is one 1-point bin up to
+ * DCIR_LEVEL_TIME).  Each level's partition is a coarsening of the one
+ * below, so the points kept are those of level L*, the lowest level at
+ * which the whole history leaves at most MAXPTS points, whatever way the
+ * history was cut into pieces and joined (dcir_series_join); MAXPTS is a
+ * true bound (at DCIR_LEVEL_MAX at most 2 points are left).
  */
 struct dcir_series {
 	unsigned long steps;	/* accepted steps, all of them */
@@ -150,7 +157,7 @@ struct dcir_series {
 	struct dcir_bin *bin;	/* DCIR_NBIN + 1, made with the first step */
 	struct dcir_kpt *pt;	/* kept points, in time order */
 	size_t n, cap;
-	int level;		/* buckets of 2^level seconds */
+	int level;		/* thinning level, 0..DCIR_LEVEL_MAX */
 };
 
 /* The bin of SOC (NaN: DCIR_NBIN). */
@@ -165,6 +172,8 @@ void	dcir_series_add(struct dcir_series *s, cw_time t, double r_ref,
 void	dcir_series_join(struct dcir_series *a, struct dcir_series *b,
 	    size_t maxpts);
 void	dcir_series_free(struct dcir_series *s);
+/* Thin S until it keeps at most MAXPTS (>= 2) points. */
+void	dcir_series_cap(struct dcir_series *s, size_t maxpts);
 /*
  * The --soc auto window of S: the first bin LO of the DCIR_WINDOW bins
  * holding most steps (ties: the window whose middle is nearest 50 %,

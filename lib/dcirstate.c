@@ -272,8 +272,13 @@ check(const struct dstate_dev *d, const struct dstate_conf *sc)
 	if (d->det.n > 0 && d->det.hist[(d->det.head + DCIR_HIST_MAX - 1) %
 	    DCIR_HIST_MAX].t != d->last)
 		return "last samples do not end at the last row";
+	/*
+	 * More points than the cap only at DCIR_LEVEL_TIME, where versions
+	 * before the merging of SoC bins stopped (one point per bin);
+	 * dstate_read() thins them on.
+	 */
 	if (s->level < 0 || s->level > DCIR_LEVEL_MAX || (s->n >
-	    sc->max_points && s->level < DCIR_LEVEL_MAX) || s->n > s->steps)
+	    sc->max_points && s->level != DCIR_LEVEL_TIME) || s->n > s->steps)
 		return "trend points inconsistent";
 	for (k = 0; s->bin != NULL && k <= DCIR_NBIN; k++) {
 		if (s->bin[k].n > 0 && (s->bin[k].first > s->bin[k].last ||
@@ -429,6 +434,7 @@ dev_row(struct rd *d, const struct csvin_rec *rec)
 		dstate_free(&w);
 		return CW_EXIT_DATA;
 	}
+	dcir_series_cap(&w.ser, d->r->sc->max_points);
 	d->rows++;
 	d->r->rows++;
 	rc = d->r->dev(d->r->ctx, rec->src, rec->line, rec->f[0],
