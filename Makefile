@@ -104,6 +104,7 @@ build/fuzz/%: tests/fuzz/%.c tests/fuzz/fuzz.h tests/fuzz/fuzz_engine.h \
 # fuzz_fleet catches the reader's cw_die() (see the harness).
 build/fuzz/fuzz_fleet build/tests/replay_fleet: FZLINK = -Wl,--wrap=cw_die \
 	    -Wl,--wrap=cw_malloc,--wrap=cw_calloc,--wrap=cw_realloc \
+	    -Wl,--wrap=posix_memalign \
 	    -Wl,--wrap=free,--wrap=gzsrc_read,--wrap=gzsrc_close \
 	    -Wl,--wrap=csvin_new,--wrap=csvin_free
 

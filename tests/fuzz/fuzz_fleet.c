@@ -32,6 +32,8 @@ _Noreturn void	__wrap_cw_die(int, const char *, ...);
 void	*__wrap_cw_malloc(size_t);
 void	*__wrap_cw_calloc(size_t, size_t);
 void	*__wrap_cw_realloc(void *, size_t);
+int	__wrap_posix_memalign(void **, size_t, size_t);
+int	__real_posix_memalign(void **, size_t, size_t);
 void	__wrap_free(void *);
 ssize_t	__wrap_gzsrc_read(struct gzsrc *, void *, size_t);
 void	*__real_cw_malloc(size_t);
@@ -104,6 +106,16 @@ __wrap_cw_realloc(void *old, size_t n)
 	strike(old);
 	note(p);
 	return p;
+}
+
+int
+__wrap_posix_memalign(void **pp, size_t align, size_t n)
+{
+	int e = __real_posix_memalign(pp, align, n);
+
+	if (e == 0)
+		note(*pp);
+	return e;
 }
 
 void
