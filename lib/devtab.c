@@ -9,6 +9,11 @@
  * aligned to a cache line with a name of up to DEVTAB_INLINE - 1 bytes
  * stored in front of its state, so that the name compared and the
  * state's first fields share one line.
+ *
+ * The first blocks are small and double (DEVTAB_FIRST entries, again as
+ * many, then twice that, ... up to DEVTAB_BLOCK), so that a table of a
+ * few devices costs a few entries, not DEVTAB_BLOCK of them; from entry
+ * DEVTAB_BLOCK on every block holds DEVTAB_BLOCK.
  */
 #include <stdint.h>
 #include <stdlib.h>
@@ -16,8 +21,15 @@
 
 #include "devtab.h"
 
-#define DEVTAB_BLOCK 256	/* states per block */
+#define DEVTAB_BLOG 8		/* log2 of DEVTAB_BLOCK */
+#define DEVTAB_BLOCK (1 << DEVTAB_BLOG)	/* states per block from entry
+					   DEVTAB_BLOCK on */
+#define DEVTAB_FIRSTLG 3	/* log2 of DEVTAB_FIRST */
+#define DEVTAB_FIRST (1 << DEVTAB_FIRSTLG)	/* states in the first block */
+/* Blocks before entry DEVTAB_BLOCK: the first and its doublings. */
+#define DEVTAB_NSMALL (1 + DEVTAB_BLOG - DEVTAB_FIRSTLG)
 #define DEVTAB_NAMEBLK 65536	/* bytes per name block */
+#define DEVTAB_SLOT0 32		/* hash slots in the table itself */
 
 /* A hash slot: state number + 1 (0 is empty) and the name's hash. */
 struct dslot {
@@ -29,30 +41,74 @@ struct devtab {
 	size_t statesz;		/* the tool's state, rounded up */
 	size_t stride;		/* an entry: inline name, then the state */
 	size_t count;
-	struct dslot *slot;
+	struct dslot *slot;	/* slot0 until the first grow() */
 	size_t nslot;
-	/* States: blocks of DEVTAB_BLOCK. */
-	char **blocks;
-	size_t nblocks;
+	/* States: blocks of DEVTAB_FIRST, doubling to DEVTAB_BLOCK. */
+	char **blocks;		/* blk0 until it is full */
+	size_t nblocks, blockcap;
 	/* Names. */
 	char **nameblk;
 	size_t nnameblk, nameused;
+	/* A small table needs no allocation but this one and its blocks. */
+	char *blk0[DEVTAB_NSMALL];
+	struct dslot slot0[DEVTAB_SLOT0];
 };
 
 static uint32_t fnv1a(const char *, size_t);
 static void grow(struct devtab *);
 static const char *keep_name(struct devtab *, const char *, size_t);
-static char *block_new(const struct devtab *);
+static char *block_new(const struct devtab *, size_t);
+static size_t block_of(size_t, size_t *);
+static void grow_blocks(struct devtab *);
 
-/* A block of DEVTAB_BLOCK entries, aligned to a cache line. */
+/* Room for twice as many block pointers (blk0 is left as it is). */
+static void
+grow_blocks(struct devtab *t)
+{
+	char **b;
+
+	if (t->blocks == t->blk0) {
+		b = cw_malloc(2 * t->blockcap * sizeof(*b));
+		memcpy(b, t->blk0, t->nblocks * sizeof(*b));
+	} else
+		b = cw_realloc(t->blocks, 2 * t->blockcap * sizeof(*b));
+	t->blocks = b;
+	t->blockcap *= 2;
+}
+
+/* A block of N entries, aligned to a cache line. */
 static char *
-block_new(const struct devtab *t)
+block_new(const struct devtab *t, size_t n)
 {
 	void *p;
 
-	if (posix_memalign(&p, DEVTAB_LINE, DEVTAB_BLOCK * t->stride) != 0)
+	if (posix_memalign(&p, DEVTAB_LINE, n * t->stride) != 0)
 		cw_die(CW_EXIT_DATA, "out of memory");
 	return p;
+}
+
+/*
+ * The block that holds entry I; its place in the block goes to *OFF.
+ * Block 0 holds entries [0, DEVTAB_FIRST), block B below DEVTAB_NSMALL
+ * [2^(B+FIRSTLG-1), 2^(B+FIRSTLG)), the others DEVTAB_BLOCK each.
+ */
+static inline size_t
+block_of(size_t i, size_t *off)
+{
+	unsigned lg;
+
+	if (i >= DEVTAB_BLOCK) {
+		*off = i % DEVTAB_BLOCK;
+		return DEVTAB_NSMALL - 1 + i / DEVTAB_BLOCK;
+	}
+	if (i < DEVTAB_FIRST) {
+		*off = i;
+		return 0;
+	}
+	for (lg = DEVTAB_FIRSTLG; (i >> (lg + 1)) != 0; lg++)
+		;
+	*off = i - ((size_t)1 << lg);
+	return lg - DEVTAB_FIRSTLG + 1;
 }
 
 static uint32_t
@@ -79,16 +135,19 @@ devtab_new(size_t statesz)
 	t->statesz = (statesz + 15) & ~(size_t)15;
 	t->stride = (DEVTAB_INLINE + t->statesz + DEVTAB_LINE - 1) &
 	    ~(size_t)(DEVTAB_LINE - 1);
-	t->nslot = 64;
-	t->slot = cw_calloc(t->nslot, sizeof(*t->slot));
+	t->nslot = DEVTAB_SLOT0;
+	t->slot = t->slot0;
+	t->blocks = t->blk0;
+	t->blockcap = DEVTAB_NSMALL;
 	return t;
 }
 
 void *
 devtab_at(const struct devtab *t, size_t i)
 {
-	return t->blocks[i / DEVTAB_BLOCK] + (i % DEVTAB_BLOCK) * t->stride +
-	    DEVTAB_INLINE;
+	size_t off, b = block_of(i, &off);
+
+	return t->blocks[b] + off * t->stride + DEVTAB_INLINE;
 }
 
 size_t
@@ -111,7 +170,8 @@ grow(struct devtab *t)
 			;
 		slot[j] = t->slot[i];
 	}
-	free(t->slot);
+	if (t->slot != t->slot0)
+		free(t->slot);
 	t->slot = slot;
 	t->nslot = n;
 }
@@ -190,10 +250,16 @@ devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
 	if (t->count >= UINT32_MAX - 1)
 		cw_die(CW_EXIT_DATA, "more than %lu devices",
 		    (unsigned long)UINT32_MAX - 2);
-	if (t->count % DEVTAB_BLOCK == 0) {
-		t->blocks = cw_realloc(t->blocks, (t->nblocks + 1) *
-		    sizeof(*t->blocks));
-		t->blocks[t->nblocks++] = block_new(t);
+	if (t->count == 0 || t->count >= DEVTAB_FIRST && (t->count &
+	    (t->count - 1)) == 0 || t->count % DEVTAB_BLOCK == 0) {
+		/* Entry COUNT starts a block: as large as the entries so far
+		 * (DEVTAB_FIRST for the first), at most DEVTAB_BLOCK. */
+		size_t n = t->count < DEVTAB_FIRST ? DEVTAB_FIRST :
+		    t->count < DEVTAB_BLOCK ? t->count : DEVTAB_BLOCK;
+
+		if (t->nblocks == t->blockcap)
+			grow_blocks(t);
+		t->blocks[t->nblocks++] = block_new(t, n);
 	}
 	d = devtab_at(t, t->count);
 	memset((char *)d - DEVTAB_INLINE, 0, t->stride);
@@ -251,8 +317,10 @@ devtab_free(struct devtab *t)
 		free(t->blocks[i]);
 	for (i = 0; i < t->nnameblk; i++)
 		free(t->nameblk[i]);
-	free(t->blocks);
+	if (t->blocks != t->blk0)
+		free(t->blocks);
 	free(t->nameblk);
-	free(t->slot);
+	if (t->slot != t->slot0)
+		free(t->slot);
 	free(t);
 }
