@@ -262,7 +262,9 @@ devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
 		t->blocks[t->nblocks++] = block_new(t, n);
 	}
 	d = devtab_at(t, t->count);
-	memset((char *)d - DEVTAB_INLINE, 0, t->stride);
+	/* The inline name and the state; the padding to the line's end is
+	 * never read. */
+	memset((char *)d - DEVTAB_INLINE, 0, DEVTAB_INLINE + t->statesz);
 	if (len < DEVTAB_INLINE) {
 		char *p = (char *)d - DEVTAB_INLINE;
 
