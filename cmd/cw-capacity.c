@@ -393,10 +393,9 @@ main(int argc, char *argv[])
 		glue_open(&rg, 0, t.rejpath, &t.rej, REJECT_HEADER);
 		t.has_rej = 1;
 	}
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
-	    SAMP_SOC) | (t.conf.temp_any ? 0 : SAMP_BIT(SAMP_TEMP)), 0,
-	    on_row, &t);
+	glue_sampin(&g, SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ?
+	    SAMP_VOLTAGE : SAMP_SOC) | (t.conf.temp_any ? 0 :
+	    SAMP_BIT(SAMP_TEMP)), 0, on_row, &t);
 	rc = glue_read(&g, argv + k, argc - k);
 	if (rc == 0) {
 		/* The segments still open at the end of the input, in the

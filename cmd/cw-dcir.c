@@ -3,7 +3,8 @@
  * stream, corrected to a reference temperature, one row per step; or with
  * --trend its growth per device.  The engine is lib/dcir.c (steps, the
  * Arrhenius correction, the trend) and lib/theilsen.c (the robust fit);
- * this file holds the options and the output.
+ * how saved states are joined, lib/dcirjoin.c.  This file holds the
+ * options and the output.
  */
 #include <errno.h>
 #include <stddef.h>
@@ -15,6 +16,7 @@
 #include "cw.h"
 #include "finish.h"
 #include "dcir.h"
+#include "dcirjoin.h"
 #include "dcirstate.h"
 #include "glue.h"
 #include "lock.h"
@@ -35,22 +37,6 @@
 /* Points kept per device for the trend before thinning sets in. */
 #define MAX_POINTS_DEFAULT 2048
 
-/* The per-device state: the devent first, as devtab wants. */
-struct dev {
-	struct devent e;
-	struct dstate_dev ds;	/* detector, steps, first rows */
-	int loaded;		/* from --state, up to UPTO */
-	cw_time upto;
-};
-
-/* A state read back, with where it came from. */
-struct piece {
-	struct dev *dev;
-	struct dstate_dev w;
-	char src[256];
-	unsigned long line;
-};
-
 struct tool {
 	struct dcir_conf conf;
 	struct dcir_trend_conf tconf;
@@ -61,10 +47,7 @@ struct tool {
 	int keep;		/* steps go to the series */
 	int state_out;		/* the output is the state */
 	struct dstate_conf sconf;
-	struct devtab *devs;
-	struct piece *piece;
-	size_t npiece, piececap;
-	unsigned long stale, joined;	/* rows skipped, steps across joins */
+	struct djoin join;	/* the devices and their states */
 	/* The options. */
 	const char *outpath, *state;
 	int merge;
@@ -142,12 +125,9 @@ static const struct optool tool = {
 };
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
-static void	write_step(struct tool *t, const struct dev *d,
+static void	write_step(struct tool *t, const struct djoin_dev *d,
 		    const struct dcir_step *st);
-static void	write_trend(struct tool *t, struct dev *d);
-static int	on_state(void *ctx, const char *src, unsigned long line,
-		    const char *name, size_t len, struct dstate_dev *w);
-static int	flush(struct tool *t);
+static void	write_trend(struct tool *t, struct djoin_dev *d);
 static void	write_states(struct outf *o, const char *path, struct tool *t,
 		    void **devs, size_t n);
 static void	report(const struct tool *t, const struct devtab *devs,
@@ -157,18 +137,12 @@ static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
 {
 	struct tool *t = ctx;
-	struct dev *d = dev;
+	struct djoin_dev *d = dev;
 	struct dcir_step st;
 	struct dcir_pt p;
 
-	if (d->loaded) {
-		/* Rows up to the end of the state are in it already. */
-		if (s->t <= d->upto) {
-			t->stale++;
-			return 0;
-		}
-		d->loaded = 0;
-	}
+	if (djoin_row(&t->join, d, s->t))
+		return 0;
 	p.t = s->t;
 	p.v = s->v;
 	p.i = s->i;
@@ -186,7 +160,8 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 }
 
 static void
-write_step(struct tool *t, const struct dev *d, const struct dcir_step *st)
+write_step(struct tool *t, const struct djoin_dev *d,
+    const struct dcir_step *st)
 {
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_time(&t->out, st->t);
@@ -202,7 +177,7 @@ write_step(struct tool *t, const struct dev *d, const struct dcir_step *st)
 }
 
 static void
-write_trend(struct tool *t, struct dev *d)
+write_trend(struct tool *t, struct djoin_dev *d)
 {
 	struct dcir_trend tr;
 	struct csvout *w = &t->out;
@@ -244,97 +219,6 @@ write_trend(struct tool *t, struct dev *d)
 }
 
 /*
- * A state read back.  Every state read is gathered, then those of each
- * device joined in time order at the end (flush), so that files and
- * streams may come in any order; the pieces of a device must not
- * overlap in time.
- */
-static int
-on_state(void *ctx, const char *src, unsigned long line, const char *name,
-    size_t len, struct dstate_dev *w)
-{
-	struct tool *t = ctx;
-	struct dev *d;
-	struct piece *p;
-	d = devtab_get(t->devs, name, len, NULL);
-	if (t->npiece == t->piececap) {
-		t->piececap = t->piececap ? 2 * t->piececap : 16;
-		t->piece = cw_realloc(t->piece, t->piececap *
-		    sizeof(*t->piece));
-	}
-	p = &t->piece[t->npiece++];
-	p->dev = d;
-	p->w = *w;
-	p->line = line;
-	snprintf(p->src, sizeof(p->src), "%s", src);
-	return 0;
-}
-
-static int
-piece_cmp(const void *pa, const void *pb)
-{
-	const struct piece *a = pa, *b = pb;
-	int c;
-
-	if (a->dev != b->dev) {
-		/* By name, as devtab_sorted(). */
-		c = memcmp(a->dev->e.name, b->dev->e.name,
-		    a->dev->e.namelen < b->dev->e.namelen ?
-		    a->dev->e.namelen : b->dev->e.namelen);
-		if (c == 0)
-			c = a->dev->e.namelen < b->dev->e.namelen ? -1 : 1;
-		return c;
-	}
-	if (a->w.first != b->w.first)
-		return a->w.first < b->w.first ? -1 : 1;
-	return a->line < b->line ? -1 : a->line > b->line;
-}
-
-/* Join the gathered states into their devices, in time order. */
-static int
-flush(struct tool *t)
-{
-	struct dev *d;
-	struct dstate_dev *w;
-	char a[4][TS_FMTMAX];
-	size_t k;
-
-	if (t->npiece == 0)
-		return 0;
-	qsort(t->piece, t->npiece, sizeof(*t->piece), piece_cmp);
-	for (k = 0; k < t->npiece; k++) {
-		w = &t->piece[k].w;
-		d = t->piece[k].dev;
-		if (d->ds.rows == 0) {
-			dstate_free(&d->ds);
-			d->ds = *w;
-		} else if (w->first > d->ds.last)
-			t->joined += dstate_join(&d->ds, w, &t->sconf);
-		else if (w->last < d->ds.first) {
-			t->joined += dstate_join(w, &d->ds, &t->sconf);
-			d->ds = *w;
-		} else {
-			ts_format(w->first, a[0]);
-			ts_format(w->last, a[1]);
-			ts_format(d->ds.first, a[2]);
-			ts_format(d->ds.last, a[3]);
-			cw_warn_at(t->piece[k].src, t->piece[k].line, "the "
-			    "state of %s from %s to %s overlaps the one joined "
-			    "so far, from %s to %s: the same rows twice, or a "
-			    "state that falls between two joined before it",
-			    d->e.name, a[0], a[1], a[2], a[3]);
-			for (; k < t->npiece; k++)
-				dstate_free(&t->piece[k].w);
-			t->npiece = 0;
-			return CW_EXIT_DATA;
-		}
-		d->e.last_t = d->ds.last;
-	}
-	t->npiece = 0;
-	return 0;
-}
-
-/*
  * The states of N devices, sorted, with the header and end rows, to O;
  * PATH names it in messages.  Exits 1 on a write error.
  */
@@ -348,7 +232,7 @@ write_states(struct outf *o, const char *path, struct tool *t, void **devs,
 
 	bad = dstate_write_header(fp, &t->sconf);
 	for (k = 0; k < n && !bad; k++) {
-		struct dev *d = devs[k];
+		struct djoin_dev *d = devs[k];
 
 		if (d->ds.rows > 0)
 			bad = dstate_write_dev(fp, d->e.name, d->e.namelen,
@@ -358,7 +242,7 @@ write_states(struct outf *o, const char *path, struct tool *t, void **devs,
 		size_t m = 0;
 
 		for (k = 0; k < n; k++)
-			m += ((struct dev *)devs[k])->ds.rows > 0;
+			m += ((struct djoin_dev *)devs[k])->ds.rows > 0;
 		bad = dstate_write_end(fp, (unsigned long)m);
 	}
 	if (bad || fflush(fp) != 0) {
@@ -405,7 +289,7 @@ report(const struct tool *t, const struct devtab *devs,
 	if (!t->trend)
 		return;
 	for (i = 0; i < nd; i++) {
-		const struct dev *d = devtab_at(devs, i);
+		const struct djoin_dev *d = devtab_at(devs, i);
 
 		if (d->ds.ser.level > 0)
 			thinned++;
@@ -521,7 +405,6 @@ parse(struct tool *t, int argc, char *argv[])
 static int
 load_state(struct tool *t, struct dstate_read *rd)
 {
-	size_t i;
 	int rc;
 
 	if (t->state == NULL)
@@ -529,15 +412,11 @@ load_state(struct tool *t, struct dstate_read *rd)
 	lock_state(t->state, t->lock_wait);
 	if (!exists(t->state))
 		return 0;
-	if ((rc = dstate_read(rd, t->state, 1)) != 0 || (rc = flush(t)) != 0)
+	if ((rc = dstate_read(rd, t->state, 1)) != 0 ||
+	    (rc = djoin_flush(&t->join)) != 0)
 		return rc;
-	for (i = 0; !t->merge && i < devtab_count(t->devs); i++) {
-		struct dev *d = devtab_at(t->devs, i);
-
-		d->loaded = 1;
-		d->upto = d->ds.last;
-		d->e.last_t = INT64_MIN;
-	}
+	if (!t->merge)
+		djoin_go_on(&t->join);
 	return 0;
 }
 
@@ -556,12 +435,13 @@ merge(struct tool *t, struct dstate_read *rd, char **argv, int argc)
 		    strcmp(argv[k], "-") != 0)) != 0)
 			return rc;
 	if ((argc == 0 && (rc = dstate_read(rd, "-", 0)) != 0) ||
-	    (rc = flush(t)) != 0)
+	    (rc = djoin_flush(&t->join)) != 0)
 		return rc;
 	if (cw_verbose)
 		cw_warn("%lu state rows read (%lu header, %lu end rows), %zu "
 		    "devices, %lu steps found across joins", rd->rows,
-		    rd->headers, rd->ends, devtab_count(t->devs), t->joined);
+		    rd->headers, rd->ends, devtab_count(t->join.devs),
+		    t->join.joined);
 	return 0;
 }
 
@@ -569,22 +449,18 @@ merge(struct tool *t, struct dstate_read *rd, char **argv, int argc)
 static int
 samples(struct tool *t, char **argv, int argc)
 {
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g;
 	int rc;
 
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT);
-	sc.row = on_row;
-	sc.ctx = t;
-	sc.devs = t->devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_reader(&g, t->join.devs);
+	glue_sampin(&g, SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0,
+	    on_row, t);
+	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
-		report(t, t->devs, &st);
-	if (rc == 0 && t->stale > 0)
+		report(t, g.devs, &g.st);
+	if (rc == 0 && t->join.stale > 0)
 		cw_warn("%lu rows not after the end of their device's state in "
-		    "%s skipped (already in it)", t->stale, t->state);
+		    "%s skipped (already in it)", t->join.stale, t->state);
 	return rc;
 }
 
@@ -603,11 +479,11 @@ main(int argc, char *argv[])
 	k = parse(&t, argc, argv);
 	argc -= k;
 	argv += k;
-	t.devs = devtab_new(sizeof(struct dev));
+	djoin_init(&t.join, &t.sconf);
 	memset(&rd, 0, sizeof(rd));
 	rd.sc = &t.sconf;
-	rd.dev = on_state;
-	rd.ctx = &t;
+	rd.dev = djoin_state;
+	rd.ctx = &t.join;
 	if ((rc = load_state(&t, &rd)) != 0)
 		return rc;
 	if (t.state != NULL)
@@ -620,8 +496,8 @@ main(int argc, char *argv[])
 	rc = t.merge ? merge(&t, &rd, argv, argc) : samples(&t, argv, argc);
 	if (rc == 0 && !t.state_out && t.merge)
 		csvout_header(&t.out, TREND_HEADER);
-	sorted = devtab_sorted(t.devs);
-	n = devtab_count(t.devs);
+	sorted = devtab_sorted(t.join.devs);
+	n = devtab_count(t.join.devs);
 	if (rc == 0 && t.trend && !t.state_out)
 		for (i = 0; i < n; i++)
 			write_trend(&t, sorted[i]);
@@ -637,11 +513,8 @@ main(int argc, char *argv[])
 	rc = cw_finish(&t.out, of, t.outpath, rc);
 	if (rc == 0 && sf != NULL && outf_commit(sf) != 0)
 		rc = CW_EXIT_DATA;
-	for (i = 0; i < n; i++)
-		dstate_free(&((struct dev *)sorted[i])->ds);
 	free(sorted);
-	free(t.piece);
 	csvout_free(&t.out);
-	devtab_free(t.devs);
+	djoin_free(&t.join);
 	return rc;
 }

@@ -342,8 +342,7 @@ main(int argc, char *argv[])
 	k = parse(&r, argc, argv);
 	glue_open(&g, sizeof(struct dev), r.outpath, &r.w, header[r.out]);
 	r.devs = g.devs;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(r.col), 0, on_row, &r);
+	glue_sampin(&g, SAMP_BIT(r.col), 0, on_row, &r);
 	g.sc.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
 	rc = glue_read(&g, argv + k, argc - k);
 	if (rc != 0)

@@ -481,8 +481,8 @@ main(int argc, char *argv[])
 	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0, on_row, &t);
+	glue_sampin(&g, SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0,
+	    on_row, &t);
 	if (t.by != NULL) {
 		g.sc.tag = t.by;
 		g.sc.need |= SAMP_BIT(SAMP_TAG);

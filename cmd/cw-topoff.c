@@ -375,8 +375,7 @@ main(int argc, char *argv[])
 	t.conf.on_hold = on_hold;
 	t.conf.on_use = on_cycle;
 	t.conf.ctx = &t;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
+	glue_sampin(&g, SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
 	    (cw_isnum(t.conf.full_v) ? SAMP_BIT(SAMP_VOLTAGE) : 0), on_row,
 	    &t);
 	/* Holds still open end with the stream, in name order. */

@@ -264,8 +264,8 @@ main(int argc, char *argv[])
 	    SUMMARY_HEADER : EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0, on_row, &t);
+	glue_sampin(&g, SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0,
+	    on_row, &t);
 	/* What is still open ends with the stream, in name order. */
 	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (cw_verbose)

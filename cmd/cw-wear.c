@@ -369,8 +369,8 @@ dwell_run(struct run *r, char **argv, int argc)
 	dwell_conf_set(&dc, &r->conf.lim, r->conf.min_current,
 	    r->conf.max_gap);
 	glue_open(&g, sizeof(struct ddev), r->out, &w, NULL);
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), 0, on_dwell, &dc);
+	glue_sampin(&g, SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), 0, on_dwell,
+	    &dc);
 	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
 		sampin_report(&g.st, NULL);
@@ -648,19 +648,15 @@ merge(struct run *r, char **argv, int argc)
 static int
 samples(struct run *r, char **argv, int argc)
 {
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g;
 	int rc;
 
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME);
-	sc.need_any = SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
-	sc.row = on_row;
-	sc.ctx = r;
-	sc.devs = r->join.devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_reader(&g, r->join.devs);
+	glue_sampin(&g, 0, SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), on_row,
+	    r);
+	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
-		sampin_report(&st, NULL);
+		sampin_report(&g.st, NULL);
 	if (rc == 0 && r->state != NULL)
 		wjoin_stale_check(&r->join, r->state);
 	return rc;

@@ -27,13 +27,20 @@ glue_open(struct glue *g, size_t devsize, const char *path, struct csvout *w,
 }
 
 void
+glue_reader(struct glue *g, struct devtab *devs)
+{
+	memset(g, 0, sizeof(*g));
+	g->devs = devs;
+}
+
+void
 glue_sampin(struct glue *g, unsigned need, unsigned need_any,
     int (*row)(void *, void *, const struct cw_sample *), void *ctx)
 {
 	struct sampin_conf *sc = &g->sc;
 
 	memset(sc, 0, sizeof(*sc));
-	sc->need = need;
+	sc->need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) | need;
 	sc->need_any = need_any;
 	sc->row = row;
 	sc->ctx = ctx;

@@ -32,10 +32,17 @@ struct glue {
 void	glue_open(struct glue *g, size_t devsize, const char *path,
 	    struct csvout *w, const char *header);
 /*
+ * G as the sample reader alone, into DEVS, a table G does not own (a
+ * tool whose devices a state join keeps): glue_sampin() and glue_read()
+ * then, and no glue_close().
+ */
+void	glue_reader(struct glue *g, struct devtab *devs);
+/*
  * Set G's reader up to read the sample stream into its devices: the
- * columns NEED must be there, and one of NEED_ANY when it is not 0; each
- * row goes to ROW(CTX, its device's state, the row).  G->sc may then be
- * changed further (a text column, an extra one).
+ * device and time columns and the columns NEED must be there, and one
+ * of NEED_ANY when it is not 0; each row goes to ROW(CTX, its device's
+ * state, the row).  G->sc may then be changed further (a text column,
+ * an extra one).
  */
 void	glue_sampin(struct glue *g, unsigned need, unsigned need_any,
 	    int (*row)(void *, void *, const struct cw_sample *), void *ctx);
