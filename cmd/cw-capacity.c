@@ -107,9 +107,7 @@ static const struct optab opts[] = {
 	{ "ocv-span", 0, "DUR", "longest time between two OCV points", "1d",
 	    OPT_OCV_SPAN,
 	    OPTAB_DUR, T(conf.ocv_span), 0, 0 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "rated", 0, "AH", "rated capacity of every pack", "none",
 	    OPT_RATED },
 	{ "rejects", 0, "FILE", "write the rejected segments and why to FILE",
@@ -117,18 +115,14 @@ static const struct optab opts[] = {
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0 },
 	{ "temp", 0, "LO,HI | any", "temperature window; any: none",
 	    "10,45", OPT_TEMP },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-capacity", "[FILE ...]",
-	"Measured capacity by coulomb counting over charge and discharge\n"
-	"segments, and its fade per device.\n",
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
-	"one).  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-capacity",
+    "Measured capacity by coulomb counting over charge and discharge\n"
+    "segments, and its fade per device.\n",
+    OPTAB_TEMPS OPTAB_DURATIONS,
+    opts);
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static int	on_est(struct tool *t, struct dev *d, const struct cap_est *e);

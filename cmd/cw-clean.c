@@ -111,7 +111,7 @@ static const struct optab opts[] = {
 	    OPTAB_DUR, O(c.step), 0, 0 },
 	{ "tz", 0, "+hh:mm", "offset of local times without a zone", "UTC",
 	    OPT_TZ },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool tool = {
@@ -119,7 +119,7 @@ static const struct optool tool = {
 	"Clean raw battery gauge logs (plain or gzip) into the sample stream\n"
 	"device,time,voltage_v,current_a,temp_c,soc_pct (then the --keep\n"
 	"columns).\n",
-	"Durations take 90, 90s, 15m, 2h, 1d.\n",
+	OPTAB_DURATIONS,
 	opts,
 	"print counts to stderr"
 };

@@ -92,9 +92,7 @@ static const struct optab opts[] = {
 	    OPT_MIN_STEP },
 	{ "min-steps", 0, "N", "fewest steps for a trend", "10",
 	    OPT_MIN_STEPS },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "ref-temp", 0, "T", "reference temperature", "25C", OPT_REF_TEMP },
 	{ "soc", 0, "LO,HI|auto", "SoC window in percent; auto: per device, "
 	    "the 30-point window with most steps", "20,80", OPT_SOC },
@@ -111,18 +109,14 @@ static const struct optab opts[] = {
 	{ "temp", 0, "LO,HI", "temperature window", "10,45", OPT_TEMP },
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0,
 	    OPTAB_FLAG, T(trend), 0, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-dcir", "[FILE ...]",
-	"DC internal resistance from current steps, and its growth per "
-	"device.\n",
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without "
-	"one).\nDurations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-dcir",
+    "DC internal resistance from current steps, and its growth per "
+    "device.\n",
+    OPTAB_TEMPS OPTAB_DURATIONS,
+    opts);
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	write_step(struct tool *t, const struct djoin_dev *d,

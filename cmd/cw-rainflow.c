@@ -61,9 +61,7 @@ static const struct optab opts[] = {
 	{ "matrix", 0, "WIDTH[,MEAN_WIDTH]", "the range-mean matrix, range "
 	    "bins WIDTH wide and mean bins MEAN_WIDTH wide", "WIDTH",
 	    OPT_MATRIX },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, R(outpath), 0, 0 },
+	OPTAB_OUTPUT(R(outpath)),
 	{ "residue", 0, "half|full|repeat", "count the residue as half "
 	    "cycles, full cycles, or as if the history repeated", "half",
 	    OPT_RESIDUE },
@@ -71,16 +69,13 @@ static const struct optab opts[] = {
 	    NULL, 0 },
 	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
 	    OPT_SIGNAL },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-rainflow", "[FILE ...]",
-	"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
-	"--histogram, --matrix and --summary exclude each other.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-rainflow",
+    "Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
+    "--histogram, --matrix and --summary exclude each other.\n",
+    opts);
 
 static int parse(struct run *, int, char *[]);
 static double width_arg(const char *, const char *);

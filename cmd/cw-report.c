@@ -56,7 +56,7 @@ static const struct optab opts[] = {
 	{ "topoff", 0, "N", "show top-off micro-cycles a day of N or more "
 	    "beside a listed pack", "10", OPT_TOPOFF },
 	{ "tz", 0, "+HH:MM", "dates at this offset from UTC", "UTC", OPT_TZ },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool tool = {

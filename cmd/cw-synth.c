@@ -53,7 +53,7 @@ static const struct optab opts[] = {
 	    0 },
 	{ "tz", 0, "+hh:mm", "the fleet's local time offset", "+01:00",
 	    OPT_TZ },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool tool = {

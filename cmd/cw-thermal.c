@@ -108,9 +108,7 @@ static const struct optab opts[] = {
 	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "60s",
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "summary", 's', NULL, "one row per device (per value with --by) "
 	    "instead of one per event", NULL, 0 },
 	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
@@ -121,22 +119,19 @@ static const struct optab opts[] = {
 	{ "warm-voltage", 0, "V", "charge voltage per cell allowed in the "
 	    "warm zone", "4.10", OPT_WARM_VOLTAGE,
 	    OPTAB_NUM, T(conf.warm_v), 0.001, 100 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-thermal", "[FILE ...]",
-	"Charging outside the safe temperature window, as events per device,\n"
-	"judged by the charge protocol of the JEITA scheme.\n",
-	"The protocol's defaults are from memory of the JEITA guideline; the\n"
-	"cell maker's data sheet rules.\n"
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
-	"one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
-	"Durations take 90, 90s, 15m, 2h, 1d.\n"
-	"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-thermal",
+    "Charging outside the safe temperature window, as events per device,\n"
+    "judged by the charge protocol of the JEITA scheme.\n",
+    "The protocol's defaults are from memory of the JEITA guideline; the\n"
+    "cell maker's data sheet rules.\n"
+    "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
+    "one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
+    OPTAB_DURATIONS
+    "--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
+    opts);
 
 static int	parse(struct tool *t, int argc, char *argv[]);
 static void	write_header(struct tool *t);

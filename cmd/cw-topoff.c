@@ -83,9 +83,7 @@ static const struct optab opts[] = {
 	{ "min-depth", 0, "PCT", "the smallest drop below the peak that "
 	    "counts", "0.5", OPT_MIN_DEPTH,
 	    OPTAB_NUM, T(conf.min_depth), 0.001, 100 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "summary", 's', NULL, "one row per device (-e and -s exclude each "
 	    "other)", NULL, 0 },
 	{ "standby-current", 0, "A", "discharge up to A amperes is standby "
@@ -101,18 +99,15 @@ static const struct optab opts[] = {
 	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
 	    OPT_USE_DIPS,
 	    OPTAB_FLAG, T(use_dips), 0, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-topoff", "[FILE ...]",
-	"Holds near full charge and top-off micro-cycles, per device; dips\n"
-	"driven by use (discharge above the standby level) are counted\n"
-	"apart.\n",
-	"Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-topoff",
+    "Holds near full charge and top-off micro-cycles, per device; dips\n"
+    "driven by use (discharge above the standby level) are counted\n"
+    "apart.\n",
+    OPTAB_DURATIONS,
+    opts);
 
 static struct dev *dev_of(struct topoff *top);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);

@@ -35,7 +35,7 @@ struct dev {
 };
 
 struct tool {
-	const char *outpath;	/* -o FILE, or NULL */
+	const char *outpath, *fleetpath;	/* -o FILE, --fleet FILE */
 	struct volt_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -65,7 +65,8 @@ static const struct optab opts[] = {
 	    "voltage over N", "1", OPT_CELLS,
 	    OPTAB_INT, T(cells), 1, 1000 },
 	{ "fleet", 0, "FILE", "the fleet file; its cells column overrides "
-	    "--cells per pack", NULL, OPT_FLEET },
+	    "--cells per pack", NULL, OPT_FLEET,
+	    OPTAB_STR, T(fleetpath), 0, 0 },
 	{ "hysteresis", 0, "V", "come back inside by V per cell to end an "
 	    "event", "0.02", OPT_HYST,
 	    OPTAB_NUM, T(conf.hyst), 0, 10 },
@@ -82,24 +83,20 @@ static const struct optab opts[] = {
 	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "30s",
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "summary", 's', NULL, "one row per device instead of one per event",
-	    NULL, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	    NULL, 0,
+	    OPTAB_FLAG, T(summary), 0, 0 },
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-volt", "[FILE ...]",
-	"Charge, use and rest outside the cells' voltage window, as events\n"
-	"per device.\n",
-	"The default limits are typical of NMC and LCO cells, from memory;\n"
-	"LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
-	"maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-volt",
+    "Charge, use and rest outside the cells' voltage window, as events\n"
+    "per device.\n",
+    "The default limits are typical of NMC and LCO cells, from memory;\n"
+    "LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
+    "maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
+    opts);
 
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
@@ -214,40 +211,26 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 }
 
 /*
- * The options into T, the output's path into *OUTPATH; the index of the
- * first operand.
+ * The options into T, checked; the index of the first operand.  Exits 2
+ * on a usage error.
  */
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
-	const char *fleetpath = NULL;
-	int ch;
+	int k;
 
 	volt_conf_default(&t->conf);
 	t->cells = 1;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
-		switch (ch) {
-		case 's':
-			t->summary = 1;
-			break;
-		case OPT_FLEET:
-			fleetpath = optarg;
-			break;
-		}
-	}
-	optab_free(&op);
+	k = optab_parse(&tool, t, argc, argv);
 	if (t->conf.vmin >= t->conf.vmax)
 		cw_usage_error("--min (%g V) must be below --max (%g V)",
 		    t->conf.vmin, t->conf.vmax);
 	if (t->conf.hyst >= t->conf.vmax - t->conf.vmin)
 		cw_usage_error("--hysteresis (%g V) must be below --max minus "
 		    "--min (%g V)", t->conf.hyst, t->conf.vmax - t->conf.vmin);
-
-	if (fleetpath != NULL)
-		t->fleet = fleet_load(fleetpath);
-	return optind;
+	if (t->fleetpath != NULL)
+		t->fleet = fleet_load(t->fleetpath);
+	return k;
 }
 
 int

@@ -120,9 +120,7 @@ static const struct optab opts[] = {
 	{ "min-depth", 0, "PCT", "the smallest top-off micro-cycle", "0.5",
 	    OPT_MIN_DEPTH },
 	{ "model", 0, "NAME", "the degradation model", "xu2018", OPT_MODEL },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, R(out), 0, 0 },
+	OPTAB_OUTPUT(R(out)),
 	{ "partition", 0, NULL, "with --merge, standard input holds the "
 	    "states of some devices only (a reducer's share): end rows "
 	    "checked for form, not for the rows they count (unset: whole "
@@ -135,19 +133,16 @@ static const struct optab opts[] = {
 	{ "state-out", 0, NULL, "write the states instead of the report",
 	    NULL, OPT_STATE_OUT,
 	    OPTAB_FLAG, R(state_out), 0, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-wear", "[FILE ...]",
-	"Wear stress, modelled fade and its causes per pack, from the sample\n"
-	"stream.\n",
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; durations "
-	"90, 90s,\n15m, 2h, 1d.  The tools advise; they are not a safety "
-	"system.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-wear",
+    "Wear stress, modelled fade and its causes per pack, from the sample\n"
+    "stream.\n",
+    "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; durations "
+    "90, 90s,\n15m, 2h, 1d.  The tools advise; they are not a safety "
+    "system.\n",
+    opts);
 
 static int on_row(void *, void *, const struct cw_sample *);
 static void write_row(struct csvout *, const struct run *,

@@ -118,6 +118,24 @@ store(const struct optab *o, void *base, const char *v)
 	case OPTAB_STR:
 		*(const char **)(void *)at = v;
 		break;
+	case OPTAB_POS:
+		*(double *)(void *)at = opt_pos_arg(name, v, o->hi);
+		break;
+	case OPTAB_OPEN:
+		*(double *)(void *)at = opt_open_arg(name, v, o->lo, o->hi);
+		break;
+	case OPTAB_LONGINT:
+		*(long *)(void *)at = opt_long_arg(name, v, (long)o->lo,
+		    (long)o->hi);
+		break;
+	case OPTAB_ULONG:
+		*(unsigned long *)(void *)at = (unsigned long)opt_long_arg(name,
+		    v, (long)o->lo, (long)o->hi);
+		break;
+	case OPTAB_SIZE:
+		*(size_t *)(void *)at = (size_t)opt_long_arg(name, v,
+		    (long)o->lo, (long)o->hi);
+		break;
 	}
 }
 
@@ -171,6 +189,18 @@ optab_free(struct optparse *p)
 {
 	free(p->longopts);
 	p->longopts = NULL;
+}
+
+int
+optab_parse(const struct optool *tool, void *base, int argc, char *argv[])
+{
+	struct optparse op;
+
+	optab_init(&op, tool, base);
+	while (optab_next(&op, argc, argv) != -1)
+		;
+	optab_free(&op);
+	return optind;
 }
 
 /*
