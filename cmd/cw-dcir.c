@@ -34,9 +34,6 @@
 	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day," \
 	"soc_gate,growth_lo_pct_per_30d,growth_hi_pct_per_30d"
 
-/* Points kept per device for the trend before thinning sets in. */
-#define MAX_POINTS_DEFAULT 2048
-
 struct tool {
 	struct dcir_conf conf;
 	struct dcir_trend_conf tconf;
@@ -69,7 +66,8 @@ static const struct optab opts[] = {
 	    OPT_ALLOW_NO_SOC,
 	    OPTAB_FLAG, T(conf.unknown_soc_ok), 0, 0 },
 	{ "confidence", 0, "P", "confidence level of the slope's interval",
-	    "0.95", OPT_CONFIDENCE },
+	    "0.95", OPT_CONFIDENCE,
+	    OPTAB_OPEN, T(tconf.conf), 0.5, 1 },
 	{ "ea", 0, "KJ", "activation energy in kJ/mol", "30", OPT_EA,
 	    OPTAB_NUM, T(conf.ea_kj), 0, 1000 },
 	{ "eol", 0, "PCT", "end of life at PCT percent of r_start_ohm", "200",
@@ -81,7 +79,8 @@ static const struct optab opts[] = {
 	    "15s", OPT_MAX_DT,
 	    OPTAB_DUR, T(conf.max_dt), 0, 0 },
 	{ "max-points", 0, "N", "points kept per device for the trend",
-	    "2048", OPT_MAX_POINTS },
+	    "2048", OPT_MAX_POINTS,
+	    OPTAB_SIZE, T(max_points), 16, 1L << 24 },
 	{ "merge", 0, NULL, "the files are states (--state-out): join them",
 	    NULL, OPT_MERGE,
 	    OPTAB_FLAG, T(merge), 0, 0 },
@@ -89,9 +88,11 @@ static const struct optab opts[] = {
 	    "7d", OPT_MIN_SPAN,
 	    OPTAB_DUR, T(tconf.min_span), -1, 0 },
 	{ "min-step", 0, "A", "smallest current step in amperes", "0.5",
-	    OPT_MIN_STEP },
+	    OPT_MIN_STEP,
+	    OPTAB_POS, T(conf.min_step), 0, 1e6 },
 	{ "min-steps", 0, "N", "fewest steps for a trend", "10",
-	    OPT_MIN_STEPS },
+	    OPT_MIN_STEPS,
+	    OPTAB_ULONG, T(tconf.min_steps), 2, 1000000000L },
 	OPTAB_OUTPUT(T(outpath)),
 	{ "ref-temp", 0, "T", "reference temperature", "25C", OPT_REF_TEMP },
 	{ "soc", 0, "LO,HI|auto", "SoC window in percent; auto: per device, "
@@ -309,18 +310,11 @@ parse(struct tool *t, int argc, char *argv[])
 
 	dcir_conf_default(&t->conf);
 	dcir_trend_conf_default(&t->tconf);
-	t->max_points = MAX_POINTS_DEFAULT;
+	t->max_points = DCIR_MAX_POINTS;
 	t->lock_wait = LOCK_WAIT_DEFAULT;
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
 		switch (ch) {
-		case OPT_CONFIDENCE:
-			t->tconf.conf = opt_num_arg("--confidence", optarg,
-			    0.5, 1);
-			if (t->tconf.conf <= 0.5 || t->tconf.conf >= 1)
-				cw_usage_error("--confidence: %s is not "
-				    "between 0.5 and 1 (exclusive)", optarg);
-			break;
 		case OPT_EOL:
 			t->tconf.eol_pct = opt_num_arg("--eol", optarg, 100,
 			    100000);
@@ -328,25 +322,10 @@ parse(struct tool *t, int argc, char *argv[])
 				cw_usage_error("--eol: %s is not above 100 "
 				    "(percent of r_start)", optarg);
 			break;
-		case OPT_MAX_POINTS:
-			t->max_points = (size_t)opt_long_arg("--max-points",
-			    optarg, 16, 1L << 24);
-			break;
 		case OPT_STATE:
 			if (optarg[0] == '\0')
 				cw_usage_error("--state needs a file name");
 			t->state = optarg;
-			break;
-		case OPT_MIN_STEP:
-			t->conf.min_step = opt_num_arg("--min-step", optarg, 0,
-			    1e6);
-			if (t->conf.min_step <= 0)
-				cw_usage_error("--min-step: %s is not above 0",
-				    optarg);
-			break;
-		case OPT_MIN_STEPS:
-			t->tconf.min_steps = (unsigned long)opt_long_arg(
-			    "--min-steps", optarg, 2, 1000000000L);
 			break;
 		case OPT_REF_TEMP:
 			t->conf.ref_temp_c = opt_temp_arg("--ref-temp",
