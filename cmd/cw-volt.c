@@ -121,15 +121,9 @@ on_event(void *ctx, struct volt_dev *vd, const struct volt_event *ev)
 		return;
 	d = (const struct dev *)(const void *)((const char *)vd -
 	    offsetof(struct dev, v));
-	csvout_strn(&t->out, d->e.name, d->e.namelen);
-	csvout_str(&t->out, volt_kind_name(ev->kind));
-	csvout_str(&t->out, volt_limit_name(ev->limit));
-	glue_span(&t->out, ev->start, ev->end);
-	csvout_num(&t->out, ev->v_min);
-	csvout_num(&t->out, ev->v_max);
-	csvout_num(&t->out, ev->charge_ah);
-	csvout_num(&t->out, ev->soc_start);
-	csvout_num(&t->out, ev->soc_end);
+	glue_event(&t->out, &d->e, volt_kind_name(ev->kind),
+	    volt_limit_name(ev->limit), ev->start, ev->end, ev->v_min,
+	    ev->v_max, ev->charge_ah, ev->soc_start, ev->soc_end);
 	csvout_int(&t->out, vd->cells);
 	csvout_endrow(&t->out);
 }

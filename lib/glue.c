@@ -95,6 +95,22 @@ glue_close(struct glue *g, int rc)
 }
 
 void
+glue_event(struct csvout *w, const struct devent *e, const char *kind,
+    const char *where, cw_time start, cw_time end, double lo, double hi,
+    double ah, double soc0, double soc1)
+{
+	csvout_strn(w, e->name, e->namelen);
+	csvout_str(w, kind);
+	csvout_str(w, where);
+	glue_span(w, start, end);
+	csvout_num(w, lo);
+	csvout_num(w, hi);
+	csvout_num(w, ah);
+	csvout_num(w, soc0);
+	csvout_num(w, soc1);
+}
+
+void
 glue_span(struct csvout *w, cw_time start, cw_time end)
 {
 	csvout_time(w, start);

@@ -67,6 +67,15 @@ void	**glue_sorted(const struct glue *g, size_t *n);
  */
 int	glue_close(struct glue *g, int rc);
 
+/*
+ * The columns an event row of cw-thermal and cw-volt begins with, for
+ * device E: device, KIND, WHERE (zone or limit), START, END, duration_s,
+ * the lowest and highest value LO and HI, charge AH, SOC0 and SOC1 (at
+ * its start and end).
+ */
+void	glue_event(struct csvout *w, const struct devent *e, const char *kind,
+	    const char *where, cw_time start, cw_time end, double lo,
+	    double hi, double ah, double soc0, double soc1);
 /* A span's start, end and its length in seconds, as three fields. */
 void	glue_span(struct csvout *w, cw_time start, cw_time end);
 /* FIRST and LAST as two times when HAVE, else two empty fields. */
