@@ -36,6 +36,7 @@ struct run {
 	int out;		/* OUT_* */
 	int residue;		/* RF_RESIDUE_* */
 	int col;		/* the signal's sampin column */
+	size_t at;		/* where its value is in a struct cw_sample */
 	const char *signal;	/* its name */
 	int efc;		/* the signal is SoC: write efc */
 	double hyst, rw, mw;
@@ -126,9 +127,17 @@ matrix_arg(struct run *r, const char *s)
 	r->mw = width_arg("--matrix", comma + 1);
 }
 
+/* --signal COLUMN: a numeric column of the stream, or the extra one. */
 static void
 signal_arg(struct run *r, const char *s)
 {
+	static const size_t at[SAMP_EXTRA + 1] = {
+		[SAMP_VOLTAGE] = offsetof(struct cw_sample, v),
+		[SAMP_CURRENT] = offsetof(struct cw_sample, i),
+		[SAMP_TEMP] = offsetof(struct cw_sample, temp),
+		[SAMP_SOC] = offsetof(struct cw_sample, soc),
+		[SAMP_EXTRA] = offsetof(struct cw_sample, x)
+	};
 	int k;
 
 	if (s[0] == '\0')
@@ -140,6 +149,7 @@ signal_arg(struct run *r, const char *s)
 	if (k == SAMP_DEVICE || k == SAMP_TIME)
 		cw_usage_error("--signal: '%s' is not a numeric column", s);
 	r->col = k;		/* SAMP_EXTRA when not a stream column */
+	r->at = at[k];
 }
 
 static void
@@ -180,23 +190,7 @@ on_row(void *ctx, void *dp, const struct cw_sample *s)
 		    0);
 		d->ready = 1;
 	}
-	switch (r->col) {
-	case SAMP_VOLTAGE:
-		x = s->v;
-		break;
-	case SAMP_CURRENT:
-		x = s->i;
-		break;
-	case SAMP_TEMP:
-		x = s->temp;
-		break;
-	case SAMP_SOC:
-		x = s->soc;
-		break;
-	default:
-		x = s->x;
-		break;
-	}
+	x = *(const double *)(const void *)((const char *)s + r->at);
 	if (!cw_isnum(x)) {
 		r->nosig++;
 		return 0;
