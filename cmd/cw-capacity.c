@@ -288,6 +288,7 @@ parse(struct tool *t, int argc, char *argv[])
 	double w[2];
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	cap_conf_default(&t->conf);
 	cap_trend_conf_default(&t->tconf);
 	t->max_points = DCIR_MAX_POINTS;
@@ -310,8 +311,7 @@ parse(struct tool *t, int argc, char *argv[])
 	if (t->rejpath != NULL && strcmp(t->rejpath, "-") == 0)
 		cw_usage_error("--rejects: standard output holds the "
 		    "estimates; name a file");
-	if (t->fleetpath != NULL)
-		t->fleet = fleet_load(t->fleetpath);
+	t->fleet = fleet_load(t->fleetpath);
 	if (t->ocvpath != NULL)
 		t->ocv = ocv_load(t->ocvpath);
 	return optind;
@@ -328,8 +328,6 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int rc, k;
 
-	cw_setprog("cw-capacity");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.trend ?
 	    TREND_HEADER : EST_HEADER);

@@ -237,6 +237,7 @@ parse(struct opts *o, int argc, char *argv[])
 	const char *err;
 	int ch;
 
+	memset(o, 0, sizeof(*o));
 	clean_conf_default(c);
 	o->max_reject = 0.5;
 	o->cells = 1;
@@ -350,8 +351,6 @@ main(int argc, char *argv[])
 	struct outf *of, *rf = NULL;
 	int k, rc, rrc;
 
-	cw_setprog("cw-clean");
-	memset(&o, 0, sizeof(o));
 	k = parse(&o, argc, argv);
 	argc -= k;
 	argv += k;

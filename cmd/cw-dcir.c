@@ -308,6 +308,7 @@ parse(struct tool *t, int argc, char *argv[])
 	double w[2];
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	dcir_conf_default(&t->conf);
 	dcir_trend_conf_default(&t->tconf);
 	t->max_points = DCIR_MAX_POINTS;
@@ -447,8 +448,6 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int k, rc;
 
-	cw_setprog("cw-dcir");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	argc -= k;
 	argv += k;

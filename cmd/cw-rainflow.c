@@ -268,6 +268,7 @@ parse(struct run *r, int argc, char *argv[])
 	struct optparse op;
 	int ch, nout = 0;
 
+	memset(r, 0, sizeof(*r));
 	r->out = OUT_CYCLES;
 	r->residue = RF_RESIDUE_HALF;
 	r->hyst = 1;
@@ -326,8 +327,6 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int rc, k;
 
-	cw_setprog("cw-rainflow");
-	memset(&r, 0, sizeof(r));
 	k = parse(&r, argc, argv);
 	glue_open(&g, sizeof(struct dev), r.outpath, &r.w, header[r.out]);
 	r.devs = g.devs;

@@ -97,7 +97,6 @@ main(int argc, char *argv[])
 	size_t npacks;
 	int ch, i, rc = CW_EXIT_OK;
 
-	cw_setprog("cw-report");
 	report_conf_default(&conf);
 	optab_init(&op, &tool, &conf);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
@@ -138,8 +137,7 @@ main(int argc, char *argv[])
 		argc = 1;
 	}
 
-	if (fleetpath != NULL)
-		fleet = fleet_load(fleetpath);
+	fleet = fleet_load(fleetpath);
 	rep = report_new(&conf, fleet);
 	if (since != NULL)
 		rc = report_since(rep, since);

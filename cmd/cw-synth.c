@@ -167,7 +167,6 @@ main(int argc, char *argv[])
 	long tz;
 	int ch, k;
 
-	cw_setprog("cw-synth");
 	synth_conf_default(&c);
 	optab_init(&op, &tool, &c);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {

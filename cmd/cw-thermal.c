@@ -396,6 +396,7 @@ parse(struct tool *t, int argc, char *argv[])
 	double use[2];
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	thermal_conf_default(&t->conf);
 	t->cap_ah = CW_MISSING;
 	optab_init(&op, &tool, t);
@@ -418,8 +419,7 @@ parse(struct tool *t, int argc, char *argv[])
 		}
 	}
 	optab_free(&op);
-	if (t->fleetpath != NULL)
-		t->fleet = fleet_load(t->fleetpath);
+	t->fleet = fleet_load(t->fleetpath);
 	return optind;
 }
 
@@ -455,8 +455,6 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int rc, k;
 
-	cw_setprog("cw-thermal");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, NULL);
 	write_header(&t);

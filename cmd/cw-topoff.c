@@ -312,6 +312,7 @@ parse(struct tool *t, int argc, char *argv[])
 	int events = 0, summary = 0;
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	topoff_conf_default(&t->conf);
 	optab_init(&op, &tool, t);
 	while ((ch = optab_next(&op, argc, argv)) != -1) {
@@ -336,8 +337,7 @@ parse(struct tool *t, int argc, char *argv[])
 	t->mode = events ? MODE_EVENTS : summary ? MODE_SUMMARY : MODE_HOLDS;
 	if (t->use_dips && !events)
 		cw_usage_error("--use-dips lists dips with -e (--events)");
-	if (t->fleetpath != NULL)
-		t->fleet = fleet_load(t->fleetpath);
+	t->fleet = fleet_load(t->fleetpath);
 	return optind;
 }
 
@@ -350,8 +350,6 @@ main(int argc, char *argv[])
 	struct glue g;
 	int rc, k;
 
-	cw_setprog("cw-topoff");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, header[t.mode]);
 	t.conf.on_cycle = on_cycle;

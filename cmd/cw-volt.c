@@ -213,6 +213,7 @@ parse(struct tool *t, int argc, char *argv[])
 {
 	int k;
 
+	memset(t, 0, sizeof(*t));
 	volt_conf_default(&t->conf);
 	t->cells = 1;
 	k = optab_parse(&tool, t, argc, argv);
@@ -222,8 +223,7 @@ parse(struct tool *t, int argc, char *argv[])
 	if (t->conf.hyst >= t->conf.vmax - t->conf.vmin)
 		cw_usage_error("--hysteresis (%g V) must be below --max minus "
 		    "--min (%g V)", t->conf.hyst, t->conf.vmax - t->conf.vmin);
-	if (t->fleetpath != NULL)
-		t->fleet = fleet_load(t->fleetpath);
+	t->fleet = fleet_load(t->fleetpath);
 	return k;
 }
 
@@ -234,8 +234,6 @@ main(int argc, char *argv[])
 	struct glue g;
 	int rc, k;
 
-	cw_setprog("cw-volt");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.summary ?
 	    SUMMARY_HEADER : EVENT_HEADER);

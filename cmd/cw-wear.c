@@ -751,7 +751,6 @@ main(int argc, char *argv[])
 	struct outf *of, *sf = NULL;
 	int k, rc;
 
-	cw_setprog("cw-wear");
 	k = parse(&r, argc, argv);
 	argc -= k;
 	argv += k;
@@ -762,8 +761,7 @@ main(int argc, char *argv[])
 	 * side; one that is only ever continued (--state) stays compact.
 	 */
 	r.conf.joinable = r.state_out && r.state == NULL;
-	if (r.fleet_path != NULL)
-		r.fleet = fleet_load(r.fleet_path);
+	r.fleet = fleet_load(r.fleet_path);
 	if (r.measured != NULL)
 		r.meas = meas_load(r.measured);
 	wjoin_init(&r.join, &r.conf);

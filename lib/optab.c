@@ -66,6 +66,8 @@ optab_init(struct optparse *p, const struct optool *tool, void *base)
 	size_t n, i, k = 0, s;
 	char *sh = p->shorts;
 
+	/* Messages name the program from here on. */
+	cw_setprog(tool->prog);
 	p->tool = tool;
 	p->base = base;
 	n = count(tool->opts) + count(sets[1]);

@@ -90,7 +90,10 @@ struct optparse {
 	char shorts[2 * 64 + 2];
 };
 
-/* BASE: the struct the table's offsets point into (NULL: none). */
+/*
+ * BASE: the struct the table's offsets point into (NULL: none).  Names
+ * the program for messages (cw_setprog()) after the tool's table.
+ */
 void	optab_init(struct optparse *p, const struct optool *tool,
 	    void *base);
 /*
