@@ -284,7 +284,6 @@ free_devs(struct devtab *devs)
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
 	double w[2];
 	int ch;
 
@@ -294,8 +293,7 @@ parse(struct tool *t, int argc, char *argv[])
 	t->max_points = DCIR_MAX_POINTS;
 	t->rated = CW_MISSING;
 	t->cells = 1;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		if (ch != OPT_TEMP)
 			continue;
 		if (strcmp(optarg, "any") == 0) {
@@ -307,7 +305,6 @@ parse(struct tool *t, int argc, char *argv[])
 		t->conf.temp_lo = w[0];
 		t->conf.temp_hi = w[1];
 	}
-	optab_free(&op);
 	if (t->rejpath != NULL && strcmp(t->rejpath, "-") == 0)
 		cw_usage_error("--rejects: standard output holds the "
 		    "estimates; name a file");

@@ -233,7 +233,6 @@ static int
 parse(struct opts *o, int argc, char *argv[])
 {
 	struct clean_conf *c = &o->c;
-	struct optparse op;
 	const char *err;
 	int ch;
 
@@ -241,8 +240,7 @@ parse(struct opts *o, int argc, char *argv[])
 	clean_conf_default(c);
 	o->max_reject = 0.5;
 	o->cells = 1;
-	optab_init(&op, &tool, o);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, o, argc, argv)) != -1) {
 		switch (ch) {
 		case 'c':
 			if (colmap_parse_spec(optarg, &c->spec, &err) < 0)
@@ -310,7 +308,6 @@ parse(struct opts *o, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (!o->set[CM_VOLTAGE]) {
 		c->lo[CM_VOLTAGE] *= o->cells;
 		c->hi[CM_VOLTAGE] *= o->cells;

@@ -304,7 +304,6 @@ report(const struct tool *t, const struct devtab *devs,
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
 	double w[2];
 	int ch;
 
@@ -313,8 +312,7 @@ parse(struct tool *t, int argc, char *argv[])
 	dcir_trend_conf_default(&t->tconf);
 	t->max_points = DCIR_MAX_POINTS;
 	t->lock_wait = LOCK_WAIT_DEFAULT;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		switch (ch) {
 		case OPT_EOL:
 			t->tconf.eol_pct = opt_num_arg("--eol", optarg, 100,
@@ -358,7 +356,6 @@ parse(struct tool *t, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (t->state != NULL && t->outpath != NULL &&
 	    strcmp(t->state, t->outpath) == 0)
 		cw_usage_error("--state and -o name the same file");

@@ -265,7 +265,6 @@ write_summary(struct run *r, struct dev *d)
 static int
 parse(struct run *r, int argc, char *argv[])
 {
-	struct optparse op;
 	int ch, nout = 0;
 
 	memset(r, 0, sizeof(*r));
@@ -274,8 +273,7 @@ parse(struct run *r, int argc, char *argv[])
 	r->hyst = 1;
 	r->rw = 1;
 	signal_arg(r, "soc_pct");
-	optab_init(&op, &tool, r);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, r, argc, argv)) != -1) {
 		switch (ch) {
 		case OPT_HISTOGRAM:
 			r->out = OUT_HISTOGRAM;
@@ -304,7 +302,6 @@ parse(struct run *r, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (nout > 1)
 		cw_usage_error("--histogram, --matrix and --summary exclude "
 		    "each other");

@@ -89,7 +89,6 @@ main(int argc, char *argv[])
 	static char stdin_name[] = "-";
 	static char *stdin_only[] = { stdin_name };
 	struct report_conf conf;
-	struct optparse op;
 	struct report *rep;
 	struct fleet *fleet = NULL;
 	struct outf *of;
@@ -98,8 +97,7 @@ main(int argc, char *argv[])
 	int ch, i, rc = CW_EXIT_OK;
 
 	report_conf_default(&conf);
-	optab_init(&op, &tool, &conf);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, &conf, argc, argv)) != -1) {
 		switch (ch) {
 		case 'o':
 			outpath = optarg;
@@ -129,7 +127,6 @@ main(int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	argc -= optind;
 	argv += optind;
 	if (argc == 0) {

@@ -160,7 +160,6 @@ int
 main(int argc, char *argv[])
 {
 	struct synth_conf c;
-	struct optparse op;
 	struct synth_stats st;
 	const char *err;
 	double sum;
@@ -168,8 +167,7 @@ main(int argc, char *argv[])
 	int ch, k;
 
 	synth_conf_default(&c);
-	optab_init(&op, &tool, &c);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, &c, argc, argv)) != -1) {
 		switch (ch) {
 		case 'F':
 			if (synth_faults_parse(optarg, c.rate, &err) < 0)
@@ -223,7 +221,6 @@ main(int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (optind < argc)
 		cw_usage_error("unexpected argument '%s'", argv[optind]);
 	if (4 * c.incidents > c.ndev)

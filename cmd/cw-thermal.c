@@ -392,15 +392,13 @@ report(const struct devtab *devs, const struct sampin_stats *st,
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
 	double use[2];
 	int ch;
 
 	memset(t, 0, sizeof(*t));
 	thermal_conf_default(&t->conf);
 	t->cap_ah = CW_MISSING;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		switch (ch) {
 		case OPT_BY:
 			if (optarg[0] == '\0')
@@ -418,7 +416,6 @@ parse(struct tool *t, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	t->fleet = fleet_load(t->fleetpath);
 	return optind;
 }

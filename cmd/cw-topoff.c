@@ -308,14 +308,12 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
 	int events = 0, summary = 0;
 	int ch;
 
 	memset(t, 0, sizeof(*t));
 	topoff_conf_default(&t->conf);
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		switch (ch) {
 		case 'e':
 			events = 1;
@@ -330,7 +328,6 @@ parse(struct tool *t, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (events && summary)
 		cw_usage_error("-e (--events) and -s (--summary) exclude each "
 		    "other");

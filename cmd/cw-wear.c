@@ -502,13 +502,11 @@ exists(const char *path)
 static int
 parse(struct run *r, int argc, char *argv[])
 {
-	struct optparse op;
 	int ch;
 
 	wear_conf_default(&r->conf);
 	r->lock_wait = LOCK_WAIT_DEFAULT;
-	optab_init(&op, &tool, r);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, r, argc, argv)) != -1) {
 		switch (ch) {
 		case OPT_FULL:
 			r->conf.topoff.full_pct = opt_num_arg("--full", optarg,
@@ -565,7 +563,6 @@ parse(struct run *r, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (r->state != NULL && r->out != NULL && strcmp(r->out, "-") != 0 &&
 	    outf_same(r->state, r->out))
 		cw_usage_error("--state and -o name the same file");

@@ -194,14 +194,28 @@ optab_free(struct optparse *p)
 }
 
 int
+optab_getopt(const struct optool *tool, void *base, int argc, char *argv[])
+{
+	static struct optparse p;
+	static int open;
+	int ch;
+
+	if (!open) {
+		optab_init(&p, tool, base);
+		open = 1;
+	}
+	if ((ch = optab_next(&p, argc, argv)) == -1) {
+		optab_free(&p);
+		open = 0;
+	}
+	return ch;
+}
+
+int
 optab_parse(const struct optool *tool, void *base, int argc, char *argv[])
 {
-	struct optparse op;
-
-	optab_init(&op, tool, base);
-	while (optab_next(&op, argc, argv) != -1)
+	while (optab_getopt(tool, base, argc, argv) != -1)
 		;
-	optab_free(&op);
 	return optind;
 }
 

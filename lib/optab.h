@@ -105,6 +105,13 @@ void	optab_init(struct optparse *p, const struct optool *tool,
 int	optab_next(struct optparse *p, int argc, char *argv[]);
 void	optab_free(struct optparse *p);
 /*
+ * optab_init() on the first call, then optab_next(), and optab_free()
+ * when that returns -1: a tool's option loop, which keeps its state
+ * between calls as getopt_long(3) itself does.
+ */
+int	optab_getopt(const struct optool *tool, void *base, int argc,
+	    char *argv[]);
+/*
  * The options of a tool whose table has no OPTAB_CASE entry, all stored
  * into BASE: the index of the first operand.
  */

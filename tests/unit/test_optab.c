@@ -224,6 +224,29 @@ test_stored(void **state)
 	assert_int_equal(c.size, 2048);
 }
 
+/*
+ * optab_getopt(): the same loop without a struct optparse; its tables
+ * are made again for a second parse once the first has ended (-1).
+ */
+static void
+test_getopt(void **state)
+{
+	char *one[] = { "cw-test", "--x", "3", "-o", "FILE", NULL };
+	char *two[] = { "cw-test", "-n", "4", NULL };
+	struct conf c;
+
+	(void)state;
+	memset(&c, 0, sizeof(c));
+	optind = 1;
+	assert_int_equal(optab_getopt(&stored_tool, &c, 5, one), 'o');
+	assert_int_equal(optab_getopt(&stored_tool, &c, 5, one), -1);
+	assert_int_equal(optind, 4);
+	assert_float_equal(c.x, 3, 0);
+	optind = 1;
+	assert_int_equal(optab_parse(&stored_tool, &c, 3, two), 3);
+	assert_int_equal(c.n, 4);
+}
+
 /* A stored value out of its range is a usage error, exit 2. */
 static void
 test_stored_bad(void **state)
@@ -319,6 +342,7 @@ main(void)
 		cmocka_unit_test(test_exits),
 		cmocka_unit_test(test_stored),
 		cmocka_unit_test(test_stored_bad),
+		cmocka_unit_test(test_getopt),
 		cmocka_unit_test(test_verbose),
 	};
 
