@@ -391,6 +391,13 @@ load_state(struct tool *t, struct dstate_read *rd)
 	return 0;
 }
 
+/* The states in PATH (glue_states()). */
+static int
+read_states(void *rd, const char *path, int whole)
+{
+	return dstate_read(rd, path, whole);
+}
+
 /*
  * --merge: the operands (standard input when none) are states, joined;
  * a file operand is a whole state, a stream may be sorted.  Returns 0 or
@@ -399,13 +406,9 @@ load_state(struct tool *t, struct dstate_read *rd)
 static int
 merge(struct tool *t, struct dstate_read *rd, char **argv, int argc)
 {
-	int k, rc;
+	int rc;
 
-	for (k = 0; k < argc; k++)
-		if ((rc = dstate_read(rd, argv[k],
-		    strcmp(argv[k], "-") != 0)) != 0)
-			return rc;
-	if ((argc == 0 && (rc = dstate_read(rd, "-", 0)) != 0) ||
+	if ((rc = glue_states(argv, argc, 0, read_states, rd)) != 0 ||
 	    (rc = djoin_flush(&t->join)) != 0)
 		return rc;
 	if (cw_verbose)

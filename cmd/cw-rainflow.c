@@ -239,22 +239,10 @@ write_summary(struct run *r, struct dev *d)
 {
 	csvout_strn(&r->w, d->e.name, d->e.namelen);
 	csvout_num(&r->w, d->sum.cycles);
-	if (r->efc)
-		csvout_num(&r->w, d->sum.range_sum / 100);
-	else
-		csvout_empty(&r->w);
-	if (d->sum.cycles > 0)
-		csvout_num(&r->w, d->sum.max_range);
-	else
-		csvout_empty(&r->w);
+	glue_num(&r->w, r->efc, d->sum.range_sum / 100);
+	glue_num(&r->w, d->sum.cycles > 0, d->sum.max_range);
 	csvout_num(&r->w, rf_sum_mean_range(&d->sum));
-	if (d->nsig > 0) {
-		csvout_time(&r->w, d->first);
-		csvout_time(&r->w, d->last);
-	} else {
-		csvout_empty(&r->w);
-		csvout_empty(&r->w);
-	}
+	glue_first_last(&r->w, d->nsig > 0, d->first, d->last);
 	csvout_endrow(&r->w);
 }
 

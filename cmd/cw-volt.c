@@ -51,7 +51,6 @@ enum {
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct volt_dev *vd,
 		    const struct volt_event *ev);
-static void	num_or_empty(struct csvout *o, double x);
 static void	write_summary(struct tool *t, const struct dev *d);
 static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
@@ -128,16 +127,6 @@ on_event(void *ctx, struct volt_dev *vd, const struct volt_event *ev)
 	csvout_endrow(&t->out);
 }
 
-/* X, or an empty field when no row set it (still infinite). */
-static void
-num_or_empty(struct csvout *o, double x)
-{
-	if (x > -1e308 && x < 1e308)
-		csvout_num(o, x);
-	else
-		csvout_empty(o);
-}
-
 /* The end of the stream for device DEV: its open event, its summary. */
 static void
 end_dev(void *ctx, void *dev)
@@ -161,8 +150,9 @@ write_summary(struct tool *t, const struct dev *d)
 	csvout_time(&t->out, v->first);
 	csvout_time(&t->out, v->prev_t);
 	csvout_int(&t->out, v->cells);
-	num_or_empty(&t->out, v->v_min);
-	num_or_empty(&t->out, v->v_max);
+	/* A limit no row set is still infinite: an empty field. */
+	glue_num(&t->out, v->v_min > -1e308 && v->v_min < 1e308, v->v_min);
+	glue_num(&t->out, v->v_max > -1e308 && v->v_max < 1e308, v->v_max);
 	for (l = 0; l < VOLT_NLIMIT; l++) {
 		unsigned long n = 0;
 

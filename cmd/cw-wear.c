@@ -607,6 +607,13 @@ load_state(struct run *r)
 	return 0;
 }
 
+/* The states in PATH (glue_states()). */
+static int
+read_states(void *rd, const char *path, int whole)
+{
+	return wstate_read(rd, path, whole);
+}
+
 /*
  * --merge: the operands (standard input when none) are states, joined.
  * A file operand is a whole state; a stream may be sorted or, with
@@ -615,15 +622,10 @@ load_state(struct run *r)
 static int
 merge(struct run *r, char **argv, int argc)
 {
-	int k, rc;
+	int rc;
 
-	for (k = 0; k < argc; k++)
-		if ((rc = wstate_read(&r->rd, argv[k],
-		    strcmp(argv[k], "-") != 0 || !r->partition)) != 0)
-			return rc;
-	if (argc == 0 && (rc = wstate_read(&r->rd, "-", !r->partition)) != 0)
-		return rc;
-	if ((rc = wjoin_flush(&r->join)) != 0)
+	if ((rc = glue_states(argv, argc, !r->partition, read_states,
+	    &r->rd)) != 0 || (rc = wjoin_flush(&r->join)) != 0)
 		return rc;
 	if (r->join.straddles > 0)
 		cw_warn("%lu states overlapped the one before or after them "

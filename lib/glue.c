@@ -64,6 +64,21 @@ glue_run(struct glue *g, char **files, int n, void (*end)(void *, void *),
 	return rc;
 }
 
+int
+glue_states(char **files, int n, int stdin_whole,
+    int (*read)(void *, const char *, int), void *ctx)
+{
+	int k, rc;
+
+	if (n == 0)
+		return read(ctx, "-", stdin_whole);
+	for (k = 0; k < n; k++)
+		if ((rc = read(ctx, files[k], strcmp(files[k], "-") != 0 ||
+		    stdin_whole)) != 0)
+			return rc;
+	return 0;
+}
+
 void
 glue_each(const struct glue *g, void (*fn)(void *, void *), void *ctx)
 {
@@ -128,6 +143,15 @@ glue_first_last(struct csvout *w, int have, cw_time first, cw_time last)
 		csvout_empty(w);
 		csvout_empty(w);
 	}
+}
+
+void
+glue_num(struct csvout *w, int have, double x)
+{
+	if (have)
+		csvout_num(w, x);
+	else
+		csvout_empty(w);
 }
 
 void

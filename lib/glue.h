@@ -55,6 +55,15 @@ int	glue_read(struct glue *g, char **files, int n);
  */
 int	glue_run(struct glue *g, char **files, int n,
 	    void (*end)(void *, void *), void *ctx);
+/*
+ * --merge's operands: READ(CTX, PATH, WHOLE) for each of FILES[0..N), or
+ * for "-" (standard input) when N is 0, until one fails.  WHOLE is 1 for
+ * a file and STDIN_WHOLE for standard input ("-"): whether the states
+ * read must be whole, with end rows that count them.  Returns 0 or what
+ * READ returned.
+ */
+int	glue_states(char **files, int n, int stdin_whole,
+	    int (*read)(void *, const char *, int), void *ctx);
 /* FN(CTX, state) for each device in name order. */
 void	glue_each(const struct glue *g, void (*fn)(void *, void *),
 	    void *ctx);
@@ -81,6 +90,8 @@ void	glue_span(struct csvout *w, cw_time start, cw_time end);
 /* FIRST and LAST as two times when HAVE, else two empty fields. */
 void	glue_first_last(struct csvout *w, int have, cw_time first,
 	    cw_time last);
+/* X when HAVE, else an empty field. */
+void	glue_num(struct csvout *w, int have, double x);
 /* T as a date when HAVE, else an empty field. */
 void	glue_date(struct csvout *w, int have, cw_time t);
 
