@@ -214,8 +214,7 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	}
 	if (t->summary)
 		return;
-	d = (const struct dev *)(const void *)((const char *)th -
-	    offsetof(struct dev, th));
+	d = CW_CONTAINER(th, struct dev, th);
 	glue_event(&t->out, &d->e, thermal_kind_name(ev->kind),
 	    thermal_zone_name(ev->zone), ev->start, ev->end, ev->temp_min,
 	    ev->temp_max, ev->charge_ah, ev->soc_start, ev->soc_end);

@@ -112,7 +112,6 @@ static const struct optool tool = OPTOOL_FILES("cw-topoff",
     OPTAB_DURATIONS,
     opts);
 
-static struct dev *dev_of(struct topoff *top);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	dev_start(struct tool *t, struct dev *d);
 static void	on_cycle(void *ctx, struct topoff *top,
@@ -125,13 +124,6 @@ static void	write_summary(struct tool *t, const struct dev *d);
 static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
-/* The device state that embeds TOP. */
-static struct dev *
-dev_of(struct topoff *top)
-{
-	return (struct dev *)(void *)((char *)top - offsetof(struct dev, top));
-}
-
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
 {
@@ -172,7 +164,7 @@ static void
 on_cycle(void *ctx, struct topoff *top, const struct topoff_cycle *cy)
 {
 	struct tool *t = ctx;
-	const struct dev *d = dev_of(top);
+	const struct dev *d = CW_CONTAINER(top, struct dev, top);
 
 	if (t->mode != MODE_EVENTS || (cy->use && !t->use_dips))
 		return;
@@ -189,7 +181,7 @@ static void
 on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 {
 	struct tool *t = ctx;
-	struct dev *d = dev_of(top);
+	struct dev *d = CW_CONTAINER(top, struct dev, top);
 
 	if (h->end - h->start > d->longest)
 		d->longest = h->end - h->start;

@@ -118,8 +118,7 @@ on_event(void *ctx, struct volt_dev *vd, const struct volt_event *ev)
 
 	if (t->summary)
 		return;
-	d = (const struct dev *)(const void *)((const char *)vd -
-	    offsetof(struct dev, v));
+	d = CW_CONTAINER(vd, struct dev, v);
 	glue_event(&t->out, &d->e, volt_kind_name(ev->kind),
 	    volt_limit_name(ev->limit), ev->start, ev->end, ev->v_min,
 	    ev->v_max, ev->charge_ah, ev->soc_start, ev->soc_end);
