@@ -70,12 +70,36 @@ dev_named(struct djoin *j, const char *name)
 	return devtab_get(j->devs, name, strlen(name), NULL);
 }
 
-static void
-setup_conf(struct dcir_conf *c, struct dstate_conf *sc)
+/* A join on the default settings, for each test (cmocka's state). */
+struct fix {
+	struct dcir_conf c;
+	struct dstate_conf sc;
+	struct djoin j;
+};
+
+static int
+setup(void **state)
 {
-	dcir_conf_default(c);
-	sc->c = c;
-	sc->max_points = 2048;
+	struct fix *f = calloc(1, sizeof(*f));
+
+	if (f == NULL)
+		return -1;
+	dcir_conf_default(&f->c);
+	f->sc.c = &f->c;
+	f->sc.max_points = DCIR_MAX_POINTS;
+	djoin_init(&f->j, &f->sc);
+	*state = f;
+	return 0;
+}
+
+static int
+teardown(void **state)
+{
+	struct fix *f = *state;
+
+	djoin_free(&f->j);
+	free(f);
+	return 0;
 }
 
 /*
@@ -106,25 +130,20 @@ static void
 test_order(void **st)
 {
 	static const unsigned long want[5] = { 5, 3, 4, 1, 2 };
-	struct dcir_conf c;
-	struct dstate_conf sc;
-	struct djoin j;
+	struct djoin *j = &((struct fix *)*st)->j;
 	size_t k;
 
-	(void)st;
-	setup_conf(&c, &sc);
-	djoin_init(&j, &sc);
 	/* Added out of every order, so that none holds by chance. */
-	add_state(&j, "bike-10", 0, 5, 2);
-	add_state(&j, "bike-10", 0, 5, 1);
-	add_state(&j, "bike-1", 10, 15, 4);
-	add_state(&j, "bike-1", 10, 15, 3);
-	add_state(&j, "bike-1", 0, 5, 5);
-	assert_int_equal(j.npiece, 5);
-	qsort(j.piece, j.npiece, sizeof(j.piece[0]), djoin_piece_cmp);
+	add_state(j, "bike-10", 0, 5, 2);
+	add_state(j, "bike-10", 0, 5, 1);
+	add_state(j, "bike-1", 10, 15, 4);
+	add_state(j, "bike-1", 10, 15, 3);
+	add_state(j, "bike-1", 0, 5, 5);
+	assert_int_equal(j->npiece, 5);
+	qsort(j->piece, j->npiece, sizeof(j->piece[0]), djoin_piece_cmp);
 	for (k = 0; k < 5; k++)
-		assert_int_equal(j.piece[k].line, want[k]);
-	djoin_free(&j);
+		assert_int_equal(j->piece[k].line, want[k]);
+	djoin_free(j);
 }
 
 /*
@@ -138,34 +157,29 @@ test_order(void **st)
 static void
 test_join_any_order(void **st)
 {
-	struct dcir_conf c;
-	struct dstate_conf sc;
+	struct djoin *j = &((struct fix *)*st)->j;
 	struct dstate_dev one;
-	struct djoin j;
 	struct djoin_dev *d;
 	size_t k;
 
-	(void)st;
-	setup_conf(&c, &sc);
-	djoin_init(&j, &sc);
-	add_state(&j, "bike-07", 40, 60, 3);
-	add_state(&j, "bike-08", 0, 10, 4);
-	add_state(&j, "bike-07", 0, 20, 5);
-	add_state(&j, "bike-07", 20, 40, 6);
+	add_state(j, "bike-07", 40, 60, 3);
+	add_state(j, "bike-08", 0, 10, 4);
+	add_state(j, "bike-07", 0, 20, 5);
+	add_state(j, "bike-07", 20, 40, 6);
 	/* Nothing is joined before the flush. */
-	assert_int_equal(dev_named(&j, "bike-07")->ds.rows, 0);
-	assert_int_equal(djoin_flush(&j), 0);
-	assert_int_equal(j.npiece, 0);
-	assert_int_equal(j.joined, 2);
-	d = dev_named(&j, "bike-07");
+	assert_int_equal(dev_named(j, "bike-07")->ds.rows, 0);
+	assert_int_equal(djoin_flush(j), 0);
+	assert_int_equal(j->npiece, 0);
+	assert_int_equal(j->joined, 2);
+	d = dev_named(j, "bike-07");
 	assert_int_equal(d->ds.rows, 60);
 	assert_true(d->ds.first == T0);
 	assert_true(d->ds.last == T0 + SEC(590));
 	assert_true(d->e.last_t == d->ds.last);
 	assert_int_equal(d->ds.ser.steps, 11);
-	assert_int_equal(dev_named(&j, "bike-08")->ds.ser.steps, 1);
+	assert_int_equal(dev_named(j, "bike-08")->ds.ser.steps, 1);
 	memset(&one, 0, sizeof(one));
-	feed_rows(&one, &sc, 0, 60);
+	feed_rows(&one, j->sc, 0, 60);
 	assert_int_equal(one.ser.steps, 11);
 	assert_int_equal(d->ds.ser.n, one.ser.n);
 	for (k = 0; k < one.ser.n; k++) {
@@ -176,7 +190,7 @@ test_join_any_order(void **st)
 	assert_int_equal(d->ds.det.n, one.det.n);
 	assert_int_equal(d->ds.det.head, one.det.head);
 	dstate_free(&one);
-	djoin_free(&j);
+	djoin_free(j);
 }
 
 /*
@@ -186,25 +200,20 @@ test_join_any_order(void **st)
 static void
 test_join_before(void **st)
 {
-	struct dcir_conf c;
-	struct dstate_conf sc;
-	struct djoin j;
+	struct djoin *j = &((struct fix *)*st)->j;
 	struct djoin_dev *d;
 
-	(void)st;
-	setup_conf(&c, &sc);
-	djoin_init(&j, &sc);
-	add_state(&j, "bike-09", 20, 40, 1);
-	assert_int_equal(djoin_flush(&j), 0);
-	add_state(&j, "bike-09", 0, 20, 2);
-	assert_int_equal(djoin_flush(&j), 0);
-	d = dev_named(&j, "bike-09");
-	assert_int_equal(j.joined, 1);
+	add_state(j, "bike-09", 20, 40, 1);
+	assert_int_equal(djoin_flush(j), 0);
+	add_state(j, "bike-09", 0, 20, 2);
+	assert_int_equal(djoin_flush(j), 0);
+	d = dev_named(j, "bike-09");
+	assert_int_equal(j->joined, 1);
 	assert_int_equal(d->ds.rows, 40);
 	assert_true(d->ds.first == T0);
 	assert_true(d->ds.last == T0 + SEC(390));
 	assert_int_equal(d->ds.ser.steps, 7);
-	djoin_free(&j);
+	djoin_free(j);
 }
 
 /*
@@ -215,29 +224,24 @@ test_join_before(void **st)
 static void
 test_overlap(void **st)
 {
-	struct dcir_conf c;
-	struct dstate_conf sc;
-	struct djoin j;
+	struct djoin *j = &((struct fix *)*st)->j;
 	struct djoin_dev *d;
 
-	(void)st;
-	setup_conf(&c, &sc);
-	djoin_init(&j, &sc);
-	add_state(&j, "bike-12", 0, 20, 1);
-	add_state(&j, "bike-12", 19, 30, 2);
-	add_state(&j, "bike-12", 40, 50, 3);
-	assert_int_equal(djoin_flush(&j), CW_EXIT_DATA);
-	assert_int_equal(j.npiece, 0);
-	d = dev_named(&j, "bike-12");
+	add_state(j, "bike-12", 0, 20, 1);
+	add_state(j, "bike-12", 19, 30, 2);
+	add_state(j, "bike-12", 40, 50, 3);
+	assert_int_equal(djoin_flush(j), CW_EXIT_DATA);
+	assert_int_equal(j->npiece, 0);
+	d = dev_named(j, "bike-12");
 	assert_int_equal(d->ds.rows, 20);
 	assert_true(d->ds.last == T0 + SEC(190));
 	/* Rows 0..19 and 40..49 held: 20..29 falls between them. */
-	add_state(&j, "bike-12", 40, 50, 4);
-	assert_int_equal(djoin_flush(&j), 0);
-	add_state(&j, "bike-12", 20, 30, 5);
-	assert_int_equal(djoin_flush(&j), CW_EXIT_DATA);
+	add_state(j, "bike-12", 40, 50, 4);
+	assert_int_equal(djoin_flush(j), 0);
+	add_state(j, "bike-12", 20, 30, 5);
+	assert_int_equal(djoin_flush(j), CW_EXIT_DATA);
 	assert_int_equal(d->ds.rows, 30);
-	djoin_free(&j);
+	djoin_free(j);
 }
 
 /*
@@ -247,33 +251,28 @@ test_overlap(void **st)
 static void
 test_go_on(void **st)
 {
-	struct dcir_conf c;
-	struct dstate_conf sc;
-	struct djoin j;
+	struct djoin *j = &((struct fix *)*st)->j;
 	struct djoin_dev *a, *b;
 
-	(void)st;
-	setup_conf(&c, &sc);
-	djoin_init(&j, &sc);
-	add_state(&j, "bike-20", 0, 20, 1);
-	add_state(&j, "bike-21", 0, 10, 2);
-	assert_int_equal(djoin_flush(&j), 0);
-	djoin_go_on(&j);
-	a = dev_named(&j, "bike-20");
-	b = dev_named(&j, "bike-21");
+	add_state(j, "bike-20", 0, 20, 1);
+	add_state(j, "bike-21", 0, 10, 2);
+	assert_int_equal(djoin_flush(j), 0);
+	djoin_go_on(j);
+	a = dev_named(j, "bike-20");
+	b = dev_named(j, "bike-21");
 	assert_true(a->loaded && b->loaded);
 	assert_true(a->upto == T0 + SEC(190));
 	assert_true(a->e.last_t == INT64_MIN);
-	assert_int_equal(djoin_row(&j, a, T0 + SEC(100)), 1);
-	assert_int_equal(djoin_row(&j, a, T0 + SEC(190)), 1);
-	assert_int_equal(djoin_row(&j, a, T0 + SEC(200)), 0);
+	assert_int_equal(djoin_row(j, a, T0 + SEC(100)), 1);
+	assert_int_equal(djoin_row(j, a, T0 + SEC(190)), 1);
+	assert_int_equal(djoin_row(j, a, T0 + SEC(200)), 0);
 	assert_false(a->loaded);
 	/* Once past its state, a device's rows all go to the detector. */
-	assert_int_equal(djoin_row(&j, a, T0 + SEC(150)), 0);
-	assert_int_equal(djoin_row(&j, b, T0 + SEC(90)), 1);
+	assert_int_equal(djoin_row(j, a, T0 + SEC(150)), 0);
+	assert_int_equal(djoin_row(j, b, T0 + SEC(90)), 1);
 	assert_true(b->loaded);
-	assert_int_equal(j.stale, 3);
-	djoin_free(&j);
+	assert_int_equal(j->stale, 3);
+	djoin_free(j);
 }
 
 int
@@ -281,11 +280,16 @@ main(void)
 {
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_place),
-		cmocka_unit_test(test_order),
-		cmocka_unit_test(test_join_any_order),
-		cmocka_unit_test(test_join_before),
-		cmocka_unit_test(test_overlap),
-		cmocka_unit_test(test_go_on),
+		cmocka_unit_test_setup_teardown(test_order, setup,
+		    teardown),
+		cmocka_unit_test_setup_teardown(test_join_any_order, setup,
+		    teardown),
+		cmocka_unit_test_setup_teardown(test_join_before, setup,
+		    teardown),
+		cmocka_unit_test_setup_teardown(test_overlap, setup,
+		    teardown),
+		cmocka_unit_test_setup_teardown(test_go_on, setup,
+		    teardown),
 	};
 
 	cw_setprog("test_dcirjoin");
