@@ -33,9 +33,6 @@
 	"slope_ah_per_day,slope_lo_ah_per_day,slope_hi_ah_per_day," \
 	"fit_estimates,rated_ah"
 
-/* Estimates kept per device for the trend before thinning sets in. */
-#define MAX_POINTS_DEFAULT 2048
-
 /* The per-device state: the devent first, as devtab wants. */
 struct dev {
 	struct devent e;
@@ -47,8 +44,8 @@ struct dev {
 };
 
 struct tool {
-	const char *outpath;	/* -o FILE, or NULL */
-	const char *rejpath;	/* --rejects FILE, or NULL */
+	const char *outpath, *rejpath;	/* -o FILE, --rejects FILE */
+	const char *fleetpath, *ocvpath;	/* --fleet FILE, --ocv FILE */
 	struct cap_conf conf;
 	struct cap_trend_conf tconf;
 	struct cap_counts cnt;
@@ -77,11 +74,14 @@ static const struct optab opts[] = {
 	{ "cells", 0, "N", "cells in series, for --ocv", "1", OPT_CELLS,
 	    OPTAB_INT, T(cells), 1, 1000 },
 	{ "confidence", 0, "P", "confidence level of the slope's interval",
-	    "0.95", OPT_CONFIDENCE },
+	    "0.95", OPT_CONFIDENCE,
+	    OPTAB_OPEN, T(tconf.conf), 0.5, 1 },
 	{ "eol", 0, "PCT", "end of life at PCT percent of the rated "
-	    "capacity", "80", OPT_EOL },
+	    "capacity", "80", OPT_EOL,
+	    OPTAB_OPEN, T(tconf.eol_pct), 0, 100 },
 	{ "fleet", 0, "FILE", "the fleet file; its capacity_ah is the rating",
-	    NULL, OPT_FLEET },
+	    NULL, OPT_FLEET,
+	    OPTAB_STR, T(fleetpath), 0, 0 },
 	{ "jump", 0, "PTS", "SoC points a step may differ from what its "
 	    "charge explains before it is a jump", "2", OPT_JUMP,
 	    OPTAB_NUM, T(conf.jump), 0, 100 },
@@ -89,46 +89,48 @@ static const struct optab opts[] = {
 	    OPT_MAX_GAP,
 	    OPTAB_DUR, T(conf.max_gap), 0, 0 },
 	{ "max-points", 0, "N", "estimates kept per device for the trend",
-	    "2048", OPT_MAX_POINTS },
+	    "2048", OPT_MAX_POINTS,
+	    OPTAB_SIZE, T(max_points), 16, 1L << 24 },
 	{ "max-rest", 0, "DUR", "longest pause inside a segment", "5m",
 	    OPT_MAX_REST,
 	    OPTAB_DUR, T(conf.max_rest), 0, 0 },
 	{ "min-current", 0, "A", "smallest current of a segment's rows",
-	    "0.1", OPT_MIN_CURRENT },
+	    "0.1", OPT_MIN_CURRENT,
+	    OPTAB_POS, T(conf.min_current), 0, 1e6 },
 	{ "min-estimates", 0, "N", "fewest estimates for a trend", "5",
-	    OPT_MIN_ESTIMATES },
+	    OPT_MIN_ESTIMATES,
+	    OPTAB_ULONG, T(tconf.min_estimates), 2, 1000000000L },
 	{ "min-swing", 0, "PCT", "smallest SoC change of an estimate", "20",
-	    OPT_MIN_SWING },
+	    OPT_MIN_SWING,
+	    OPTAB_POS, T(conf.min_swing), 0, 100 },
 	{ "ocv", 0, "FILE", "SoC from the rest voltage by this OCV table, not "
-	    "from soc_pct", NULL, OPT_OCV },
+	    "from soc_pct", NULL, OPT_OCV,
+	    OPTAB_STR, T(ocvpath), 0, 0 },
 	{ "ocv-rest", 0, "DUR", "rest before a voltage is an OCV point",
 	    "30m", OPT_OCV_REST,
 	    OPTAB_DUR, T(conf.ocv_rest), 0, 0 },
 	{ "ocv-span", 0, "DUR", "longest time between two OCV points", "1d",
 	    OPT_OCV_SPAN,
 	    OPTAB_DUR, T(conf.ocv_span), 0, 0 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "rated", 0, "AH", "rated capacity of every pack", "none",
-	    OPT_RATED },
+	    OPT_RATED,
+	    OPTAB_POS, T(rated), 0, 1e9 },
 	{ "rejects", 0, "FILE", "write the rejected segments and why to FILE",
-	    NULL, OPT_REJECTS },
-	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0 },
+	    NULL, OPT_REJECTS,
+	    OPTAB_STR, T(rejpath), 0, 0 },
+	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0,
+	    OPTAB_FLAG, T(trend), 0, 0 },
 	{ "temp", 0, "LO,HI | any", "temperature window; any: none",
 	    "10,45", OPT_TEMP },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-capacity", "[FILE ...]",
-	"Measured capacity by coulomb counting over charge and discharge\n"
-	"segments, and its fade per device.\n",
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
-	"one).  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-capacity",
+    "Measured capacity by coulomb counting over charge and discharge\n"
+    "segments, and its fade per device.\n",
+    OPTAB_TEMPS OPTAB_DURATIONS,
+    opts);
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static int	on_est(struct tool *t, struct dev *d, const struct cap_est *e);
@@ -276,99 +278,39 @@ free_devs(struct devtab *devs)
 }
 
 /*
- * The options into T, the paths of the output and of the rejects into
- * *OUTPATH and *REJPATH; the index of the first operand.
+ * The options into T, checked; the index of the first operand.  Exits 2
+ * on a usage error.
  */
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
-	const char *fleetpath = NULL, *ocvpath = NULL;
 	double w[2];
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	cap_conf_default(&t->conf);
 	cap_trend_conf_default(&t->tconf);
-	t->max_points = MAX_POINTS_DEFAULT;
+	t->max_points = DCIR_MAX_POINTS;
 	t->rated = CW_MISSING;
 	t->cells = 1;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
-		switch (ch) {
-		case 't':
-			t->trend = 1;
-			break;
-		case OPT_CONFIDENCE:
-			t->tconf.conf = opt_num_arg("--confidence", optarg,
-			    0.5, 1);
-			if (t->tconf.conf <= 0.5 || t->tconf.conf >= 1)
-				cw_usage_error("--confidence: %s is not "
-				    "between 0.5 and 1 (exclusive)", optarg);
-			break;
-		case OPT_EOL:
-			t->tconf.eol_pct = opt_num_arg("--eol", optarg, 0, 100);
-			if (t->tconf.eol_pct <= 0 || t->tconf.eol_pct >= 100)
-				cw_usage_error("--eol: %s is not between 0 "
-				    "and 100 (exclusive)", optarg);
-			break;
-		case OPT_FLEET:
-			fleetpath = optarg;
-			break;
-		case OPT_MAX_POINTS:
-			t->max_points = (size_t)opt_long_arg("--max-points",
-			    optarg, 16, 1L << 24);
-			break;
-		case OPT_MIN_CURRENT:
-			t->conf.min_current = opt_num_arg("--min-current",
-			    optarg, 0, 1e6);
-			if (t->conf.min_current <= 0)
-				cw_usage_error("--min-current: %s is not above "
-				    "0", optarg);
-			break;
-		case OPT_MIN_ESTIMATES:
-			t->tconf.min_estimates = (unsigned long)opt_long_arg(
-			    "--min-estimates", optarg, 2, 1000000000L);
-			break;
-		case OPT_MIN_SWING:
-			t->conf.min_swing = opt_num_arg("--min-swing", optarg,
-			    0, 100);
-			if (t->conf.min_swing <= 0)
-				cw_usage_error("--min-swing: %s is not above 0",
-				    optarg);
-			break;
-		case OPT_OCV:
-			ocvpath = optarg;
-			break;
-		case OPT_RATED:
-			t->rated = opt_num_arg("--rated", optarg, 0, 1e9);
-			if (t->rated <= 0)
-				cw_usage_error("--rated: %s is not above 0",
-				    optarg);
-			break;
-		case OPT_REJECTS:
-			t->rejpath = optarg;
-			break;
-		case OPT_TEMP:
-			if (strcmp(optarg, "any") == 0) {
-				t->conf.temp_any = 1;
-				break;
-			}
-			opt_list_arg("--temp", optarg, w, 2, 1, 1);
-			t->conf.temp_any = 0;
-			t->conf.temp_lo = w[0];
-			t->conf.temp_hi = w[1];
-			break;
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
+		if (ch != OPT_TEMP)
+			continue;
+		if (strcmp(optarg, "any") == 0) {
+			t->conf.temp_any = 1;
+			continue;
 		}
+		opt_list_arg("--temp", optarg, w, 2, 1, 1);
+		t->conf.temp_any = 0;
+		t->conf.temp_lo = w[0];
+		t->conf.temp_hi = w[1];
 	}
-	optab_free(&op);
 	if (t->rejpath != NULL && strcmp(t->rejpath, "-") == 0)
 		cw_usage_error("--rejects: standard output holds the "
 		    "estimates; name a file");
-
-	if (fleetpath != NULL)
-		t->fleet = fleet_load(fleetpath);
-	if (ocvpath != NULL)
-		t->ocv = ocv_load(ocvpath);
+	t->fleet = fleet_load(t->fleetpath);
+	if (t->ocvpath != NULL)
+		t->ocv = ocv_load(t->ocvpath);
 	return optind;
 }
 
@@ -383,8 +325,6 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int rc, k;
 
-	cw_setprog("cw-capacity");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.trend ?
 	    TREND_HEADER : EST_HEADER);
@@ -393,10 +333,9 @@ main(int argc, char *argv[])
 		glue_open(&rg, 0, t.rejpath, &t.rej, REJECT_HEADER);
 		t.has_rej = 1;
 	}
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ? SAMP_VOLTAGE :
-	    SAMP_SOC) | (t.conf.temp_any ? 0 : SAMP_BIT(SAMP_TEMP)), 0,
-	    on_row, &t);
+	glue_sampin(&g, SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(t.ocv != NULL ?
+	    SAMP_VOLTAGE : SAMP_SOC) | (t.conf.temp_any ? 0 :
+	    SAMP_BIT(SAMP_TEMP)), 0, on_row, &t);
 	rc = glue_read(&g, argv + k, argc - k);
 	if (rc == 0) {
 		/* The segments still open at the end of the input, in the

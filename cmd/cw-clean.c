@@ -111,7 +111,7 @@ static const struct optab opts[] = {
 	    OPTAB_DUR, O(c.step), 0, 0 },
 	{ "tz", 0, "+hh:mm", "offset of local times without a zone", "UTC",
 	    OPT_TZ },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool tool = {
@@ -119,7 +119,7 @@ static const struct optool tool = {
 	"Clean raw battery gauge logs (plain or gzip) into the sample stream\n"
 	"device,time,voltage_v,current_a,temp_c,soc_pct (then the --keep\n"
 	"columns).\n",
-	"Durations take 90, 90s, 15m, 2h, 1d.\n",
+	OPTAB_DURATIONS,
 	opts,
 	"print counts to stderr"
 };
@@ -233,15 +233,14 @@ static int
 parse(struct opts *o, int argc, char *argv[])
 {
 	struct clean_conf *c = &o->c;
-	struct optparse op;
 	const char *err;
 	int ch;
 
+	memset(o, 0, sizeof(*o));
 	clean_conf_default(c);
 	o->max_reject = 0.5;
 	o->cells = 1;
-	optab_init(&op, &tool, o);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, o, argc, argv)) != -1) {
 		switch (ch) {
 		case 'c':
 			if (colmap_parse_spec(optarg, &c->spec, &err) < 0)
@@ -309,7 +308,6 @@ parse(struct opts *o, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (!o->set[CM_VOLTAGE]) {
 		c->lo[CM_VOLTAGE] *= o->cells;
 		c->hi[CM_VOLTAGE] *= o->cells;
@@ -350,8 +348,6 @@ main(int argc, char *argv[])
 	struct outf *of, *rf = NULL;
 	int k, rc, rrc;
 
-	cw_setprog("cw-clean");
-	memset(&o, 0, sizeof(o));
 	k = parse(&o, argc, argv);
 	argc -= k;
 	argv += k;

@@ -3,7 +3,8 @@
  * stream, corrected to a reference temperature, one row per step; or with
  * --trend its growth per device.  The engine is lib/dcir.c (steps, the
  * Arrhenius correction, the trend) and lib/theilsen.c (the robust fit);
- * this file holds the options and the output.
+ * how saved states are joined, lib/dcirjoin.c.  This file holds the
+ * options and the output.
  */
 #include <errno.h>
 #include <stddef.h>
@@ -15,6 +16,7 @@
 #include "cw.h"
 #include "finish.h"
 #include "dcir.h"
+#include "dcirjoin.h"
 #include "dcirstate.h"
 #include "glue.h"
 #include "lock.h"
@@ -32,25 +34,6 @@
 	"slope_ohm_per_day,slope_lo_ohm_per_day,slope_hi_ohm_per_day," \
 	"soc_gate,growth_lo_pct_per_30d,growth_hi_pct_per_30d"
 
-/* Points kept per device for the trend before thinning sets in. */
-#define MAX_POINTS_DEFAULT 2048
-
-/* The per-device state: the devent first, as devtab wants. */
-struct dev {
-	struct devent e;
-	struct dstate_dev ds;	/* detector, steps, first rows */
-	int loaded;		/* from --state, up to UPTO */
-	cw_time upto;
-};
-
-/* A state read back, with where it came from. */
-struct piece {
-	struct dev *dev;
-	struct dstate_dev w;
-	char src[256];
-	unsigned long line;
-};
-
 struct tool {
 	struct dcir_conf conf;
 	struct dcir_trend_conf tconf;
@@ -61,10 +44,7 @@ struct tool {
 	int keep;		/* steps go to the series */
 	int state_out;		/* the output is the state */
 	struct dstate_conf sconf;
-	struct devtab *devs;
-	struct piece *piece;
-	size_t npiece, piececap;
-	unsigned long stale, joined;	/* rows skipped, steps across joins */
+	struct djoin join;	/* the devices and their states */
 	/* The options. */
 	const char *outpath, *state;
 	int merge;
@@ -86,7 +66,8 @@ static const struct optab opts[] = {
 	    OPT_ALLOW_NO_SOC,
 	    OPTAB_FLAG, T(conf.unknown_soc_ok), 0, 0 },
 	{ "confidence", 0, "P", "confidence level of the slope's interval",
-	    "0.95", OPT_CONFIDENCE },
+	    "0.95", OPT_CONFIDENCE,
+	    OPTAB_OPEN, T(tconf.conf), 0.5, 1 },
 	{ "ea", 0, "KJ", "activation energy in kJ/mol", "30", OPT_EA,
 	    OPTAB_NUM, T(conf.ea_kj), 0, 1000 },
 	{ "eol", 0, "PCT", "end of life at PCT percent of r_start_ohm", "200",
@@ -98,7 +79,8 @@ static const struct optab opts[] = {
 	    "15s", OPT_MAX_DT,
 	    OPTAB_DUR, T(conf.max_dt), 0, 0 },
 	{ "max-points", 0, "N", "points kept per device for the trend",
-	    "2048", OPT_MAX_POINTS },
+	    "2048", OPT_MAX_POINTS,
+	    OPTAB_SIZE, T(max_points), 16, 1L << 24 },
 	{ "merge", 0, NULL, "the files are states (--state-out): join them",
 	    NULL, OPT_MERGE,
 	    OPTAB_FLAG, T(merge), 0, 0 },
@@ -106,12 +88,12 @@ static const struct optab opts[] = {
 	    "7d", OPT_MIN_SPAN,
 	    OPTAB_DUR, T(tconf.min_span), -1, 0 },
 	{ "min-step", 0, "A", "smallest current step in amperes", "0.5",
-	    OPT_MIN_STEP },
+	    OPT_MIN_STEP,
+	    OPTAB_POS, T(conf.min_step), 0, 1e6 },
 	{ "min-steps", 0, "N", "fewest steps for a trend", "10",
-	    OPT_MIN_STEPS },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	    OPT_MIN_STEPS,
+	    OPTAB_ULONG, T(tconf.min_steps), 2, 1000000000L },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "ref-temp", 0, "T", "reference temperature", "25C", OPT_REF_TEMP },
 	{ "soc", 0, "LO,HI|auto", "SoC window in percent; auto: per device, "
 	    "the 30-point window with most steps", "20,80", OPT_SOC },
@@ -128,26 +110,19 @@ static const struct optab opts[] = {
 	{ "temp", 0, "LO,HI", "temperature window", "10,45", OPT_TEMP },
 	{ "trend", 't', NULL, "one row per device with the trend", NULL, 0,
 	    OPTAB_FLAG, T(trend), 0, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-dcir", "[FILE ...]",
-	"DC internal resistance from current steps, and its growth per "
-	"device.\n",
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without "
-	"one).\nDurations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-dcir",
+    "DC internal resistance from current steps, and its growth per "
+    "device.\n",
+    OPTAB_TEMPS OPTAB_DURATIONS,
+    opts);
 
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
-static void	write_step(struct tool *t, const struct dev *d,
+static void	write_step(struct tool *t, const struct djoin_dev *d,
 		    const struct dcir_step *st);
-static void	write_trend(struct tool *t, struct dev *d);
-static int	on_state(void *ctx, const char *src, unsigned long line,
-		    const char *name, size_t len, struct dstate_dev *w);
-static int	flush(struct tool *t);
+static void	write_trend(struct tool *t, struct djoin_dev *d);
 static void	write_states(struct outf *o, const char *path, struct tool *t,
 		    void **devs, size_t n);
 static void	report(const struct tool *t, const struct devtab *devs,
@@ -157,18 +132,12 @@ static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
 {
 	struct tool *t = ctx;
-	struct dev *d = dev;
+	struct djoin_dev *d = dev;
 	struct dcir_step st;
 	struct dcir_pt p;
 
-	if (d->loaded) {
-		/* Rows up to the end of the state are in it already. */
-		if (s->t <= d->upto) {
-			t->stale++;
-			return 0;
-		}
-		d->loaded = 0;
-	}
+	if (djoin_row(&t->join, d, s->t))
+		return 0;
 	p.t = s->t;
 	p.v = s->v;
 	p.i = s->i;
@@ -186,7 +155,8 @@ on_row(void *ctx, void *dev, const struct cw_sample *s)
 }
 
 static void
-write_step(struct tool *t, const struct dev *d, const struct dcir_step *st)
+write_step(struct tool *t, const struct djoin_dev *d,
+    const struct dcir_step *st)
 {
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	csvout_time(&t->out, st->t);
@@ -202,7 +172,7 @@ write_step(struct tool *t, const struct dev *d, const struct dcir_step *st)
 }
 
 static void
-write_trend(struct tool *t, struct dev *d)
+write_trend(struct tool *t, struct djoin_dev *d)
 {
 	struct dcir_trend tr;
 	struct csvout *w = &t->out;
@@ -244,97 +214,6 @@ write_trend(struct tool *t, struct dev *d)
 }
 
 /*
- * A state read back.  Every state read is gathered, then those of each
- * device joined in time order at the end (flush), so that files and
- * streams may come in any order; the pieces of a device must not
- * overlap in time.
- */
-static int
-on_state(void *ctx, const char *src, unsigned long line, const char *name,
-    size_t len, struct dstate_dev *w)
-{
-	struct tool *t = ctx;
-	struct dev *d;
-	struct piece *p;
-	d = devtab_get(t->devs, name, len, NULL);
-	if (t->npiece == t->piececap) {
-		t->piececap = t->piececap ? 2 * t->piececap : 16;
-		t->piece = cw_realloc(t->piece, t->piececap *
-		    sizeof(*t->piece));
-	}
-	p = &t->piece[t->npiece++];
-	p->dev = d;
-	p->w = *w;
-	p->line = line;
-	snprintf(p->src, sizeof(p->src), "%s", src);
-	return 0;
-}
-
-static int
-piece_cmp(const void *pa, const void *pb)
-{
-	const struct piece *a = pa, *b = pb;
-	int c;
-
-	if (a->dev != b->dev) {
-		/* By name, as devtab_sorted(). */
-		c = memcmp(a->dev->e.name, b->dev->e.name,
-		    a->dev->e.namelen < b->dev->e.namelen ?
-		    a->dev->e.namelen : b->dev->e.namelen);
-		if (c == 0)
-			c = a->dev->e.namelen < b->dev->e.namelen ? -1 : 1;
-		return c;
-	}
-	if (a->w.first != b->w.first)
-		return a->w.first < b->w.first ? -1 : 1;
-	return a->line < b->line ? -1 : a->line > b->line;
-}
-
-/* Join the gathered states into their devices, in time order. */
-static int
-flush(struct tool *t)
-{
-	struct dev *d;
-	struct dstate_dev *w;
-	char a[4][TS_FMTMAX];
-	size_t k;
-
-	if (t->npiece == 0)
-		return 0;
-	qsort(t->piece, t->npiece, sizeof(*t->piece), piece_cmp);
-	for (k = 0; k < t->npiece; k++) {
-		w = &t->piece[k].w;
-		d = t->piece[k].dev;
-		if (d->ds.rows == 0) {
-			dstate_free(&d->ds);
-			d->ds = *w;
-		} else if (w->first > d->ds.last)
-			t->joined += dstate_join(&d->ds, w, &t->sconf);
-		else if (w->last < d->ds.first) {
-			t->joined += dstate_join(w, &d->ds, &t->sconf);
-			d->ds = *w;
-		} else {
-			ts_format(w->first, a[0]);
-			ts_format(w->last, a[1]);
-			ts_format(d->ds.first, a[2]);
-			ts_format(d->ds.last, a[3]);
-			cw_warn_at(t->piece[k].src, t->piece[k].line, "the "
-			    "state of %s from %s to %s overlaps the one joined "
-			    "so far, from %s to %s: the same rows twice, or a "
-			    "state that falls between two joined before it",
-			    d->e.name, a[0], a[1], a[2], a[3]);
-			for (; k < t->npiece; k++)
-				dstate_free(&t->piece[k].w);
-			t->npiece = 0;
-			return CW_EXIT_DATA;
-		}
-		d->e.last_t = d->ds.last;
-	}
-	t->npiece = 0;
-	return 0;
-}
-
-/*
  * The states of N devices, sorted, with the header and end rows, to O;
  * PATH names it in messages.  Exits 1 on a write error.
  */
@@ -348,7 +227,7 @@ write_states(struct outf *o, const char *path, struct tool *t, void **devs,
 
 	bad = dstate_write_header(fp, &t->sconf);
 	for (k = 0; k < n && !bad; k++) {
-		struct dev *d = devs[k];
+		struct djoin_dev *d = devs[k];
 
 		if (d->ds.rows > 0)
 			bad = dstate_write_dev(fp, d->e.name, d->e.namelen,
@@ -358,7 +237,7 @@ write_states(struct outf *o, const char *path, struct tool *t, void **devs,
 		size_t m = 0;
 
 		for (k = 0; k < n; k++)
-			m += ((struct dev *)devs[k])->ds.rows > 0;
+			m += ((struct djoin_dev *)devs[k])->ds.rows > 0;
 		bad = dstate_write_end(fp, (unsigned long)m);
 	}
 	if (bad || fflush(fp) != 0) {
@@ -405,7 +284,7 @@ report(const struct tool *t, const struct devtab *devs,
 	if (!t->trend)
 		return;
 	for (i = 0; i < nd; i++) {
-		const struct dev *d = devtab_at(devs, i);
+		const struct djoin_dev *d = devtab_at(devs, i);
 
 		if (d->ds.ser.level > 0)
 			thinned++;
@@ -425,24 +304,16 @@ report(const struct tool *t, const struct devtab *devs,
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
 	double w[2];
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	dcir_conf_default(&t->conf);
 	dcir_trend_conf_default(&t->tconf);
-	t->max_points = MAX_POINTS_DEFAULT;
+	t->max_points = DCIR_MAX_POINTS;
 	t->lock_wait = LOCK_WAIT_DEFAULT;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		switch (ch) {
-		case OPT_CONFIDENCE:
-			t->tconf.conf = opt_num_arg("--confidence", optarg,
-			    0.5, 1);
-			if (t->tconf.conf <= 0.5 || t->tconf.conf >= 1)
-				cw_usage_error("--confidence: %s is not "
-				    "between 0.5 and 1 (exclusive)", optarg);
-			break;
 		case OPT_EOL:
 			t->tconf.eol_pct = opt_num_arg("--eol", optarg, 100,
 			    100000);
@@ -450,25 +321,10 @@ parse(struct tool *t, int argc, char *argv[])
 				cw_usage_error("--eol: %s is not above 100 "
 				    "(percent of r_start)", optarg);
 			break;
-		case OPT_MAX_POINTS:
-			t->max_points = (size_t)opt_long_arg("--max-points",
-			    optarg, 16, 1L << 24);
-			break;
 		case OPT_STATE:
 			if (optarg[0] == '\0')
 				cw_usage_error("--state needs a file name");
 			t->state = optarg;
-			break;
-		case OPT_MIN_STEP:
-			t->conf.min_step = opt_num_arg("--min-step", optarg, 0,
-			    1e6);
-			if (t->conf.min_step <= 0)
-				cw_usage_error("--min-step: %s is not above 0",
-				    optarg);
-			break;
-		case OPT_MIN_STEPS:
-			t->tconf.min_steps = (unsigned long)opt_long_arg(
-			    "--min-steps", optarg, 2, 1000000000L);
 			break;
 		case OPT_REF_TEMP:
 			t->conf.ref_temp_c = opt_temp_arg("--ref-temp",
@@ -500,7 +356,6 @@ parse(struct tool *t, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (t->state != NULL && t->outpath != NULL &&
 	    strcmp(t->state, t->outpath) == 0)
 		cw_usage_error("--state and -o name the same file");
@@ -521,7 +376,6 @@ parse(struct tool *t, int argc, char *argv[])
 static int
 load_state(struct tool *t, struct dstate_read *rd)
 {
-	size_t i;
 	int rc;
 
 	if (t->state == NULL)
@@ -529,16 +383,19 @@ load_state(struct tool *t, struct dstate_read *rd)
 	lock_state(t->state, t->lock_wait);
 	if (!exists(t->state))
 		return 0;
-	if ((rc = dstate_read(rd, t->state, 1)) != 0 || (rc = flush(t)) != 0)
+	if ((rc = dstate_read(rd, t->state, 1)) != 0 ||
+	    (rc = djoin_flush(&t->join)) != 0)
 		return rc;
-	for (i = 0; !t->merge && i < devtab_count(t->devs); i++) {
-		struct dev *d = devtab_at(t->devs, i);
-
-		d->loaded = 1;
-		d->upto = d->ds.last;
-		d->e.last_t = INT64_MIN;
-	}
+	if (!t->merge)
+		djoin_go_on(&t->join);
 	return 0;
+}
+
+/* The states in PATH (glue_states()). */
+static int
+read_states(void *rd, const char *path, int whole)
+{
+	return dstate_read(rd, path, whole);
 }
 
 /*
@@ -549,19 +406,16 @@ load_state(struct tool *t, struct dstate_read *rd)
 static int
 merge(struct tool *t, struct dstate_read *rd, char **argv, int argc)
 {
-	int k, rc;
+	int rc;
 
-	for (k = 0; k < argc; k++)
-		if ((rc = dstate_read(rd, argv[k],
-		    strcmp(argv[k], "-") != 0)) != 0)
-			return rc;
-	if ((argc == 0 && (rc = dstate_read(rd, "-", 0)) != 0) ||
-	    (rc = flush(t)) != 0)
+	if ((rc = glue_states(argv, argc, 0, read_states, rd)) != 0 ||
+	    (rc = djoin_flush(&t->join)) != 0)
 		return rc;
 	if (cw_verbose)
 		cw_warn("%lu state rows read (%lu header, %lu end rows), %zu "
 		    "devices, %lu steps found across joins", rd->rows,
-		    rd->headers, rd->ends, devtab_count(t->devs), t->joined);
+		    rd->headers, rd->ends, devtab_count(t->join.devs),
+		    t->join.joined);
 	return 0;
 }
 
@@ -569,22 +423,18 @@ merge(struct tool *t, struct dstate_read *rd, char **argv, int argc)
 static int
 samples(struct tool *t, char **argv, int argc)
 {
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g;
 	int rc;
 
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT);
-	sc.row = on_row;
-	sc.ctx = t;
-	sc.devs = t->devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_reader(&g, t->join.devs);
+	glue_sampin(&g, SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0,
+	    on_row, t);
+	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
-		report(t, t->devs, &st);
-	if (rc == 0 && t->stale > 0)
+		report(t, g.devs, &g.st);
+	if (rc == 0 && t->join.stale > 0)
 		cw_warn("%lu rows not after the end of their device's state in "
-		    "%s skipped (already in it)", t->stale, t->state);
+		    "%s skipped (already in it)", t->join.stale, t->state);
 	return rc;
 }
 
@@ -598,16 +448,14 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int k, rc;
 
-	cw_setprog("cw-dcir");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	argc -= k;
 	argv += k;
-	t.devs = devtab_new(sizeof(struct dev));
+	djoin_init(&t.join, &t.sconf);
 	memset(&rd, 0, sizeof(rd));
 	rd.sc = &t.sconf;
-	rd.dev = on_state;
-	rd.ctx = &t;
+	rd.dev = djoin_state;
+	rd.ctx = &t.join;
 	if ((rc = load_state(&t, &rd)) != 0)
 		return rc;
 	if (t.state != NULL)
@@ -620,8 +468,8 @@ main(int argc, char *argv[])
 	rc = t.merge ? merge(&t, &rd, argv, argc) : samples(&t, argv, argc);
 	if (rc == 0 && !t.state_out && t.merge)
 		csvout_header(&t.out, TREND_HEADER);
-	sorted = devtab_sorted(t.devs);
-	n = devtab_count(t.devs);
+	sorted = devtab_sorted(t.join.devs);
+	n = devtab_count(t.join.devs);
 	if (rc == 0 && t.trend && !t.state_out)
 		for (i = 0; i < n; i++)
 			write_trend(&t, sorted[i]);
@@ -637,11 +485,8 @@ main(int argc, char *argv[])
 	rc = cw_finish(&t.out, of, t.outpath, rc);
 	if (rc == 0 && sf != NULL && outf_commit(sf) != 0)
 		rc = CW_EXIT_DATA;
-	for (i = 0; i < n; i++)
-		dstate_free(&((struct dev *)sorted[i])->ds);
 	free(sorted);
-	free(t.piece);
 	csvout_free(&t.out);
-	devtab_free(t.devs);
+	djoin_free(&t.join);
 	return rc;
 }

@@ -36,6 +36,7 @@ struct run {
 	int out;		/* OUT_* */
 	int residue;		/* RF_RESIDUE_* */
 	int col;		/* the signal's sampin column */
+	size_t at;		/* where its value is in a struct cw_sample */
 	const char *signal;	/* its name */
 	int efc;		/* the signal is SoC: write efc */
 	double hyst, rw, mw;
@@ -61,9 +62,7 @@ static const struct optab opts[] = {
 	{ "matrix", 0, "WIDTH[,MEAN_WIDTH]", "the range-mean matrix, range "
 	    "bins WIDTH wide and mean bins MEAN_WIDTH wide", "WIDTH",
 	    OPT_MATRIX },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, R(outpath), 0, 0 },
+	OPTAB_OUTPUT(R(outpath)),
 	{ "residue", 0, "half|full|repeat", "count the residue as half "
 	    "cycles, full cycles, or as if the history repeated", "half",
 	    OPT_RESIDUE },
@@ -71,16 +70,13 @@ static const struct optab opts[] = {
 	    NULL, 0 },
 	{ "signal", 0, "COLUMN", "count the cycles of COLUMN", "soc_pct",
 	    OPT_SIGNAL },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-rainflow", "[FILE ...]",
-	"Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
-	"--histogram, --matrix and --summary exclude each other.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-rainflow",
+    "Rainflow cycle counting of battery logs, per device (ASTM E1049-85).\n",
+    "--histogram, --matrix and --summary exclude each other.\n",
+    opts);
 
 static int parse(struct run *, int, char *[]);
 static double width_arg(const char *, const char *);
@@ -131,9 +127,17 @@ matrix_arg(struct run *r, const char *s)
 	r->mw = width_arg("--matrix", comma + 1);
 }
 
+/* --signal COLUMN: a numeric column of the stream, or the extra one. */
 static void
 signal_arg(struct run *r, const char *s)
 {
+	static const size_t at[SAMP_EXTRA + 1] = {
+		[SAMP_VOLTAGE] = offsetof(struct cw_sample, v),
+		[SAMP_CURRENT] = offsetof(struct cw_sample, i),
+		[SAMP_TEMP] = offsetof(struct cw_sample, temp),
+		[SAMP_SOC] = offsetof(struct cw_sample, soc),
+		[SAMP_EXTRA] = offsetof(struct cw_sample, x)
+	};
 	int k;
 
 	if (s[0] == '\0')
@@ -145,6 +149,7 @@ signal_arg(struct run *r, const char *s)
 	if (k == SAMP_DEVICE || k == SAMP_TIME)
 		cw_usage_error("--signal: '%s' is not a numeric column", s);
 	r->col = k;		/* SAMP_EXTRA when not a stream column */
+	r->at = at[k];
 }
 
 static void
@@ -185,23 +190,7 @@ on_row(void *ctx, void *dp, const struct cw_sample *s)
 		    0);
 		d->ready = 1;
 	}
-	switch (r->col) {
-	case SAMP_VOLTAGE:
-		x = s->v;
-		break;
-	case SAMP_CURRENT:
-		x = s->i;
-		break;
-	case SAMP_TEMP:
-		x = s->temp;
-		break;
-	case SAMP_SOC:
-		x = s->soc;
-		break;
-	default:
-		x = s->x;
-		break;
-	}
+	x = *(const double *)(const void *)((const char *)s + r->at);
 	if (!cw_isnum(x)) {
 		r->nosig++;
 		return 0;
@@ -250,22 +239,10 @@ write_summary(struct run *r, struct dev *d)
 {
 	csvout_strn(&r->w, d->e.name, d->e.namelen);
 	csvout_num(&r->w, d->sum.cycles);
-	if (r->efc)
-		csvout_num(&r->w, d->sum.range_sum / 100);
-	else
-		csvout_empty(&r->w);
-	if (d->sum.cycles > 0)
-		csvout_num(&r->w, d->sum.max_range);
-	else
-		csvout_empty(&r->w);
+	glue_num(&r->w, r->efc, d->sum.range_sum / 100);
+	glue_num(&r->w, d->sum.cycles > 0, d->sum.max_range);
 	csvout_num(&r->w, rf_sum_mean_range(&d->sum));
-	if (d->nsig > 0) {
-		csvout_time(&r->w, d->first);
-		csvout_time(&r->w, d->last);
-	} else {
-		csvout_empty(&r->w);
-		csvout_empty(&r->w);
-	}
+	glue_first_last(&r->w, d->nsig > 0, d->first, d->last);
 	csvout_endrow(&r->w);
 }
 
@@ -276,16 +253,15 @@ write_summary(struct run *r, struct dev *d)
 static int
 parse(struct run *r, int argc, char *argv[])
 {
-	struct optparse op;
 	int ch, nout = 0;
 
+	memset(r, 0, sizeof(*r));
 	r->out = OUT_CYCLES;
 	r->residue = RF_RESIDUE_HALF;
 	r->hyst = 1;
 	r->rw = 1;
 	signal_arg(r, "soc_pct");
-	optab_init(&op, &tool, r);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, r, argc, argv)) != -1) {
 		switch (ch) {
 		case OPT_HISTOGRAM:
 			r->out = OUT_HISTOGRAM;
@@ -314,7 +290,6 @@ parse(struct run *r, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (nout > 1)
 		cw_usage_error("--histogram, --matrix and --summary exclude "
 		    "each other");
@@ -337,13 +312,10 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int rc, k;
 
-	cw_setprog("cw-rainflow");
-	memset(&r, 0, sizeof(r));
 	k = parse(&r, argc, argv);
 	glue_open(&g, sizeof(struct dev), r.outpath, &r.w, header[r.out]);
 	r.devs = g.devs;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(r.col), 0, on_row, &r);
+	glue_sampin(&g, SAMP_BIT(r.col), 0, on_row, &r);
 	g.sc.extra = r.col == SAMP_EXTRA ? r.signal : NULL;
 	rc = glue_read(&g, argv + k, argc - k);
 	if (rc != 0)

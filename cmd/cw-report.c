@@ -27,36 +27,46 @@ enum {
 	OPT_LIFE, OPT_LIMITS, OPT_MIN_DAYS, OPT_SINCE, OPT_SOH, OPT_TOPOFF, OPT_TZ
 };
 
+/* Where an option of the table is stored: a member of report_conf. */
+#define C(m)	offsetof(struct report_conf, m)
+
 static const struct optab opts[] = {
 	{ "by", 0, "site|model", "roll the reasons up per site or model of "
 	    "the fleet file (without it: per pack)", NULL, OPT_BY },
 	{ "csv", 0, NULL, "write CSV: rank,device,site,reason,detail,new,tier",
-	    NULL, OPT_CSV },
+	    NULL, OPT_CSV,
+	    OPTAB_FLAG, C(csv), 0, 0 },
 	{ "fleet", 0, "FILE", "the fleet file: site, model, capacity_ah",
 	    NULL, OPT_FLEET },
 	{ "growth", 0, "PCT", "resistance growth since the trend's start that "
-	    "needs attention", "100, i.e. doubled", OPT_GROWTH },
+	    "needs attention", "100, i.e. doubled", OPT_GROWTH,
+	    OPTAB_NUM, C(growth_max), 0.001, 1e6 },
 	{ "horizon", 0, "DAYS", "a sure trend that reaches --soh or --growth "
-	    "within DAYS needs attention", "90", OPT_HORIZON },
+	    "within DAYS needs attention", "90", OPT_HORIZON,
+	    OPTAB_NUM, C(horizon_d), 0, 36500 },
 	{ "life", 0, "DAYS", "modelled days to end of life below DAYS need "
-	    "attention", "365", OPT_LIFE },
+	    "attention", "365", OPT_LIFE,
+	    OPTAB_NUM, C(life_d), 0, 36500 },
 	{ "min-days", 0, "DAYS", "a modelled life from fewer DAYS of log is "
-	    "not a reason", "7", OPT_MIN_DAYS, OPTAB_NUM,
-	    offsetof(struct report_conf, min_days), 0, 36500 },
+	    "not a reason", "7", OPT_MIN_DAYS,
+	    OPTAB_NUM, C(min_days), 0, 36500 },
 	{ "limits", 0, "T1,T2,T3,T4", "the zones cw-thermal was run with, for "
 	    "the text", "0,10,45,60 C", OPT_LIMITS },
 	{ "top", 'n', "N", "list the N most urgent packs (or groups) only",
-	    "0: all", 0 },
+	    "0: all", 0,
+	    OPTAB_LONGINT, C(top), 0, 1000000000 },
 	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
 	    "output", NULL, 0 },
 	{ "since", 0, "FILE", "an earlier --csv report: mark what is new",
 	    NULL, OPT_SINCE },
 	{ "soh", 0, "PCT", "measured state of health below PCT needs "
-	    "attention", "80", OPT_SOH },
+	    "attention", "80", OPT_SOH,
+	    OPTAB_NUM, C(soh_min), 0.001, 150 },
 	{ "topoff", 0, "N", "show top-off micro-cycles a day of N or more "
-	    "beside a listed pack", "10", OPT_TOPOFF },
+	    "beside a listed pack", "10", OPT_TOPOFF,
+	    OPTAB_NUM, C(topoff_day), 0, 1e6 },
 	{ "tz", 0, "+HH:MM", "dates at this offset from UTC", "UTC", OPT_TZ },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool tool = {
@@ -79,7 +89,6 @@ main(int argc, char *argv[])
 	static char stdin_name[] = "-";
 	static char *stdin_only[] = { stdin_name };
 	struct report_conf conf;
-	struct optparse op;
 	struct report *rep;
 	struct fleet *fleet = NULL;
 	struct outf *of;
@@ -87,14 +96,9 @@ main(int argc, char *argv[])
 	size_t npacks;
 	int ch, i, rc = CW_EXIT_OK;
 
-	cw_setprog("cw-report");
 	report_conf_default(&conf);
-	optab_init(&op, &tool, &conf);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, &conf, argc, argv)) != -1) {
 		switch (ch) {
-		case 'n':
-			conf.top = opt_long_arg("--top", optarg, 0, 1000000000);
-			break;
 		case 'o':
 			outpath = optarg;
 			break;
@@ -107,36 +111,14 @@ main(int argc, char *argv[])
 				cw_usage_error("--by: \"%s\" is not site or "
 				    "model", optarg);
 			break;
-		case OPT_CSV:
-			conf.csv = 1;
-			break;
 		case OPT_FLEET:
 			fleetpath = optarg;
-			break;
-		case OPT_GROWTH:
-			conf.growth_max = opt_num_arg("--growth", optarg,
-			    0.001, 1e6);
-			break;
-		case OPT_HORIZON:
-			conf.horizon_d = opt_num_arg("--horizon", optarg, 0,
-			    36500);
-			break;
-		case OPT_LIFE:
-			conf.life_d = opt_num_arg("--life", optarg, 0, 36500);
 			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, conf.lim, 4, 1, 1);
 			break;
 		case OPT_SINCE:
 			since = optarg;
-			break;
-		case OPT_SOH:
-			conf.soh_min = opt_num_arg("--soh", optarg, 0.001,
-			    150);
-			break;
-		case OPT_TOPOFF:
-			conf.topoff_day = opt_num_arg("--topoff", optarg, 0,
-			    1e6);
 			break;
 		case OPT_TZ:
 			if (ts_parse_offset(optarg, &conf.tz_s) != 0)
@@ -145,7 +127,6 @@ main(int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	argc -= optind;
 	argv += optind;
 	if (argc == 0) {
@@ -153,8 +134,7 @@ main(int argc, char *argv[])
 		argc = 1;
 	}
 
-	if (fleetpath != NULL)
-		fleet = fleet_load(fleetpath);
+	fleet = fleet_load(fleetpath);
 	rep = report_new(&conf, fleet);
 	if (since != NULL)
 		rc = report_since(rep, since);

@@ -2,6 +2,7 @@
  * cw-synth: an invented e-bike fleet's raw gauge logs, with the truth.
  */
 #include <errno.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -18,18 +19,25 @@ enum {
 	OPT_MIX, OPT_TZ
 };
 
+/* Where an option of the table is stored: a member of synth_conf. */
+#define C(m)	offsetof(struct synth_conf, m)
+
 static const struct optab opts[] = {
 	{ "aging", 0, "factor", "multiply every growth and fade rate", "1",
-	    OPT_AGING },
+	    OPT_AGING,
+	    OPTAB_NUM, C(aging), 0, 1000 },
 	{ "charge-sign", 0, "sign", "how the raw logs count charging "
 	    "current: positive or negative in every format (default: each "
 	    "format's own, a negative, b positive)", NULL, OPT_CHARGE_SIGN },
-	{ "days", 'd', "days", "days", "7", 0 },
-	{ "devices", 'n', "devices", "packs", "10", 0 },
+	{ "days", 'd', "days", "days", "7", 0,
+	    OPTAB_LONGINT, C(ndays), 1, 3660 },
+	{ "devices", 'n', "devices", "packs", "10", 0,
+	    OPTAB_LONGINT, C(ndev), 1, 1000000 },
 	{ "docks", 0, NULL, "a dock column in the raw logs (depot, dock-01 .. "
 	    "dock-07, empty when away), and packs hop between docks (dock-07 "
 	    "has no cut-off; without it each pack stays at its own dock, no "
-	    "column)", NULL, OPT_DOCKS },
+	    "column)", NULL, OPT_DOCKS,
+	    OPTAB_FLAG, C(docks), 0, 0 },
 	{ "faults", 'F', "faults", "none, the default rates, or "
 	    "name=rate,... for dup, "
 	    "late, stale, trunc, sentinel (per row), gap, jump (per device "
@@ -39,8 +47,10 @@ static const struct optab opts[] = {
 	{ "incidents", 0, "n", "give n packs each of the four incidents: a "
 	    "fast charger without JEITA rules in the cold, one in a hot "
 	    "cabinet, a pack stored flat, a charger set to 4.30 V per cell",
-	    "0", OPT_INCIDENTS },
-	{ "level", 'z', "level", "gzip level 0..9", "1", 0 },
+	    "0", OPT_INCIDENTS,
+	    OPTAB_LONGINT, C(incidents), 0, 250000 },
+	{ "level", 'z', "level", "gzip level 0..9", "1", 0,
+	    OPTAB_INT, C(level), 0, 9 },
 	{ "mix", 0, "deep,topup,idle,nocutoff", "weights of the profiles "
 	    "deep-depot, topup-dock, idle-dock, topup-nocutoff", "3,3,3,1",
 	    OPT_MIX },
@@ -53,7 +63,7 @@ static const struct optab opts[] = {
 	    0 },
 	{ "tz", 0, "+hh:mm", "the fleet's local time offset", "+01:00",
 	    OPT_TZ },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool tool = {
@@ -150,17 +160,14 @@ int
 main(int argc, char *argv[])
 {
 	struct synth_conf c;
-	struct optparse op;
 	struct synth_stats st;
 	const char *err;
 	double sum;
 	long tz;
 	int ch, k;
 
-	cw_setprog("cw-synth");
 	synth_conf_default(&c);
-	optab_init(&op, &tool, NULL);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, &c, argc, argv)) != -1) {
 		switch (ch) {
 		case 'F':
 			if (synth_faults_parse(optarg, c.rate, &err) < 0)
@@ -170,14 +177,8 @@ main(int argc, char *argv[])
 		case 'S':
 			c.start_day = date_arg(optarg);
 			break;
-		case 'd':
-			c.ndays = opt_long_arg("--days", optarg, 1, 3660);
-			break;
 		case 'f':
 			c.formats = format_arg(optarg);
-			break;
-		case 'n':
-			c.ndev = opt_long_arg("--devices", optarg, 1, 1000000);
 			break;
 		case 'o':
 			c.outdir = optarg;
@@ -188,12 +189,6 @@ main(int argc, char *argv[])
 		case 's':
 			c.seed = seed_arg(optarg);
 			break;
-		case 'z':
-			c.level = (int)opt_long_arg("--level", optarg, 0, 9);
-			break;
-		case OPT_AGING:
-			c.aging = opt_num_arg("--aging", optarg, 0, 1000);
-			break;
 		case OPT_CHARGE_SIGN:
 			if (strcmp(optarg, "positive") == 0)
 				c.charge_sign = 1;
@@ -202,13 +197,6 @@ main(int argc, char *argv[])
 			else
 				cw_usage_error("--charge-sign: '%s' is not "
 				    "positive or negative", optarg);
-			break;
-		case OPT_DOCKS:
-			c.docks = 1;
-			break;
-		case OPT_INCIDENTS:
-			c.incidents = opt_long_arg("--incidents", optarg, 0,
-			    250000);
 			break;
 		case OPT_MIX:
 			opt_list_arg("--mix", optarg, c.mix, SYNTH_NPROFILE, 0,
@@ -233,7 +221,6 @@ main(int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (optind < argc)
 		cw_usage_error("unexpected argument '%s'", argv[optind]);
 	if (4 * c.incidents > c.ndev)

@@ -50,7 +50,7 @@ struct byval {
 };
 
 struct tool {
-	const char *outpath;	/* -o FILE, or NULL */
+	const char *outpath, *fleetpath;	/* -o FILE, --fleet FILE */
 	struct thermal_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -90,7 +90,8 @@ static const struct optab opts[] = {
 	    OPT_COOL_RATE,
 	    OPTAB_NUM, T(conf.cool_rate), 0, 100 },
 	{ "fleet", 0, "FILE", "the fleet file; its capacity_ah and cells "
-	    "override --capacity and --cells per pack", NULL, OPT_FLEET },
+	    "override --capacity and --cells per pack", NULL, OPT_FLEET,
+	    OPTAB_STR, T(fleetpath), 0, 0 },
 	{ "hysteresis", 0, "DT", "come back inside by DT to end an event",
 	    "0.5", OPT_HYST,
 	    OPTAB_TEMPDIFF, T(conf.lim.hyst), 0, 0 },
@@ -108,11 +109,10 @@ static const struct optab opts[] = {
 	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "60s",
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "summary", 's', NULL, "one row per device (per value with --by) "
-	    "instead of one per event", NULL, 0 },
+	    "instead of one per event", NULL, 0,
+	    OPTAB_FLAG, T(summary), 0, 0 },
 	{ "use-limits", 0, "LO,HI", "the window for discharge", "-20,60",
 	    OPT_USE_LIMITS },
 	{ "warm-margin", 0, "V", "voltage per cell allowed above the warm "
@@ -121,22 +121,19 @@ static const struct optab opts[] = {
 	{ "warm-voltage", 0, "V", "charge voltage per cell allowed in the "
 	    "warm zone", "4.10", OPT_WARM_VOLTAGE,
 	    OPTAB_NUM, T(conf.warm_v), 0.001, 100 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-thermal", "[FILE ...]",
-	"Charging outside the safe temperature window, as events per device,\n"
-	"judged by the charge protocol of the JEITA scheme.\n",
-	"The protocol's defaults are from memory of the JEITA guideline; the\n"
-	"cell maker's data sheet rules.\n"
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
-	"one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
-	"Durations take 90, 90s, 15m, 2h, 1d.\n"
-	"--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-thermal",
+    "Charging outside the safe temperature window, as events per device,\n"
+    "judged by the charge protocol of the JEITA scheme.\n",
+    "The protocol's defaults are from memory of the JEITA guideline; the\n"
+    "cell maker's data sheet rules.\n"
+    "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K (C without\n"
+    "one); DT is a difference (C and K count the same, 0.9F is 0.5 C).\n"
+    OPTAB_DURATIONS
+    "--hysteresis 0 and --merge 0 turn hysteresis and merging off.\n",
+    opts);
 
 static int	parse(struct tool *t, int argc, char *argv[]);
 static void	write_header(struct tool *t);
@@ -217,17 +214,10 @@ on_event(void *ctx, struct thermal_dev *th, const struct thermal_event *ev)
 	}
 	if (t->summary)
 		return;
-	d = (const struct dev *)(const void *)((const char *)th -
-	    offsetof(struct dev, th));
-	csvout_strn(&t->out, d->e.name, d->e.namelen);
-	csvout_str(&t->out, thermal_kind_name(ev->kind));
-	csvout_str(&t->out, thermal_zone_name(ev->zone));
-	glue_span(&t->out, ev->start, ev->end);
-	csvout_num(&t->out, ev->temp_min);
-	csvout_num(&t->out, ev->temp_max);
-	csvout_num(&t->out, ev->charge_ah);
-	csvout_num(&t->out, ev->soc_start);
-	csvout_num(&t->out, ev->soc_end);
+	d = CW_CONTAINER(th, struct dev, th);
+	glue_event(&t->out, &d->e, thermal_kind_name(ev->kind),
+	    thermal_zone_name(ev->zone), ev->start, ev->end, ev->temp_min,
+	    ev->temp_max, ev->charge_ah, ev->soc_start, ev->soc_end);
 	if (ev->kind == THERMAL_CHARGE) {
 		csvout_num(&t->out, ev->i_max);
 		if (d->th.cells > 0)
@@ -395,32 +385,24 @@ report(const struct devtab *devs, const struct sampin_stats *st,
 }
 
 /*
- * The options into T, the output's path into *OUTPATH; the index of the
- * first operand.
+ * The options into T, checked; the index of the first operand.  Exits 2
+ * on a usage error.
  */
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
-	const char *fleetpath = NULL;
 	double use[2];
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	thermal_conf_default(&t->conf);
 	t->cap_ah = CW_MISSING;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		switch (ch) {
-		case 's':
-			t->summary = 1;
-			break;
 		case OPT_BY:
 			if (optarg[0] == '\0')
 				cw_usage_error("--by: empty column name");
 			t->by = optarg;
-			break;
-		case OPT_FLEET:
-			fleetpath = optarg;
 			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, t->conf.lim.t, 4, 1,
@@ -433,10 +415,7 @@ parse(struct tool *t, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
-
-	if (fleetpath != NULL)
-		t->fleet = fleet_load(fleetpath);
+	t->fleet = fleet_load(t->fleetpath);
 	return optind;
 }
 
@@ -472,17 +451,13 @@ main(int argc, char *argv[])
 	size_t i, n;
 	int rc, k;
 
-	cw_setprog("cw-thermal");
-	memset(&t, 0, sizeof(t));
-	thermal_conf_default(&t.conf);
-	t.cap_ah = CW_MISSING;
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, NULL);
 	write_header(&t);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0, on_row, &t);
+	glue_sampin(&g, SAMP_BIT(SAMP_CURRENT) | SAMP_BIT(SAMP_TEMP), 0,
+	    on_row, &t);
 	if (t.by != NULL) {
 		g.sc.tag = t.by;
 		g.sc.need |= SAMP_BIT(SAMP_TAG);

@@ -39,7 +39,7 @@ struct dev {
 enum mode { MODE_HOLDS, MODE_EVENTS, MODE_SUMMARY };
 
 struct tool {
-	const char *outpath;	/* -o FILE, or NULL */
+	const char *outpath, *fleetpath;	/* -o FILE, --fleet FILE */
 	struct topoff_conf conf;
 	struct csvout out;
 	int mode;		/* enum mode */
@@ -62,11 +62,13 @@ enum {
 static const struct optab opts[] = {
 	{ "capacity", 0, "AH", "capacity of every pack, for --standby-rate "
 	    "(unset; the fleet file's capacity_ah overrides)", NULL,
-	    OPT_CAPACITY },
+	    OPT_CAPACITY,
+	    OPTAB_POS, T(capacity), 0, 1e6 },
 	{ "events", 'e', NULL, "one row per micro-cycle instead of one per "
 	    "hold", NULL, 0 },
 	{ "fleet", 0, "FILE", "the fleet file (asset register): capacity_ah",
-	    NULL, OPT_FLEET },
+	    NULL, OPT_FLEET,
+	    OPTAB_STR, T(fleetpath), 0, 0 },
 	{ "full", 0, "PCT", "a SoC at or above PCT is near full", "95",
 	    OPT_FULL,
 	    OPTAB_NUM, T(conf.full_pct), 0, 100 },
@@ -83,9 +85,7 @@ static const struct optab opts[] = {
 	{ "min-depth", 0, "PCT", "the smallest drop below the peak that "
 	    "counts", "0.5", OPT_MIN_DEPTH,
 	    OPTAB_NUM, T(conf.min_depth), 0.001, 100 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "summary", 's', NULL, "one row per device (-e and -s exclude each "
 	    "other)", NULL, 0 },
 	{ "standby-current", 0, "A", "discharge up to A amperes is standby "
@@ -97,41 +97,33 @@ static const struct optab opts[] = {
 	    OPT_STANDBY_FALL },
 	{ "standby-rate", 0, "C", "the standby level as a C-rate, for packs "
 	    "whose capacity is known (unset: --standby-current)", NULL,
-	    OPT_STANDBY_RATE },
+	    OPT_STANDBY_RATE,
+	    OPTAB_POS, T(standby_rate), 0, 100 },
 	{ "use-dips", 0, NULL, "with -e, list use dips too (kind use)", NULL,
 	    OPT_USE_DIPS,
 	    OPTAB_FLAG, T(use_dips), 0, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-topoff", "[FILE ...]",
-	"Holds near full charge and top-off micro-cycles, per device; dips\n"
-	"driven by use (discharge above the standby level) are counted\n"
-	"apart.\n",
-	"Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-topoff",
+    "Holds near full charge and top-off micro-cycles, per device; dips\n"
+    "driven by use (discharge above the standby level) are counted\n"
+    "apart.\n",
+    OPTAB_DURATIONS,
+    opts);
 
-static struct dev *dev_of(struct topoff *top);
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	dev_start(struct tool *t, struct dev *d);
 static void	on_cycle(void *ctx, struct topoff *top,
 		    const struct topoff_cycle *cy);
 static void	on_hold(void *ctx, struct topoff *top,
 		    const struct topoff_hold *h);
+static void	write_depth(struct csvout *w, unsigned long n, double sum,
+		    double max);
 static void	write_summary(struct tool *t, const struct dev *d);
 static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
 		    const struct sampin_stats *st);
-/* The device state that embeds TOP. */
-static struct dev *
-dev_of(struct topoff *top)
-{
-	return (struct dev *)(void *)((char *)top - offsetof(struct dev, top));
-}
-
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
 {
@@ -172,7 +164,7 @@ static void
 on_cycle(void *ctx, struct topoff *top, const struct topoff_cycle *cy)
 {
 	struct tool *t = ctx;
-	const struct dev *d = dev_of(top);
+	const struct dev *d = CW_CONTAINER(top, struct dev, top);
 
 	if (t->mode != MODE_EVENTS || (cy->use && !t->use_dips))
 		return;
@@ -189,7 +181,7 @@ static void
 on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 {
 	struct tool *t = ctx;
-	struct dev *d = dev_of(top);
+	struct dev *d = CW_CONTAINER(top, struct dev, top);
 
 	if (h->end - h->start > d->longest)
 		d->longest = h->end - h->start;
@@ -198,16 +190,26 @@ on_hold(void *ctx, struct topoff *top, const struct topoff_hold *h)
 	csvout_strn(&t->out, d->e.name, d->e.namelen);
 	glue_span(&t->out, h->start, h->end);
 	csvout_int(&t->out, (long long)h->cycles);
-	if (h->cycles > 0) {
-		csvout_num(&t->out, h->depth_sum / (double)h->cycles);
-		csvout_num(&t->out, h->depth_max);
-	} else {
-		csvout_empty(&t->out);
-		csvout_empty(&t->out);
-	}
+	write_depth(&t->out, h->cycles, h->depth_sum, h->depth_max);
 	csvout_num(&t->out, h->topoff_ah);
 	csvout_int(&t->out, (long long)h->use_dips);
 	csvout_endrow(&t->out);
+}
+
+/*
+ * mean_depth_pct and max_depth_pct of N micro-cycles of depths adding up
+ * to SUM, the deepest MAX: two empty fields when there are none.
+ */
+static void
+write_depth(struct csvout *w, unsigned long n, double sum, double max)
+{
+	if (n > 0) {
+		csvout_num(w, sum / (double)n);
+		csvout_num(w, max);
+	} else {
+		csvout_empty(w);
+		csvout_empty(w);
+	}
 }
 
 /* The end of the stream for device DEV: its open hold, its summary. */
@@ -251,13 +253,7 @@ write_summary(struct tool *t, const struct dev *d)
 	else
 		csvout_empty(&t->out);
 	csvout_num(&t->out, tot->topoff_ah);
-	if (tot->cycles > 0) {
-		csvout_num(&t->out, tot->depth_sum / (double)tot->cycles);
-		csvout_num(&t->out, tot->depth_max);
-	} else {
-		csvout_empty(&t->out);
-		csvout_empty(&t->out);
-	}
+	write_depth(&t->out, tot->cycles, tot->depth_sum, tot->depth_max);
 	csvout_num(&t->out, (double)d->longest / (3600.0 * CW_US_PER_S));
 	csvout_int(&t->out, (long long)tot->unjudged);
 	if (tot->held > 0)
@@ -298,20 +294,18 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 }
 
 /*
- * The options into T, the output's path into *OUTPATH; the index of the
- * first operand.
+ * The options into T, checked; the index of the first operand.  Exits 2
+ * on a usage error.
  */
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
-	const char *fleetpath = NULL;
 	int events = 0, summary = 0;
 	int ch;
 
+	memset(t, 0, sizeof(*t));
 	topoff_conf_default(&t->conf);
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, t, argc, argv)) != -1) {
 		switch (ch) {
 		case 'e':
 			events = 1;
@@ -319,42 +313,20 @@ parse(struct tool *t, int argc, char *argv[])
 		case 's':
 			summary = 1;
 			break;
-		case OPT_CAPACITY:
-			t->capacity = opt_num_arg("--capacity", optarg, 0,
-			    1e6);
-			if (!(t->capacity > 0))
-				cw_usage_error("--capacity: %s is not above 0",
-				    optarg);
-			break;
-		case OPT_FLEET:
-			fleetpath = optarg;
-			break;
 		case OPT_STANDBY_FALL:
-			t->conf.standby_fall = opt_num_arg("--standby-fall",
-			    optarg, 0, 1e6);
-			if (!(t->conf.standby_fall > 0))
-				cw_usage_error("--standby-fall: %s is not "
-				    "above 0", optarg);
+			t->conf.standby_fall = opt_pos_arg("--standby-fall",
+			    optarg, 1e6);
 			t->fall_set = 1;
-			break;
-		case OPT_STANDBY_RATE:
-			t->standby_rate = opt_num_arg("--standby-rate", optarg,
-			    0, 100);
-			if (!(t->standby_rate > 0))
-				cw_usage_error("--standby-rate: %s is not "
-				    "above 0", optarg);
 			break;
 		}
 	}
-	optab_free(&op);
-		if (events && summary)
+	if (events && summary)
 		cw_usage_error("-e (--events) and -s (--summary) exclude each "
 		    "other");
 	t->mode = events ? MODE_EVENTS : summary ? MODE_SUMMARY : MODE_HOLDS;
 	if (t->use_dips && !events)
 		cw_usage_error("--use-dips lists dips with -e (--events)");
-	if (fleetpath != NULL)
-		t->fleet = fleet_load(fleetpath);
+	t->fleet = fleet_load(t->fleetpath);
 	return optind;
 }
 
@@ -367,16 +339,13 @@ main(int argc, char *argv[])
 	struct glue g;
 	int rc, k;
 
-	cw_setprog("cw-topoff");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, header[t.mode]);
 	t.conf.on_cycle = on_cycle;
 	t.conf.on_hold = on_hold;
 	t.conf.on_use = on_cycle;
 	t.conf.ctx = &t;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
+	glue_sampin(&g, SAMP_BIT(SAMP_CURRENT), SAMP_BIT(SAMP_SOC) |
 	    (cw_isnum(t.conf.full_v) ? SAMP_BIT(SAMP_VOLTAGE) : 0), on_row,
 	    &t);
 	/* Holds still open end with the stream, in name order. */

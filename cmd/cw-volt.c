@@ -35,7 +35,7 @@ struct dev {
 };
 
 struct tool {
-	const char *outpath;	/* -o FILE, or NULL */
+	const char *outpath, *fleetpath;	/* -o FILE, --fleet FILE */
 	struct volt_conf conf;
 	struct csvout out;
 	struct fleet *fleet;
@@ -51,7 +51,6 @@ enum {
 static int	on_row(void *ctx, void *dev, const struct cw_sample *s);
 static void	on_event(void *ctx, struct volt_dev *vd,
 		    const struct volt_event *ev);
-static void	num_or_empty(struct csvout *o, double x);
 static void	write_summary(struct tool *t, const struct dev *d);
 static void	end_dev(void *ctx, void *dev);
 static void	report(const struct devtab *devs,
@@ -65,7 +64,8 @@ static const struct optab opts[] = {
 	    "voltage over N", "1", OPT_CELLS,
 	    OPTAB_INT, T(cells), 1, 1000 },
 	{ "fleet", 0, "FILE", "the fleet file; its cells column overrides "
-	    "--cells per pack", NULL, OPT_FLEET },
+	    "--cells per pack", NULL, OPT_FLEET,
+	    OPTAB_STR, T(fleetpath), 0, 0 },
 	{ "hysteresis", 0, "V", "come back inside by V per cell to end an "
 	    "event", "0.02", OPT_HYST,
 	    OPTAB_NUM, T(conf.hyst), 0, 10 },
@@ -82,24 +82,20 @@ static const struct optab opts[] = {
 	{ "min-duration", 0, "DUR", "drop events shorter than DUR", "30s",
 	    OPT_MIN_DURATION,
 	    OPTAB_DUR, T(conf.min_duration), -1, 0 },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, T(outpath), 0, 0 },
+	OPTAB_OUTPUT(T(outpath)),
 	{ "summary", 's', NULL, "one row per device instead of one per event",
-	    NULL, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	    NULL, 0,
+	    OPTAB_FLAG, T(summary), 0, 0 },
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-volt", "[FILE ...]",
-	"Charge, use and rest outside the cells' voltage window, as events\n"
-	"per device.\n",
-	"The default limits are typical of NMC and LCO cells, from memory;\n"
-	"LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
-	"maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-volt",
+    "Charge, use and rest outside the cells' voltage window, as events\n"
+    "per device.\n",
+    "The default limits are typical of NMC and LCO cells, from memory;\n"
+    "LFP cells need others (e.g. --max 3.65 --min 2.50).  The cell\n"
+    "maker's data sheet rules.  Durations take 90, 90s, 15m, 2h, 1d.\n",
+    opts);
 
 static int
 on_row(void *ctx, void *dev, const struct cw_sample *s)
@@ -122,29 +118,12 @@ on_event(void *ctx, struct volt_dev *vd, const struct volt_event *ev)
 
 	if (t->summary)
 		return;
-	d = (const struct dev *)(const void *)((const char *)vd -
-	    offsetof(struct dev, v));
-	csvout_strn(&t->out, d->e.name, d->e.namelen);
-	csvout_str(&t->out, volt_kind_name(ev->kind));
-	csvout_str(&t->out, volt_limit_name(ev->limit));
-	glue_span(&t->out, ev->start, ev->end);
-	csvout_num(&t->out, ev->v_min);
-	csvout_num(&t->out, ev->v_max);
-	csvout_num(&t->out, ev->charge_ah);
-	csvout_num(&t->out, ev->soc_start);
-	csvout_num(&t->out, ev->soc_end);
+	d = CW_CONTAINER(vd, struct dev, v);
+	glue_event(&t->out, &d->e, volt_kind_name(ev->kind),
+	    volt_limit_name(ev->limit), ev->start, ev->end, ev->v_min,
+	    ev->v_max, ev->charge_ah, ev->soc_start, ev->soc_end);
 	csvout_int(&t->out, vd->cells);
 	csvout_endrow(&t->out);
-}
-
-/* X, or an empty field when no row set it (still infinite). */
-static void
-num_or_empty(struct csvout *o, double x)
-{
-	if (x > -1e308 && x < 1e308)
-		csvout_num(o, x);
-	else
-		csvout_empty(o);
 }
 
 /* The end of the stream for device DEV: its open event, its summary. */
@@ -170,8 +149,9 @@ write_summary(struct tool *t, const struct dev *d)
 	csvout_time(&t->out, v->first);
 	csvout_time(&t->out, v->prev_t);
 	csvout_int(&t->out, v->cells);
-	num_or_empty(&t->out, v->v_min);
-	num_or_empty(&t->out, v->v_max);
+	/* A limit no row set is still infinite: an empty field. */
+	glue_num(&t->out, v->v_min > -1e308 && v->v_min < 1e308, v->v_min);
+	glue_num(&t->out, v->v_max > -1e308 && v->v_max < 1e308, v->v_max);
 	for (l = 0; l < VOLT_NLIMIT; l++) {
 		unsigned long n = 0;
 
@@ -214,40 +194,26 @@ report(const struct devtab *devs, const struct sampin_stats *st)
 }
 
 /*
- * The options into T, the output's path into *OUTPATH; the index of the
- * first operand.
+ * The options into T, checked; the index of the first operand.  Exits 2
+ * on a usage error.
  */
 static int
 parse(struct tool *t, int argc, char *argv[])
 {
-	struct optparse op;
-	const char *fleetpath = NULL;
-	int ch;
+	int k;
 
+	memset(t, 0, sizeof(*t));
 	volt_conf_default(&t->conf);
 	t->cells = 1;
-	optab_init(&op, &tool, t);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
-		switch (ch) {
-		case 's':
-			t->summary = 1;
-			break;
-		case OPT_FLEET:
-			fleetpath = optarg;
-			break;
-		}
-	}
-	optab_free(&op);
+	k = optab_parse(&tool, t, argc, argv);
 	if (t->conf.vmin >= t->conf.vmax)
 		cw_usage_error("--min (%g V) must be below --max (%g V)",
 		    t->conf.vmin, t->conf.vmax);
 	if (t->conf.hyst >= t->conf.vmax - t->conf.vmin)
 		cw_usage_error("--hysteresis (%g V) must be below --max minus "
 		    "--min (%g V)", t->conf.hyst, t->conf.vmax - t->conf.vmin);
-
-	if (fleetpath != NULL)
-		t->fleet = fleet_load(fleetpath);
-	return optind;
+	t->fleet = fleet_load(t->fleetpath);
+	return k;
 }
 
 int
@@ -257,15 +223,13 @@ main(int argc, char *argv[])
 	struct glue g;
 	int rc, k;
 
-	cw_setprog("cw-volt");
-	memset(&t, 0, sizeof(t));
 	k = parse(&t, argc, argv);
 	glue_open(&g, sizeof(struct dev), t.outpath, &t.out, t.summary ?
 	    SUMMARY_HEADER : EVENT_HEADER);
 	t.conf.emit = on_event;
 	t.conf.ctx = &t;
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0, on_row, &t);
+	glue_sampin(&g, SAMP_BIT(SAMP_VOLTAGE) | SAMP_BIT(SAMP_CURRENT), 0,
+	    on_row, &t);
 	/* What is still open ends with the stream, in name order. */
 	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
 	if (cw_verbose)

@@ -120,9 +120,7 @@ static const struct optab opts[] = {
 	{ "min-depth", 0, "PCT", "the smallest top-off micro-cycle", "0.5",
 	    OPT_MIN_DEPTH },
 	{ "model", 0, "NAME", "the degradation model", "xu2018", OPT_MODEL },
-	{ "output", 'o', "FILE", "write to FILE atomically, not standard "
-	    "output", NULL, 0,
-	    OPTAB_STR, R(out), 0, 0 },
+	OPTAB_OUTPUT(R(out)),
 	{ "partition", 0, NULL, "with --merge, standard input holds the "
 	    "states of some devices only (a reducer's share): end rows "
 	    "checked for form, not for the rows they count (unset: whole "
@@ -135,19 +133,16 @@ static const struct optab opts[] = {
 	{ "state-out", 0, NULL, "write the states instead of the report",
 	    NULL, OPT_STATE_OUT,
 	    OPTAB_FLAG, R(state_out), 0, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
-static const struct optool tool = {
-	"cw-wear", "[FILE ...]",
-	"Wear stress, modelled fade and its causes per pack, from the sample\n"
-	"stream.\n",
-	"Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; durations "
-	"90, 90s,\n15m, 2h, 1d.  The tools advise; they are not a safety "
-	"system.\n",
-	opts,
-	"report counts on standard error"
-};
+static const struct optool tool = OPTOOL_FILES("cw-wear",
+    "Wear stress, modelled fade and its causes per pack, from the sample\n"
+    "stream.\n",
+    "Temperatures take a unit suffix: 10, 10C, 50F, 283.15K; durations "
+    "90, 90s,\n15m, 2h, 1d.  The tools advise; they are not a safety "
+    "system.\n",
+    opts);
 
 static int on_row(void *, void *, const struct cw_sample *);
 static void write_row(struct csvout *, const struct run *,
@@ -369,8 +364,8 @@ dwell_run(struct run *r, char **argv, int argc)
 	dwell_conf_set(&dc, &r->conf.lim, r->conf.min_current,
 	    r->conf.max_gap);
 	glue_open(&g, sizeof(struct ddev), r->out, &w, NULL);
-	glue_sampin(&g, SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) |
-	    SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), 0, on_dwell, &dc);
+	glue_sampin(&g, SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), 0, on_dwell,
+	    &dc);
 	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
 		sampin_report(&g.st, NULL);
@@ -507,13 +502,11 @@ exists(const char *path)
 static int
 parse(struct run *r, int argc, char *argv[])
 {
-	struct optparse op;
 	int ch;
 
 	wear_conf_default(&r->conf);
 	r->lock_wait = LOCK_WAIT_DEFAULT;
-	optab_init(&op, &tool, r);
-	while ((ch = optab_next(&op, argc, argv)) != -1) {
+	while ((ch = optab_getopt(&tool, r, argc, argv)) != -1) {
 		switch (ch) {
 		case OPT_FULL:
 			r->conf.topoff.full_pct = opt_num_arg("--full", optarg,
@@ -570,7 +563,6 @@ parse(struct run *r, int argc, char *argv[])
 			break;
 		}
 	}
-	optab_free(&op);
 	if (r->state != NULL && r->out != NULL && strcmp(r->out, "-") != 0 &&
 	    outf_same(r->state, r->out))
 		cw_usage_error("--state and -o name the same file");
@@ -615,6 +607,13 @@ load_state(struct run *r)
 	return 0;
 }
 
+/* The states in PATH (glue_states()). */
+static int
+read_states(void *rd, const char *path, int whole)
+{
+	return wstate_read(rd, path, whole);
+}
+
 /*
  * --merge: the operands (standard input when none) are states, joined.
  * A file operand is a whole state; a stream may be sorted or, with
@@ -623,15 +622,10 @@ load_state(struct run *r)
 static int
 merge(struct run *r, char **argv, int argc)
 {
-	int k, rc;
+	int rc;
 
-	for (k = 0; k < argc; k++)
-		if ((rc = wstate_read(&r->rd, argv[k],
-		    strcmp(argv[k], "-") != 0 || !r->partition)) != 0)
-			return rc;
-	if (argc == 0 && (rc = wstate_read(&r->rd, "-", !r->partition)) != 0)
-		return rc;
-	if ((rc = wjoin_flush(&r->join)) != 0)
+	if ((rc = glue_states(argv, argc, !r->partition, read_states,
+	    &r->rd)) != 0 || (rc = wjoin_flush(&r->join)) != 0)
 		return rc;
 	if (r->join.straddles > 0)
 		cw_warn("%lu states overlapped the one before or after them "
@@ -648,19 +642,15 @@ merge(struct run *r, char **argv, int argc)
 static int
 samples(struct run *r, char **argv, int argc)
 {
-	struct sampin_conf sc;
-	struct sampin_stats st;
+	struct glue g;
 	int rc;
 
-	memset(&sc, 0, sizeof(sc));
-	sc.need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME);
-	sc.need_any = SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP);
-	sc.row = on_row;
-	sc.ctx = r;
-	sc.devs = r->join.devs;
-	rc = sampin_run(&sc, argv, argc, &st);
+	glue_reader(&g, r->join.devs);
+	glue_sampin(&g, 0, SAMP_BIT(SAMP_SOC) | SAMP_BIT(SAMP_TEMP), on_row,
+	    r);
+	rc = glue_read(&g, argv, argc);
 	if (cw_verbose)
-		sampin_report(&st, NULL);
+		sampin_report(&g.st, NULL);
 	if (rc == 0 && r->state != NULL)
 		wjoin_stale_check(&r->join, r->state);
 	return rc;
@@ -760,7 +750,6 @@ main(int argc, char *argv[])
 	struct outf *of, *sf = NULL;
 	int k, rc;
 
-	cw_setprog("cw-wear");
 	k = parse(&r, argc, argv);
 	argc -= k;
 	argv += k;
@@ -771,8 +760,7 @@ main(int argc, char *argv[])
 	 * side; one that is only ever continued (--state) stays compact.
 	 */
 	r.conf.joinable = r.state_out && r.state == NULL;
-	if (r.fleet_path != NULL)
-		r.fleet = fleet_load(r.fleet_path);
+	r.fleet = fleet_load(r.fleet_path);
 	if (r.measured != NULL)
 		r.meas = meas_load(r.measured);
 	wjoin_init(&r.join, &r.conf);

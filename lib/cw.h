@@ -47,6 +47,13 @@ void	*cw_realloc(void *p, size_t n);
 char	*cw_strdup(const char *s);
 
 /* A missing value is NaN inside the tools and an empty field outside. */
+/*
+ * The struct TYPE whose member MEMBER is at P: an engine's callback gets
+ * its own state, which a tool's device state embeds.
+ */
+#define CW_CONTAINER(p, type, member) \
+	((type *)(void *)((char *)(p) - offsetof(type, member)))
+
 #define CW_MISSING (__builtin_nan(""))
 #define cw_isnum(x) ((x) == (x))
 

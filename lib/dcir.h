@@ -160,6 +160,9 @@ struct dcir_series {
 	int level;		/* thinning level, 0..DCIR_LEVEL_MAX */
 };
 
+/* The points a series keeps unless told otherwise (--max-points). */
+#define DCIR_MAX_POINTS	2048
+
 /* The bin of SOC (NaN: DCIR_NBIN). */
 int	dcir_soc_bin(double soc);
 /* Add a step; MAXPTS (>= 2) caps the points kept. */

@@ -49,6 +49,8 @@ fleet_load(const char *path)
 	};
 	struct loadctx lc;
 
+	if (path == NULL)
+		return NULL;
 	lc.f = cw_calloc(1, sizeof(*lc.f));
 	lc.f->packs = devtab_new(sizeof(struct fleet_pack));
 	for (int k = 0; k < FC_N; k++)

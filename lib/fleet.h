@@ -45,6 +45,7 @@ struct fleet;
  * error it reports and exits with CW_EXIT_DATA (cw_die), so an output file
  * not yet committed is removed.
  */
+/* PATH NULL: no fleet file, NULL. */
 struct fleet *fleet_load(const char *path);
 /* The pack named NAME[0..LEN), or NULL (also when F is NULL). */
 const struct fleet_pack *fleet_find(const struct fleet *f, const char *name,

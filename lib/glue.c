@@ -27,13 +27,20 @@ glue_open(struct glue *g, size_t devsize, const char *path, struct csvout *w,
 }
 
 void
+glue_reader(struct glue *g, struct devtab *devs)
+{
+	memset(g, 0, sizeof(*g));
+	g->devs = devs;
+}
+
+void
 glue_sampin(struct glue *g, unsigned need, unsigned need_any,
     int (*row)(void *, void *, const struct cw_sample *), void *ctx)
 {
 	struct sampin_conf *sc = &g->sc;
 
 	memset(sc, 0, sizeof(*sc));
-	sc->need = need;
+	sc->need = SAMP_BIT(SAMP_DEVICE) | SAMP_BIT(SAMP_TIME) | need;
 	sc->need_any = need_any;
 	sc->row = row;
 	sc->ctx = ctx;
@@ -55,6 +62,21 @@ glue_run(struct glue *g, char **files, int n, void (*end)(void *, void *),
 	if (rc == 0 && end != NULL)
 		glue_each(g, end, ctx);
 	return rc;
+}
+
+int
+glue_states(char **files, int n, int stdin_whole,
+    int (*read)(void *, const char *, int), void *ctx)
+{
+	int k, rc;
+
+	if (n == 0)
+		return read(ctx, "-", stdin_whole);
+	for (k = 0; k < n; k++)
+		if ((rc = read(ctx, files[k], strcmp(files[k], "-") != 0 ||
+		    stdin_whole)) != 0)
+			return rc;
+	return 0;
 }
 
 void
@@ -88,6 +110,22 @@ glue_close(struct glue *g, int rc)
 }
 
 void
+glue_event(struct csvout *w, const struct devent *e, const char *kind,
+    const char *where, cw_time start, cw_time end, double lo, double hi,
+    double ah, double soc0, double soc1)
+{
+	csvout_strn(w, e->name, e->namelen);
+	csvout_str(w, kind);
+	csvout_str(w, where);
+	glue_span(w, start, end);
+	csvout_num(w, lo);
+	csvout_num(w, hi);
+	csvout_num(w, ah);
+	csvout_num(w, soc0);
+	csvout_num(w, soc1);
+}
+
+void
 glue_span(struct csvout *w, cw_time start, cw_time end)
 {
 	csvout_time(w, start);
@@ -105,6 +143,15 @@ glue_first_last(struct csvout *w, int have, cw_time first, cw_time last)
 		csvout_empty(w);
 		csvout_empty(w);
 	}
+}
+
+void
+glue_num(struct csvout *w, int have, double x)
+{
+	if (have)
+		csvout_num(w, x);
+	else
+		csvout_empty(w);
 }
 
 void

@@ -32,10 +32,17 @@ struct glue {
 void	glue_open(struct glue *g, size_t devsize, const char *path,
 	    struct csvout *w, const char *header);
 /*
+ * G as the sample reader alone, into DEVS, a table G does not own (a
+ * tool whose devices a state join keeps): glue_sampin() and glue_read()
+ * then, and no glue_close().
+ */
+void	glue_reader(struct glue *g, struct devtab *devs);
+/*
  * Set G's reader up to read the sample stream into its devices: the
- * columns NEED must be there, and one of NEED_ANY when it is not 0; each
- * row goes to ROW(CTX, its device's state, the row).  G->sc may then be
- * changed further (a text column, an extra one).
+ * device and time columns and the columns NEED must be there, and one
+ * of NEED_ANY when it is not 0; each row goes to ROW(CTX, its device's
+ * state, the row).  G->sc may then be changed further (a text column,
+ * an extra one).
  */
 void	glue_sampin(struct glue *g, unsigned need, unsigned need_any,
 	    int (*row)(void *, void *, const struct cw_sample *), void *ctx);
@@ -48,6 +55,15 @@ int	glue_read(struct glue *g, char **files, int n);
  */
 int	glue_run(struct glue *g, char **files, int n,
 	    void (*end)(void *, void *), void *ctx);
+/*
+ * --merge's operands: READ(CTX, PATH, WHOLE) for each of FILES[0..N), or
+ * for "-" (standard input) when N is 0, until one fails.  WHOLE is 1 for
+ * a file and STDIN_WHOLE for standard input ("-"): whether the states
+ * read must be whole, with end rows that count them.  Returns 0 or what
+ * READ returned.
+ */
+int	glue_states(char **files, int n, int stdin_whole,
+	    int (*read)(void *, const char *, int), void *ctx);
 /* FN(CTX, state) for each device in name order. */
 void	glue_each(const struct glue *g, void (*fn)(void *, void *),
 	    void *ctx);
@@ -60,11 +76,22 @@ void	**glue_sorted(const struct glue *g, size_t *n);
  */
 int	glue_close(struct glue *g, int rc);
 
+/*
+ * The columns an event row of cw-thermal and cw-volt begins with, for
+ * device E: device, KIND, WHERE (zone or limit), START, END, duration_s,
+ * the lowest and highest value LO and HI, charge AH, SOC0 and SOC1 (at
+ * its start and end).
+ */
+void	glue_event(struct csvout *w, const struct devent *e, const char *kind,
+	    const char *where, cw_time start, cw_time end, double lo,
+	    double hi, double ah, double soc0, double soc1);
 /* A span's start, end and its length in seconds, as three fields. */
 void	glue_span(struct csvout *w, cw_time start, cw_time end);
 /* FIRST and LAST as two times when HAVE, else two empty fields. */
 void	glue_first_last(struct csvout *w, int have, cw_time first,
 	    cw_time last);
+/* X when HAVE, else an empty field. */
+void	glue_num(struct csvout *w, int have, double x);
 /* T as a date when HAVE, else an empty field. */
 void	glue_date(struct csvout *w, int have, cw_time t);
 

@@ -18,6 +18,27 @@ opt_num_arg(const char *opt, const char *s, double lo, double hi)
 	return x;
 }
 
+double
+opt_pos_arg(const char *opt, const char *s, double hi)
+{
+	double x = opt_num_arg(opt, s, 0, hi);
+
+	if (!(x > 0))
+		cw_usage_error("%s: %s is not above 0", opt, s);
+	return x;
+}
+
+double
+opt_open_arg(const char *opt, const char *s, double lo, double hi)
+{
+	double x = opt_num_arg(opt, s, lo, hi);
+
+	if (x <= lo || x >= hi)
+		cw_usage_error("%s: %s is not between %g and %g (exclusive)",
+		    opt, s, lo, hi);
+	return x;
+}
+
 long
 opt_long_arg(const char *opt, const char *s, long lo, long hi)
 {

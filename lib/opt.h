@@ -9,6 +9,13 @@
 
 /* A number within [LO, HI]. */
 double	opt_num_arg(const char *opt, const char *s, double lo, double hi);
+/* A number above 0 and at most HI: "OPT: S is not above 0" below it. */
+double	opt_pos_arg(const char *opt, const char *s, double hi);
+/*
+ * A number strictly between LO and HI: "OPT: S is not between LO and HI
+ * (exclusive)" at either end.
+ */
+double	opt_open_arg(const char *opt, const char *s, double lo, double hi);
 /* A whole number within [LO, HI]. */
 long	opt_long_arg(const char *opt, const char *s, long lo, long hi);
 /* A temperature with an optional unit suffix C, F or K; degrees Celsius. */

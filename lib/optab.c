@@ -66,6 +66,8 @@ optab_init(struct optparse *p, const struct optool *tool, void *base)
 	size_t n, i, k = 0, s;
 	char *sh = p->shorts;
 
+	/* Messages name the program from here on. */
+	cw_setprog(tool->prog);
 	p->tool = tool;
 	p->base = base;
 	n = count(tool->opts) + count(sets[1]);
@@ -117,6 +119,24 @@ store(const struct optab *o, void *base, const char *v)
 		break;
 	case OPTAB_STR:
 		*(const char **)(void *)at = v;
+		break;
+	case OPTAB_POS:
+		*(double *)(void *)at = opt_pos_arg(name, v, o->hi);
+		break;
+	case OPTAB_OPEN:
+		*(double *)(void *)at = opt_open_arg(name, v, o->lo, o->hi);
+		break;
+	case OPTAB_LONGINT:
+		*(long *)(void *)at = opt_long_arg(name, v, (long)o->lo,
+		    (long)o->hi);
+		break;
+	case OPTAB_ULONG:
+		*(unsigned long *)(void *)at = (unsigned long)opt_long_arg(name,
+		    v, (long)o->lo, (long)o->hi);
+		break;
+	case OPTAB_SIZE:
+		*(size_t *)(void *)at = (size_t)opt_long_arg(name, v,
+		    (long)o->lo, (long)o->hi);
 		break;
 	}
 }
@@ -171,6 +191,32 @@ optab_free(struct optparse *p)
 {
 	free(p->longopts);
 	p->longopts = NULL;
+}
+
+int
+optab_getopt(const struct optool *tool, void *base, int argc, char *argv[])
+{
+	static struct optparse p;
+	static int open;
+	int ch;
+
+	if (!open) {
+		optab_init(&p, tool, base);
+		open = 1;
+	}
+	if ((ch = optab_next(&p, argc, argv)) == -1) {
+		optab_free(&p);
+		open = 0;
+	}
+	return ch;
+}
+
+int
+optab_parse(const struct optool *tool, void *base, int argc, char *argv[])
+{
+	while (optab_getopt(tool, base, argc, argv) != -1)
+		;
+	return optind;
 }
 
 /*

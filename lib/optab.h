@@ -30,7 +30,12 @@ enum optab_kind {
 	OPTAB_DUR,	/* cw_time, opt_dur_arg(zero allowed when LO < 0) */
 	OPTAB_TEMPDIFF,	/* double, opt_tempdiff_arg() */
 	OPTAB_FLAG,	/* int set to 1 */
-	OPTAB_STR	/* const char *, the value as given */
+	OPTAB_STR,	/* const char *, the value as given */
+	OPTAB_POS,	/* double, opt_pos_arg(HI): above 0 */
+	OPTAB_OPEN,	/* double, opt_open_arg(LO, HI): strictly between */
+	OPTAB_LONGINT,	/* long, opt_long_arg(LO, HI) */
+	OPTAB_ULONG,	/* unsigned long, opt_long_arg(LO >= 0, HI) */
+	OPTAB_SIZE	/* size_t, opt_long_arg(LO >= 0, HI) */
 };
 
 struct optab {
@@ -45,6 +50,20 @@ struct optab {
 	double lo, hi;		/* its range */
 };
 
+/* The end of a table. */
+#define OPTAB_END	{ NULL, 0, NULL, NULL, NULL, 0, 0, 0, 0, 0 }
+/*
+ * -o FILE, the output every tool but cw-clean and cw-synth writes, into
+ * the const char * at OFF.
+ */
+#define OPTAB_OUTPUT(off) { "output", 'o', "FILE", "write to FILE " \
+	"atomically, not standard output", NULL, 0, OPTAB_STR, (off), 0, 0 }
+
+/* What the helps of the tools say of the units of values. */
+#define OPTAB_TEMPS	"Temperatures take a unit suffix: 10, 10C, 50F, " \
+	"283.15K (C without one).\n"
+#define OPTAB_DURATIONS	"Durations take 90, 90s, 15m, 2h, 1d.\n"
+
 struct optool {
 	const char *prog;	/* the tool's name */
 	const char *operands;	/* after the options: "[FILE ...]" */
@@ -55,6 +74,15 @@ struct optool {
 				   or NULL: the tool has no -v */
 };
 
+/*
+ * The description of a tool that reads FILE operands (the sample stream,
+ * or states; standard input when none) and has -v count what it read:
+ * PROG, the help's paragraph ABOUT, its EPILOGUE and the table OPTS.
+ */
+#define OPTOOL_FILES(prog, about, epilogue, opts) { (prog), \
+	"[FILE ...]", (about), (epilogue), (opts), \
+	"report counts on standard error" }
+
 struct optparse {
 	const struct optool *tool;
 	void *base;		/* the struct options are stored into */
@@ -62,7 +90,10 @@ struct optparse {
 	char shorts[2 * 64 + 2];
 };
 
-/* BASE: the struct the table's offsets point into (NULL: none). */
+/*
+ * BASE: the struct the table's offsets point into (NULL: none).  Names
+ * the program for messages (cw_setprog()) after the tool's table.
+ */
 void	optab_init(struct optparse *p, const struct optool *tool,
 	    void *base);
 /*
@@ -73,6 +104,19 @@ void	optab_init(struct optparse *p, const struct optool *tool,
  */
 int	optab_next(struct optparse *p, int argc, char *argv[]);
 void	optab_free(struct optparse *p);
+/*
+ * optab_init() on the first call, then optab_next(), and optab_free()
+ * when that returns -1: a tool's option loop, which keeps its state
+ * between calls as getopt_long(3) itself does.
+ */
+int	optab_getopt(const struct optool *tool, void *base, int argc,
+	    char *argv[]);
+/*
+ * The options of a tool whose table has no OPTAB_CASE entry, all stored
+ * into BASE: the index of the first operand.
+ */
+int	optab_parse(const struct optool *tool, void *base, int argc,
+	    char *argv[]);
 /* The help: synopsis, paragraph, every option with its default. */
 void	optab_help(FILE *fp, const struct optool *tool);
 

@@ -87,6 +87,9 @@ test_override_rule(void **state)
 	assert_true(fleet_capacity(f, "A", 1, 7.5) == 20);
 	assert_true(fleet_capacity(f, "B", 1, 7.5) == 7.5);
 	assert_true(fleet_capacity(f, "C", 1, 7.5) == 7.5);
+	/* No --fleet: no file read, no fleet, every value the option's. */
+	assert_null(fleet_load(NULL));
+	assert_true(fleet_capacity(NULL, "A", 1, 7.5) == 7.5);
 	assert_int_equal(fleet_cells(f, "A", 1, 13), 13);
 	assert_true(fleet_capacity(NULL, "A", 1, 3) == 3);
 	fleet_free(f);

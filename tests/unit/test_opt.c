@@ -28,8 +28,9 @@
 
 /* What the child should call. */
 struct call {
-	int what;	/* 'n' num, 'l' long, 't' temp, 'D' temperature
-			   difference, 'd' dur, 'L' list */
+	int what;	/* 'n' num, 'p' positive, 'o' open interval, 'l'
+			   long, 't' temp, 'D' temperature difference, 'd'
+			   dur, 'L' list */
 	const char *s;
 	double lo, hi;
 	int n, temp, nondec, zero_ok;
@@ -72,6 +73,12 @@ in_child(const struct call *c, char *err, size_t errsz)
 		switch (c->what) {
 		case 'n':
 			opt_num_arg("--x", c->s, c->lo, c->hi);
+			break;
+		case 'p':
+			opt_pos_arg("--x", c->s, c->hi);
+			break;
+		case 'o':
+			opt_open_arg("--x", c->s, c->lo, c->hi);
 			break;
 		case 'l':
 			opt_long_arg("--x", c->s, (long)c->lo, (long)c->hi);
@@ -287,6 +294,9 @@ test_args_ok(void **st)
 	(void)st;
 	near(opt_num_arg("--x", "0.5", 0, 1), 0.5);
 	near(opt_num_arg("--x", "1", 0, 1), 1);
+	near(opt_pos_arg("--x", "1e-9", 1), 1e-9);
+	near(opt_pos_arg("--x", "1", 1), 1);
+	near(opt_open_arg("--x", "0.95", 0.5, 1), 0.95);
 	assert_int_equal(opt_long_arg("--x", "42", 1, 100), 42);
 	assert_int_equal(opt_long_arg("--x", "-3", -5, 5), -3);
 	near(opt_temp_arg("--x", "50F"), 10);
@@ -340,6 +350,29 @@ test_args_bad(void **st)
 	usage_error(&c, "1.5 is outside 0..1");
 	c.s = "-0.1";
 	usage_error(&c, "-0.1 is outside 0..1");
+
+	/* Above 0: 0 itself passes the range, not the bound; -1 neither. */
+	c.what = 'p';
+	c.hi = 100;
+	c.s = "0";
+	usage_error(&c, "0 is not above 0");
+	c.s = "-0";
+	usage_error(&c, "-0 is not above 0");
+	c.s = "-1";
+	usage_error(&c, "-1 is outside 0..100");
+	c.s = "101";
+	usage_error(&c, "101 is outside 0..100");
+
+	/* Strictly between: either end is out, as is what lies beyond. */
+	c.what = 'o';
+	c.lo = 0.5;
+	c.hi = 1;
+	c.s = "0.5";
+	usage_error(&c, "0.5 is not between 0.5 and 1 (exclusive)");
+	c.s = "1";
+	usage_error(&c, "1 is not between 0.5 and 1 (exclusive)");
+	c.s = "2";
+	usage_error(&c, "2 is outside 0.5..1");
 
 	c.what = 'l';
 	c.lo = 1;

@@ -157,8 +157,11 @@ test_exits(void **state)
 
 /* Options that store themselves: the value checked and put in place. */
 struct conf {
-	double x;
+	double x, pos, open;
 	int n, flag;
+	long big;
+	unsigned long count;
+	size_t size;
 	cw_time gap;
 	const char *name;
 };
@@ -174,8 +177,18 @@ static const struct optab stored_opts[] = {
 	    offsetof(struct conf, gap), 0, 0 },
 	{ "name", 0, "S", "a name", NULL, OPTAB_LONG + 3, OPTAB_STR,
 	    offsetof(struct conf, name), 0, 0 },
+	{ "pos", 0, "X", "above 0", NULL, OPTAB_LONG + 4, OPTAB_POS,
+	    offsetof(struct conf, pos), 0, 100 },
+	{ "open", 0, "P", "strictly between", NULL, OPTAB_LONG + 5,
+	    OPTAB_OPEN, offsetof(struct conf, open), 0.5, 1 },
+	{ "big", 0, "N", "a long", NULL, OPTAB_LONG + 6, OPTAB_LONGINT,
+	    offsetof(struct conf, big), 1, 5000000000.0 },
+	{ "count", 0, "N", "an unsigned long", NULL, OPTAB_LONG + 7,
+	    OPTAB_ULONG, offsetof(struct conf, count), 2, 1e9 },
+	{ "size", 0, "N", "a size", NULL, OPTAB_LONG + 8, OPTAB_SIZE,
+	    offsetof(struct conf, size), 16, 1 << 24 },
 	{ "other", 'o', NULL, "handled by the caller", NULL, 0 },
-	{ NULL, 0, NULL, NULL, NULL, 0 }
+	OPTAB_END
 };
 
 static const struct optool stored_tool = {
@@ -186,7 +199,8 @@ static void
 test_stored(void **state)
 {
 	char *argv[] = { "cw-test", "--x", "2.5", "-n3", "--flag", "--gap",
-	    "2h", "--name=EB-1", "-o", NULL };
+	    "2h", "--name=EB-1", "-o", "--pos", "0.25", "--open", "0.95",
+	    "--big", "4000000000", "--count", "12", "--size", "2048", NULL };
 	struct optparse op;
 	struct conf c;
 
@@ -195,14 +209,42 @@ test_stored(void **state)
 	optind = 1;
 	optab_init(&op, &stored_tool, &c);
 	/* Only the caller's own option comes back. */
-	assert_int_equal(optab_next(&op, 9, argv), 'o');
-	assert_int_equal(optab_next(&op, 9, argv), -1);
+	assert_int_equal(optab_next(&op, 19, argv), 'o');
+	assert_int_equal(optab_next(&op, 19, argv), -1);
 	optab_free(&op);
 	assert_float_equal(c.x, 2.5, 0);
 	assert_int_equal(c.n, 3);
 	assert_int_equal(c.flag, 1);
 	assert_true(c.gap == 2 * 3600 * CW_US_PER_S);
 	assert_string_equal(c.name, "EB-1");
+	assert_float_equal(c.pos, 0.25, 0);
+	assert_float_equal(c.open, 0.95, 0);
+	assert_true(c.big == 4000000000L);
+	assert_int_equal(c.count, 12);
+	assert_int_equal(c.size, 2048);
+}
+
+/*
+ * optab_getopt(): the same loop without a struct optparse; its tables
+ * are made again for a second parse once the first has ended (-1).
+ */
+static void
+test_getopt(void **state)
+{
+	char *one[] = { "cw-test", "--x", "3", "-o", "FILE", NULL };
+	char *two[] = { "cw-test", "-n", "4", NULL };
+	struct conf c;
+
+	(void)state;
+	memset(&c, 0, sizeof(c));
+	optind = 1;
+	assert_int_equal(optab_getopt(&stored_tool, &c, 5, one), 'o');
+	assert_int_equal(optab_getopt(&stored_tool, &c, 5, one), -1);
+	assert_int_equal(optind, 4);
+	assert_float_equal(c.x, 3, 0);
+	optind = 1;
+	assert_int_equal(optab_parse(&stored_tool, &c, 3, two), 3);
+	assert_int_equal(c.n, 4);
 }
 
 /* A stored value out of its range is a usage error, exit 2. */
@@ -212,7 +254,12 @@ test_stored_bad(void **state)
 	char *big[] = { "cw-test", "--x", "11", NULL };
 	char *zero[] = { "cw-test", "-n", "0", NULL };
 	char *dur[] = { "cw-test", "--gap", "soon", NULL };
-	char **cases[] = { big, zero, dur };
+	char *pos[] = { "cw-test", "--pos", "0", NULL };
+	char *open0[] = { "cw-test", "--open", "0.5", NULL };
+	char *open1[] = { "cw-test", "--open", "1", NULL };
+	char *count[] = { "cw-test", "--count", "1", NULL };
+	char *size[] = { "cw-test", "--size", "2.5", NULL };
+	char **cases[] = { big, zero, dur, pos, open0, open1, count, size };
 	struct optparse op;
 	struct conf c;
 	size_t i;
@@ -220,7 +267,7 @@ test_stored_bad(void **state)
 	int st;
 
 	(void)state;
-	for (i = 0; i < 3; i++) {
+	for (i = 0; i < sizeof(cases) / sizeof(cases[0]); i++) {
 		fflush(NULL);
 		pid = fork();
 		assert_true(pid >= 0);
@@ -295,6 +342,7 @@ main(void)
 		cmocka_unit_test(test_exits),
 		cmocka_unit_test(test_stored),
 		cmocka_unit_test(test_stored_bad),
+		cmocka_unit_test(test_getopt),
 		cmocka_unit_test(test_verbose),
 	};
 
