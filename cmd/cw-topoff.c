@@ -350,9 +350,7 @@ main(int argc, char *argv[])
 	    &t);
 	/* Holds still open end with the stream, in name order. */
 	rc = glue_run(&g, argv + k, argc - k, end_dev, &t);
-	if (cw_verbose)
-		report(g.devs, &g.st);
-	rc = glue_close(&g, rc);
+	rc = glue_finish(&g, rc, report);
 	fleet_free(t.fleet);
 	return rc;
 }

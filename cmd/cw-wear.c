@@ -97,18 +97,20 @@ static const struct optab opts[] = {
 	    "efc_prior, capacity_ah per pack", NULL, OPT_FLEET,
 	    OPTAB_STR, R(fleet_path), 0, 0 },
 	{ "full", 0, "PCT", "near full at PCT % SoC or more", "95",
-	    OPT_FULL },
+	    OPT_FULL, OPTAB_NUM | OPTAB_TELL, R(conf.topoff.full_pct), 0, 100 },
 	{ "full-voltage", 0, "V", "judge rows without SoC by voltage", NULL,
-	    OPT_FULL_VOLTAGE },
+	    OPT_FULL_VOLTAGE, OPTAB_NUM | OPTAB_TELL, R(conf.topoff.full_v),
+	    1e-3, 1e6 },
 	{ "hysteresis", 0, "PCT", "rainflow ignores smaller reversals", "1",
-	    OPT_HYSTERESIS },
+	    OPT_HYSTERESIS, OPTAB_NUM | OPTAB_TELL, R(conf.hysteresis), 0,
+	    100 },
 	{ "limits", 0, "T1,T2,T3,T4", "the zone thresholds", "0,10,45,60",
 	    OPT_LIMITS },
 	{ "lock-wait", 0, "DUR", "wait so long for another run on the "
 	    "--state FILE", "1h; 0: refuse at once", OPT_LOCK_WAIT,
 	    OPTAB_DUR, R(lock_wait), -1, 0 },
 	{ "max-gap", 0, "DUR", "a longer interval carries no charge", "15m",
-	    OPT_MAX_GAP },
+	    OPT_MAX_GAP, OPTAB_DUR | OPTAB_TELL, R(conf.max_gap), 0, 0 },
 	{ "measured", 0, "FILE", "add measured_fade_pct and model_error_pct "
 	    "from a cw-capacity --trend output", NULL, OPT_MEASURED,
 	    OPTAB_STR, R(measured), 0, 0 },
@@ -116,9 +118,11 @@ static const struct optab opts[] = {
 	    OPT_MERGE,
 	    OPTAB_FLAG, R(merge), 0, 0 },
 	{ "min-current", 0, "A", "charging above A, idle below", "0.05",
-	    OPT_MIN_CURRENT },
+	    OPT_MIN_CURRENT, OPTAB_NUM | OPTAB_TELL, R(conf.min_current), 0,
+	    1e6 },
 	{ "min-depth", 0, "PCT", "the smallest top-off micro-cycle", "0.5",
-	    OPT_MIN_DEPTH },
+	    OPT_MIN_DEPTH, OPTAB_NUM | OPTAB_TELL, R(conf.topoff.min_depth),
+	    1e-6, 100 },
 	{ "model", 0, "NAME", "the degradation model", "xu2018", OPT_MODEL },
 	OPTAB_OUTPUT(R(out)),
 	{ "partition", 0, NULL, "with --merge, standard input holds the "
@@ -496,6 +500,28 @@ exists(const char *path)
 }
 
 /*
+ * The WSTATE_SET_* bit of a setting a state keeps (stored by the table,
+ * OPTAB_TELL), so that the state notes it was given; 0 for the others.
+ */
+static unsigned
+given(int id)
+{
+	static const int bit[][2] = {
+		{ OPT_FULL, WSTATE_SET_FULL }, { OPT_HYSTERESIS,
+		WSTATE_SET_HYSTERESIS }, { OPT_FULL_VOLTAGE,
+		WSTATE_SET_FULL_VOLTAGE }, { OPT_MAX_GAP, WSTATE_SET_MAX_GAP },
+		{ OPT_MIN_CURRENT, WSTATE_SET_MIN_CURRENT }, { OPT_MIN_DEPTH,
+		WSTATE_SET_MIN_DEPTH }
+	};
+	size_t i;
+
+	for (i = 0; i < sizeof(bit) / sizeof(bit[0]); i++)
+		if (bit[i][0] == id)
+			return (unsigned)bit[i][1];
+	return 0;
+}
+
+/*
  * The options into R; the index of the first operand.  Exits 2 on a
  * usage error.
  */
@@ -508,41 +534,10 @@ parse(struct run *r, int argc, char *argv[])
 	r->lock_wait = LOCK_WAIT_DEFAULT;
 	while ((ch = optab_getopt(&tool, r, argc, argv)) != -1) {
 		switch (ch) {
-		case OPT_FULL:
-			r->conf.topoff.full_pct = opt_num_arg("--full", optarg,
-			    0, 100);
-			r->fixed |= WSTATE_SET_FULL;
-			break;
-		case OPT_FULL_VOLTAGE:
-			r->conf.topoff.full_v = opt_num_arg("--full-voltage",
-			    optarg, 1e-3, 1e6);
-			r->fixed |= WSTATE_SET_FULL_VOLTAGE;
-			break;
-		case OPT_HYSTERESIS:
-			r->conf.hysteresis = opt_num_arg("--hysteresis",
-			    optarg, 0, 100);
-			r->fixed |= WSTATE_SET_HYSTERESIS;
-			break;
 		case OPT_LIMITS:
 			opt_list_arg("--limits", optarg, r->conf.lim.t, 4, 1,
 			    1);
 			r->fixed |= WSTATE_SET_LIMITS;
-			break;
-		case OPT_MAX_GAP:
-			r->conf.max_gap = opt_dur_arg("--max-gap", optarg, 0);
-			r->conf.topoff.max_gap = r->conf.max_gap;
-			r->fixed |= WSTATE_SET_MAX_GAP;
-			break;
-		case OPT_MIN_CURRENT:
-			r->conf.min_current = opt_num_arg("--min-current",
-			    optarg, 0, 1e6);
-			r->conf.topoff.min_current = r->conf.min_current;
-			r->fixed |= WSTATE_SET_MIN_CURRENT;
-			break;
-		case OPT_MIN_DEPTH:
-			r->conf.topoff.min_depth = opt_num_arg("--min-depth",
-			    optarg, 1e-6, 100);
-			r->fixed |= WSTATE_SET_MIN_DEPTH;
 			break;
 		case OPT_MODEL:
 			r->conf.model = model_find(optarg);
@@ -561,8 +556,15 @@ parse(struct run *r, int argc, char *argv[])
 				cw_usage_error("--state needs a file name");
 			r->state = optarg;
 			break;
+		default:
+			r->fixed |= given(ch);
 		}
 	}
+	/* The top-off engine counts charge by the same gap and current. */
+	if (r->fixed & WSTATE_SET_MAX_GAP)
+		r->conf.topoff.max_gap = r->conf.max_gap;
+	if (r->fixed & WSTATE_SET_MIN_CURRENT)
+		r->conf.topoff.min_current = r->conf.min_current;
 	if (r->state != NULL && r->out != NULL && strcmp(r->out, "-") != 0 &&
 	    outf_same(r->state, r->out))
 		cw_usage_error("--state and -o name the same file");

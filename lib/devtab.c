@@ -250,8 +250,8 @@ devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
 	if (t->count >= UINT32_MAX - 1)
 		cw_die(CW_EXIT_DATA, "more than %lu devices",
 		    (unsigned long)UINT32_MAX - 2);
-	if (t->count == 0 || t->count >= DEVTAB_FIRST && (t->count &
-	    (t->count - 1)) == 0 || t->count % DEVTAB_BLOCK == 0) {
+	if (t->count == 0 || (t->count >= DEVTAB_FIRST && (t->count &
+	    (t->count - 1)) == 0) || t->count % DEVTAB_BLOCK == 0) {
 		/* Entry COUNT starts a block: as large as the entries so far
 		 * (DEVTAB_FIRST for the first), at most DEVTAB_BLOCK. */
 		size_t n = t->count < DEVTAB_FIRST ? DEVTAB_FIRST :

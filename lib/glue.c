@@ -109,6 +109,15 @@ glue_close(struct glue *g, int rc)
 	return rc;
 }
 
+int
+glue_finish(struct glue *g, int rc, void (*report)(const struct devtab *,
+    const struct sampin_stats *))
+{
+	if (cw_verbose)
+		report(g->devs, &g->st);
+	return glue_close(g, rc);
+}
+
 void
 glue_event(struct csvout *w, const struct devent *e, const char *kind,
     const char *where, cw_time start, cw_time end, double lo, double hi,

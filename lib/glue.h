@@ -75,6 +75,12 @@ void	**glue_sorted(const struct glue *g, size_t *n);
  * the writer and the devices' table are freed.  Returns the exit status.
  */
 int	glue_close(struct glue *g, int rc);
+/*
+ * glue_close() after the run, with -v first telling REPORT the devices
+ * and what the reader counted: the one ending of a tool that reports.
+ */
+int	glue_finish(struct glue *g, int rc, void (*report)(const struct devtab *,
+	    const struct sampin_stats *));
 
 /*
  * The columns an event row of cw-thermal and cw-volt begins with, for

@@ -100,7 +100,7 @@ store(const struct optab *o, void *base, const char *v)
 	char *at = (char *)base + o->off, name[64];
 
 	snprintf(name, sizeof(name), "--%s", o->name);
-	switch (o->kind) {
+	switch (o->kind & ~OPTAB_TELL) {
 	case OPTAB_NUM:
 		*(double *)(void *)at = opt_num_arg(name, v, o->lo, o->hi);
 		break;
@@ -183,6 +183,8 @@ optab_next(struct optparse *p, int argc, char *argv[])
 		if ((o = stored(p, ch)) == NULL)
 			return ch;
 		store(o, p->base, optarg);
+		if (o->kind & OPTAB_TELL)
+			return ch;
 	}
 }
 

@@ -37,6 +37,12 @@ enum optab_kind {
 	OPTAB_ULONG,	/* unsigned long, opt_long_arg(LO >= 0, HI) */
 	OPTAB_SIZE	/* size_t, opt_long_arg(LO >= 0, HI) */
 };
+/*
+ * OR'ed into a kind other than OPTAB_CASE: the value is stored and the
+ * option's id is then handed back too, for a caller that notes which
+ * options were given (cw-wear's settings kept in a state).
+ */
+#define OPTAB_TELL 0x100
 
 struct optab {
 	const char *name;	/* long name without "--"; NULL ends a table */
@@ -100,7 +106,8 @@ void	optab_init(struct optparse *p, const struct optool *tool,
  * The next option's id (its letter, or its table id), with optarg set
  * for one that takes a value; -1 at the end, with optind at the first
  * operand.  Prints the help or the version and exits for those; stores
- * the options of a kind other than OPTAB_CASE and goes on.
+ * the options of a kind other than OPTAB_CASE and goes on (returns
+ * their id after storing them when the kind has OPTAB_TELL).
  */
 int	optab_next(struct optparse *p, int argc, char *argv[]);
 void	optab_free(struct optparse *p);

@@ -224,6 +224,43 @@ test_stored(void **state)
 	assert_int_equal(c.size, 2048);
 }
 
+/* OPTAB_TELL: the value is stored, and its id comes back to the caller. */
+static const struct optab tell_opts[] = {
+	{ "x", 0, "X", "a number", "1", OPTAB_LONG, OPTAB_NUM | OPTAB_TELL,
+	    offsetof(struct conf, x), 0, 10 },
+	{ "gap", 0, "DUR", "a duration", "15m", OPTAB_LONG + 2,
+	    OPTAB_DUR | OPTAB_TELL, offsetof(struct conf, gap), 0, 0 },
+	{ "n", 'n', "N", "a count", "2", 0, OPTAB_INT,
+	    offsetof(struct conf, n), 1, 5 },
+	OPTAB_END
+};
+
+static const struct optool tell_tool = {
+	"cw-test", NULL, NULL, NULL, tell_opts
+};
+
+static void
+test_tell(void **state)
+{
+	char *argv[] = { "cw-test", "-n", "2", "--x", "7.5", "--gap", "90s",
+	    NULL };
+	struct optparse op;
+	struct conf c;
+
+	(void)state;
+	memset(&c, 0, sizeof(c));
+	optind = 1;
+	optab_init(&op, &tell_tool, &c);
+	/* -n is stored quietly; --x is stored before its id comes back. */
+	assert_int_equal(optab_next(&op, 7, argv), OPTAB_LONG);
+	assert_int_equal(c.n, 2);
+	assert_float_equal(c.x, 7.5, 0);
+	assert_int_equal(optab_next(&op, 7, argv), OPTAB_LONG + 2);
+	assert_true(c.gap == 90 * CW_US_PER_S);
+	assert_int_equal(optab_next(&op, 7, argv), -1);
+	optab_free(&op);
+}
+
 /*
  * optab_getopt(): the same loop without a struct optparse; its tables
  * are made again for a second parse once the first has ended (-1).
@@ -342,6 +379,7 @@ main(void)
 		cmocka_unit_test(test_exits),
 		cmocka_unit_test(test_stored),
 		cmocka_unit_test(test_stored_bad),
+		cmocka_unit_test(test_tell),
 		cmocka_unit_test(test_getopt),
 		cmocka_unit_test(test_verbose),
 	};
