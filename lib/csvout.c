@@ -14,7 +14,8 @@
 #include "csvout.h"
 #include "ts.h"
 
-#define CSVOUT_BUFSZ (256 * 1024)
+#define CSVOUT_BUFSZ (256 * 1024)	/* handed to stdio at once */
+#define CSVOUT_FIRST 4096		/* the buffer's first size */
 #define CSVOUT_SIG 10		/* significant digits written at most */
 
 static const double p10[] = {
@@ -31,7 +32,8 @@ csvout_init(struct csvout *w, FILE *fp)
 {
 	memset(w, 0, sizeof(*w));
 	w->fp = fp;
-	w->cap = CSVOUT_BUFSZ;
+	/* Small at first: a short output never pays for the full block. */
+	w->cap = CSVOUT_FIRST;
 	w->buf = cw_malloc(w->cap);
 }
 
@@ -61,17 +63,31 @@ csvout_flush(struct csvout *w)
 	return w->err ? -1 : 0;
 }
 
-/* Room for N more bytes, flushing whole rows already built. */
+/*
+ * Room for N more bytes: the buffer doubles up to CSVOUT_BUFSZ, then what
+ * is built is handed to stdio.
+ */
 static void
 reserve(struct csvout *w, size_t n)
 {
 	if (w->n + n <= w->cap)
 		return;
+	if (w->cap < CSVOUT_BUFSZ) {
+		size_t cap = w->cap;
+
+		while (cap < CSVOUT_BUFSZ && cap < w->n + n)
+			cap *= 2;
+		if (w->n + n <= cap) {
+			w->cap = cap;
+			w->buf = cw_realloc(w->buf, w->cap);
+			return;
+		}
+	}
 	if (w->n > 0 && !w->err && fwrite(w->buf, 1, w->n, w->fp) != w->n)
 		failed(w);
 	w->n = 0;
 	if (n > w->cap) {
-		w->cap = n;
+		w->cap = n > CSVOUT_BUFSZ ? n : CSVOUT_BUFSZ;
 		w->buf = cw_realloc(w->buf, w->cap);
 	}
 }
