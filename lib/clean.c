@@ -94,9 +94,11 @@ struct run {
 	struct devtab *scan_devs;
 	/*
 	 * Unit plausibility of this file (units_add(), units_check()): the
-	 * first CLEAN_UNIT_ROWS values of each, in one block made by the
-	 * first value (uv) and kept for the run's files.
+	 * first CLEAN_UNIT_ROWS values of each, in one block of UCAP values
+	 * each (uv), made by the first value and grown to CLEAN_UNIT_ROWS,
+	 * kept for the run's files.
 	 */
+	int ucap;
 	double *uv;		/* voltage, V as assumed */
 	double *ui;		/* |current|, A as assumed */
 	double *uiv;		/* its pack voltage */
@@ -347,11 +349,31 @@ pct(double *v, int n, double p)
 static void
 units_add(struct run *r, int f, double x)
 {
-	if (r->uv == NULL) {
-		r->uv = cw_malloc(4 * CLEAN_UNIT_ROWS * sizeof(*r->uv));
-		r->ui = r->uv + CLEAN_UNIT_ROWS;
-		r->uiv = r->ui + CLEAN_UNIT_ROWS;
-		r->ut = r->uiv + CLEAN_UNIT_ROWS;
+	int most = r->u.nv > r->u.ni ? r->u.nv : r->u.ni;
+
+	if (r->u.nt > most)
+		most = r->u.nt;
+	if (most >= r->ucap && r->ucap < CLEAN_UNIT_ROWS) {
+		/* Room for the next value of each: the block doubles. */
+		int cap = r->ucap > 0 ? 2 * r->ucap : 64;
+		double *b;
+
+		if (cap > CLEAN_UNIT_ROWS)
+			cap = CLEAN_UNIT_ROWS;
+		b = cw_malloc(4 * (size_t)cap * sizeof(*b));
+		if (r->uv != NULL) {
+			memcpy(b, r->uv, (size_t)r->u.nv * sizeof(*b));
+			memcpy(b + cap, r->ui, (size_t)r->u.ni * sizeof(*b));
+			memcpy(b + 2 * cap, r->uiv, (size_t)r->u.ni *
+			    sizeof(*b));
+			memcpy(b + 3 * cap, r->ut, (size_t)r->u.nt * sizeof(*b));
+			free(r->uv);
+		}
+		r->uv = b;
+		r->ui = b + cap;
+		r->uiv = b + 2 * cap;
+		r->ut = b + 3 * cap;
+		r->ucap = cap;
 	}
 	switch (f) {
 	case CM_VOLTAGE:

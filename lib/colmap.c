@@ -42,7 +42,7 @@ canonical(int f)
  * header ("pack_voltage"); a WHOLE one only as the whole name ("pack"),
  * because it is too common a part of other names ("battery_temp" is no
  * device).  Every word is lower-case letters, as normalise() leaves a
- * header, and is found through a hash table (nameword_find()).
+ * header, and is found through a hash table (key_find()).
  */
 struct nameword {
 	const char *word;
@@ -143,8 +143,11 @@ struct cand {
 };
 
 static size_t normalise(const char *, char *, size_t);
-static const struct nameword *nameword_find(const char *, size_t);
-static void score_col(const char *, size_t, int *, int *);
+struct key;
+static void key_make(size_t, struct key *);
+static int key_find(unsigned, const char *, size_t, int);
+static unsigned key_field(int);
+static int score_col(const char *, size_t, int *, int *);
 
 const char *
 colmap_unit_name(int unit)
@@ -255,104 +258,149 @@ normalise(const char *h, char *out, size_t cap)
 }
 
 /*
- * The name word W[0..N), or NULL.  Looked up in a hash table of the
- * words, built by the first call (the tools resolve headers on their
- * main thread only): one probe or two for a header's word, where a scan
- * of the list cost a comparison per word.
+ * The words a normalised header is made of, found through one hash
+ * table built by the first call (the tools resolve headers on their main
+ * thread only): the name words, the unit words and the canonical names,
+ * keys 0.. in that order.  A header's column costs one pass over its
+ * name and a probe or two per word, where scanning the lists cost a
+ * comparison per listed word.
  */
-#define NWSLOTS 256	/* more than twice the words: short probes */
-typedef char colmap_words_fit_the_slots[NNAMEWORDS < 255 &&
-    2 * NNAMEWORDS < NWSLOTS ? 1 : -1];
+enum { K_WORD = 1, K_WHOLE = 2, K_UNIT = 4, K_CANON = 8 };
+#define NKEYS (NNAMEWORDS + NUNITS + CM_NFIELD)
+#define NSLOTS 256	/* more than twice the keys: short probes */
+#define FNV_INIT 2166136261u
+#define FNV_STEP(h, c) (((h) ^ (unsigned char)(c)) * 16777619u)
+typedef char colmap_keys_fit_the_slots[NKEYS < 255 && 2 * NKEYS < NSLOTS ?
+    1 : -1];
 
-static unsigned
-nw_hash(const char *w, size_t n)
+/* A key as the table holds it. */
+struct key {
+	const char *word;
+	size_t len;
+	int kind;
+};
+
+static void
+key_make(size_t k, struct key *e)
 {
-	unsigned h = 2166136261u;
-	size_t i;
-
-	for (i = 0; i < n; i++)
-		h = (h ^ (unsigned char)w[i]) * 16777619u;
-	return h & (NWSLOTS - 1);
+	if (k < NNAMEWORDS) {
+		e->kind = namewords[k].whole ? K_WHOLE : K_WORD;
+		e->word = namewords[k].word;
+		e->len = namewords[k].len;
+	} else if (k < NNAMEWORDS + NUNITS) {
+		e->kind = K_UNIT;
+		e->word = units[k - NNAMEWORDS].word;
+		e->len = units[k - NNAMEWORDS].len;
+	} else {
+		e->kind = K_CANON;
+		e->word = canonical((int)(k - NNAMEWORDS - NUNITS));
+		e->len = strlen(e->word);
+	}
 }
 
-static const struct nameword *
-nameword_find(const char *w, size_t n)
+/* The key of kind in KINDS spelt W[0..N), whose hash is H; -1 if none. */
+static int
+key_find(unsigned h, const char *w, size_t n, int kinds)
 {
-	static unsigned char slot[NWSLOTS];	/* word index + 1, 0 empty */
+	static struct key keys[NKEYS];
+	static unsigned char slot[NSLOTS];	/* key + 1, 0 empty */
 	static int built;
-	const struct nameword *e;
-	unsigned h;
+	const struct key *e;
 	size_t k;
 
 	if (!built) {
-		for (k = 0; k < NNAMEWORDS; k++) {
-			for (h = nw_hash(namewords[k].word, namewords[k].len);
-			    slot[h] != 0; h = (h + 1) & (NWSLOTS - 1))
+		for (k = 0; k < NKEYS; k++) {
+			unsigned kh = FNV_INIT;
+			size_t i;
+
+			key_make(k, &keys[k]);
+			for (i = 0; i < keys[k].len; i++)
+				kh = FNV_STEP(kh, keys[k].word[i]);
+			for (kh &= NSLOTS - 1; slot[kh] != 0;
+			    kh = (kh + 1) & (NSLOTS - 1))
 				;
-			slot[h] = (unsigned char)(k + 1);
+			slot[kh] = (unsigned char)(k + 1);
 		}
 		built = 1;
 	}
-	for (h = nw_hash(w, n); slot[h] != 0; h = (h + 1) & (NWSLOTS - 1)) {
-		e = &namewords[slot[h] - 1];
-		if (e->len == n && memcmp(e->word, w, n) == 0)
-			return e;
+	for (h &= NSLOTS - 1; slot[h] != 0; h = (h + 1) & (NSLOTS - 1)) {
+		e = &keys[slot[h] - 1];
+		if ((e->kind & kinds) && e->len == n &&
+		    memcmp(e->word, w, n) == 0)
+			return slot[h] - 1;
 	}
-	return NULL;
+	return -1;
+}
+
+/* The field a name word names, as a bit; 0 when K is none. */
+static unsigned
+key_field(int k)
+{
+	return k >= 0 ? 1u << namewords[k].field : 0;
 }
 
 /*
  * How well the normalised header NAME[0..LEN) fits each field, into
  * SC[f]: 100 canonical, 60 the whole name is a synonym, 50 a word is,
  * 30 only the unit says so; 0 not at all.  UNIT[f] gets the unit its
- * suffix names for that field.  A last word that names a unit is taken
- * off the name first, and a unit of another field scores 0.
+ * suffix names for that field.  A last word (after a '_') that names a
+ * unit is taken off the name first, and a unit of another field scores
+ * 0.  Returns 0 when no field scores (SC and UNIT then untouched).
  */
-static void
+static int
 score_col(const char *name, size_t len, int *sc, int *unit)
 {
 	static const int canonical_unit[CM_NFIELD] = {
 		CMU_NONE, CMU_NONE, CMU_V, CMU_A, CMU_C, CMU_PCT, CMU_NONE
 	};
-	const struct nameword *e;
 	char joined[256];
-	unsigned whole = 0, words = 0;
-	size_t i, n, wlen = len, start;
-	int f, uf = -1, uu = CMU_NONE;
+	unsigned nh = FNV_INIT, jh = FNV_INIT, th = FNV_INIT, jh_cut = 0;
+	unsigned whole, words = 0, words_cut = 0;
+	size_t i, jn = 0, jn_cut = 0, start = 0;
+	int f, k, canon = -1, cut = 0, uf = -1, uu = CMU_NONE;
 
-	/* The unit word after the last '_', if it is one. */
-	for (i = len; i > 0 && name[i - 1] != '_'; i--)
-		;
-	if (i > 0) {
-		for (n = 0; n < NUNITS; n++)
-			if (units[n].len == len - i &&
-			    memcmp(name + i, units[n].word, len - i) == 0) {
-				uf = units[n].field;
-				uu = units[n].unit;
-				wlen = i - 1;
-				break;
-			}
-	}
-	/* The name's words without the unit: joined, then each. */
-	for (n = 0, i = 0; i < wlen; i++)
-		if (name[i] != '_')
-			joined[n++] = name[i];
-	if (n > 0 && (e = nameword_find(joined, n)) != NULL)
-		whole = 1u << e->field;
-	for (start = 0, i = 0; i <= wlen; i++)
-		if (i == wlen || name[i] == '_') {
-			if (i > start &&
-			    (e = nameword_find(name + start, i - start)) !=
-			    NULL && !e->whole)
-				words |= 1u << e->field;
-			start = i + 1;
+	/*
+	 * One pass: the name's hash, its words (each looked up), and the
+	 * name without '_' (joined); the state at the last '_' is what is
+	 * left when the last word is a unit.
+	 */
+	for (i = 0; i < len; i++) {
+		nh = FNV_STEP(nh, name[i]);
+		if (name[i] != '_') {
+			jh = FNV_STEP(jh, name[i]);
+			th = FNV_STEP(th, name[i]);
+			joined[jn++] = name[i];
+			continue;
 		}
+		if (i > start)
+			words |= key_field(key_find(th, name + start,
+			    i - start, K_WORD));
+		cut = 1;
+		words_cut = words;
+		jh_cut = jh;
+		jn_cut = jn;
+		th = FNV_INIT;
+		start = i + 1;
+	}
+	if ((k = key_find(nh, name, len, K_CANON)) >= 0)
+		canon = k - (int)(NNAMEWORDS + NUNITS);
+	if (cut && (k = key_find(th, name + start, len - start, K_UNIT)) >= 0) {
+		uf = units[k - (int)NNAMEWORDS].field;
+		uu = units[k - (int)NNAMEWORDS].unit;
+		words = words_cut;
+		jh = jh_cut;
+		jn = jn_cut;
+	} else if (len > start)
+		words |= key_field(key_find(th, name + start, len - start,
+		    K_WORD));
+	whole = jn > 0 ? key_field(key_find(jh, joined, jn, K_WORD |
+	    K_WHOLE)) : 0;
+	if (canon < 0 && uf < 0 && whole == 0 && words == 0)
+		return 0;
 	for (f = 0; f < CM_NFIELD; f++) {
-		const char *cn = canonical(f);
-
 		sc[f] = 0;
 		unit[f] = CMU_NONE;
-		if (cn[0] == name[0] && strcmp(cn, name) == 0) {
+		if (f == canon) {
 			sc[f] = 100;
 			unit[f] = canonical_unit[f];
 			continue;
@@ -368,6 +416,7 @@ score_col(const char *name, size_t len, int *sc, int *unit)
 		else if (uf == f && f != CM_TIME)
 			sc[f] = 30;
 	}
+	return 1;
 }
 
 int
@@ -378,7 +427,7 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
 	struct cand stack[64], *cand = stack;
 	size_t ccap = sizeof(stack) / sizeof(stack[0]), nc = 0, j, lv;
 	char norm[256];
-	int f;
+	int f, nspec = 0;
 	size_t i;
 
 	for (f = 0; f < CM_NFIELD; f++) {
@@ -386,6 +435,7 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
 		m->unit[f] = s->unit[f];
 		if (s->header[f] == NULL)
 			continue;
+		nspec++;
 		m->col[f] = csvin_find(h, s->header[f]);
 		if (m->col[f] < 0)
 			for (i = 0; i < h->nf; i++)
@@ -405,13 +455,14 @@ colmap_resolve(const struct colmap_spec *s, const struct csvin_rec *h,
 		int sc[CM_NFIELD], un[CM_NFIELD], used = 0;
 		size_t len;
 
-		for (f = 0; f < CM_NFIELD; f++)
+		for (f = 0; nspec > 0 && f < CM_NFIELD; f++)
 			if (m->col[f] == (int)i)
 				used = 1;
 		if (used)
 			continue;
 		len = normalise(h->f[i], norm, sizeof(norm));
-		score_col(norm, len, sc, un);
+		if (!score_col(norm, len, sc, un))
+			continue;
 		for (f = 0; f < CM_NFIELD; f++) {
 			if (sc[f] == 0 || s->header[f] != NULL)
 				continue;

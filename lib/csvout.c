@@ -104,12 +104,16 @@ sep(struct csvout *w)
 void
 csvout_strn(struct csvout *w, const char *s, size_t n)
 {
-	size_t i, q = 0;
+	/* The bytes that make a field quoted: one look-up a byte. */
+	static const unsigned char quoted[256] = {
+		[','] = 1, ['"'] = 1, ['\n'] = 1, ['\r'] = 1
+	};
+	size_t i;
+	unsigned q = 0;
 
 	sep(w);
 	for (i = 0; i < n; i++)
-		if (s[i] == ',' || s[i] == '"' || s[i] == '\n' || s[i] == '\r')
-			q = 1;
+		q |= quoted[(unsigned char)s[i]];
 	if (!q) {
 		reserve(w, n);
 		memcpy(w->buf + w->n, s, n);
