@@ -435,8 +435,13 @@ units_check(struct run *r)
 				    r->u.hdr[CM_VOLTAGE]);
 		}
 		if (med > c->hi[CM_VOLTAGE] && med / vscale > 5.0) {
-			int n1 = (int)ceil(hi / vscale / 4.25);
-			int n2 = (int)floor(lo / vscale / 2.5);
+			/* Counts kept within int: a value of 1e300 V is no
+			 * pack, but must not overflow the conversion. */
+			double c1 = fmin(fmax(ceil(hi / vscale / 4.25), -1e9),
+			    1e9);
+			double c2 = fmin(fmax(floor(lo / vscale / 2.5), -1e9),
+			    1e9);
+			int n1 = (int)c1, n2 = (int)c2;
 			char cells[48], fix[128];
 
 			if (n2 > n1)
