@@ -92,12 +92,18 @@ struct run {
 	unsigned long scan_rows, agree, disagree;
 	int scan_by_v;		/* no SoC column: by voltage */
 	struct devtab *scan_devs;
-	/* Unit plausibility of this file (units_add(), units_check()). */
+	/*
+	 * Unit plausibility of this file (units_add(), units_check()): the
+	 * first CLEAN_UNIT_ROWS values of each, in one block of UCAP values
+	 * each (uv), made by the first value and grown to CLEAN_UNIT_ROWS,
+	 * kept for the run's files.
+	 */
+	int ucap;
+	double *uv;		/* voltage, V as assumed */
+	double *ui;		/* |current|, A as assumed */
+	double *uiv;		/* its pack voltage */
+	double *ut;		/* temperature, C as assumed */
 	struct {
-		double v[CLEAN_UNIT_ROWS];	/* voltage, V as assumed */
-		double i[CLEAN_UNIT_ROWS];	/* |current|, A as assumed */
-		double iv[CLEAN_UNIT_ROWS];	/* its pack voltage */
-		double t[CLEAN_UNIT_ROWS];	/* temperature, C as assumed */
 		int nv, ni, nt, nint;	/* nint: whole-number currents */
 		int done;
 		char src[256];
@@ -343,22 +349,48 @@ pct(double *v, int n, double p)
 static void
 units_add(struct run *r, int f, double x)
 {
+	int most = r->u.nv > r->u.ni ? r->u.nv : r->u.ni;
+
+	if (r->u.nt > most)
+		most = r->u.nt;
+	if (most >= r->ucap && r->ucap < CLEAN_UNIT_ROWS) {
+		/* Room for the next value of each: the block doubles. */
+		int cap = r->ucap > 0 ? 2 * r->ucap : 64;
+		double *b;
+
+		if (cap > CLEAN_UNIT_ROWS)
+			cap = CLEAN_UNIT_ROWS;
+		b = cw_malloc(4 * (size_t)cap * sizeof(*b));
+		if (r->uv != NULL) {
+			memcpy(b, r->uv, (size_t)r->u.nv * sizeof(*b));
+			memcpy(b + cap, r->ui, (size_t)r->u.ni * sizeof(*b));
+			memcpy(b + 2 * cap, r->uiv, (size_t)r->u.ni *
+			    sizeof(*b));
+			memcpy(b + 3 * cap, r->ut, (size_t)r->u.nt * sizeof(*b));
+			free(r->uv);
+		}
+		r->uv = b;
+		r->ui = b + cap;
+		r->uiv = b + 2 * cap;
+		r->ut = b + 3 * cap;
+		r->ucap = cap;
+	}
 	switch (f) {
 	case CM_VOLTAGE:
 		if (r->u.nv < CLEAN_UNIT_ROWS)
-			r->u.v[r->u.nv++] = x;
+			r->uv[r->u.nv++] = x;
 		break;
 	case CM_CURRENT:
 		/* Rests say nothing of the unit. */
 		if (r->u.ni < CLEAN_UNIT_ROWS && x != 0 && r->u.nv > 0) {
-			r->u.iv[r->u.ni] = r->u.v[r->u.nv - 1];
-			r->u.i[r->u.ni++] = fabs(x);
+			r->uiv[r->u.ni] = r->uv[r->u.nv - 1];
+			r->ui[r->u.ni++] = fabs(x);
 			r->u.nint += x == floor(x);
 		}
 		break;
 	case CM_TEMP:
 		if (r->u.nt < CLEAN_UNIT_ROWS)
-			r->u.t[r->u.nt++] = x;
+			r->ut[r->u.nt++] = x;
 		break;
 	}
 	if (r->u.nv == CLEAN_UNIT_ROWS && r->u.ni == CLEAN_UNIT_ROWS &&
@@ -389,9 +421,9 @@ units_check(struct run *r)
 		return;
 	r->u.done = 1;
 	if (r->u.nv >= CLEAN_UNIT_MIN) {
-		lo = pct(r->u.v, r->u.nv, 0.01);
-		hi = pct(r->u.v, r->u.nv, 0.99);
-		vmed = med = pct(r->u.v, r->u.nv, 0.5);
+		lo = pct(r->uv, r->u.nv, 0.01);
+		hi = pct(r->uv, r->u.nv, 0.99);
+		vmed = med = pct(r->uv, r->u.nv, 0.5);
 		if (med > c->hi[CM_VOLTAGE] && med >= 1000 &&
 		    r->u.unit[CM_VOLTAGE] == CMU_V) {
 			vscale = 1000;
@@ -403,8 +435,13 @@ units_check(struct run *r)
 				    r->u.hdr[CM_VOLTAGE]);
 		}
 		if (med > c->hi[CM_VOLTAGE] && med / vscale > 5.0) {
-			int n1 = (int)ceil(hi / vscale / 4.25);
-			int n2 = (int)floor(lo / vscale / 2.5);
+			/* Counts kept within int: a value of 1e300 V is no
+			 * pack, but must not overflow the conversion. */
+			double c1 = fmin(fmax(ceil(hi / vscale / 4.25), -1e9),
+			    1e9);
+			double c2 = fmin(fmax(floor(lo / vscale / 2.5), -1e9),
+			    1e9);
+			int n1 = (int)c1, n2 = (int)c2;
 			char cells[48], fix[128];
 
 			if (n2 > n1)
@@ -430,11 +467,11 @@ units_check(struct run *r)
 		double per_v, p90;
 
 		for (k = 0; k < r->u.ni; k++)
-			r->u.iv[k] = r->u.i[k] / (fabs(r->u.iv[k]) / vscale +
+			r->uiv[k] = r->ui[k] / (fabs(r->uiv[k]) / vscale +
 			    1e-9);
-		per_v = pct(r->u.iv, r->u.ni, 0.5);
-		p90 = pct(r->u.i, r->u.ni, 0.9);
-		med = pct(r->u.i, r->u.ni, 0.5);
+		per_v = pct(r->uiv, r->u.ni, 0.5);
+		p90 = pct(r->ui, r->u.ni, 0.9);
+		med = pct(r->ui, r->u.ni, 0.5);
 		if (per_v > 25 || (r->u.nint >= 0.95 * r->u.ni && med >= 100 &&
 		    per_v > 1.5))
 			cw_warn("%s: current '%s' looks like milliamperes "
@@ -447,7 +484,7 @@ units_check(struct run *r)
 	if (r->u.nt >= CLEAN_UNIT_MIN && r->u.unit[CM_TEMP] == CMU_C) {
 		const char *what = NULL, *unit = NULL;
 
-		med = pct(r->u.t, r->u.nt, 0.5);
+		med = pct(r->ut, r->u.nt, 0.5);
 		if (med >= 1500 && med <= 4000) {
 			what = "tenths of a kelvin";
 			unit = "dK";
@@ -1294,6 +1331,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 		free(d->hk);
 	}
 	devtab_free(r.devs);
+	free(r.uv);
 	free(r.krow);
 	free(r.ktmp);
 	if (st->keep_cut > 1)

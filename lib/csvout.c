@@ -14,7 +14,8 @@
 #include "csvout.h"
 #include "ts.h"
 
-#define CSVOUT_BUFSZ (256 * 1024)
+#define CSVOUT_BUFSZ (256 * 1024)	/* handed to stdio at once */
+#define CSVOUT_FIRST 4096		/* the buffer's first size */
 #define CSVOUT_SIG 10		/* significant digits written at most */
 
 static const double p10[] = {
@@ -31,7 +32,8 @@ csvout_init(struct csvout *w, FILE *fp)
 {
 	memset(w, 0, sizeof(*w));
 	w->fp = fp;
-	w->cap = CSVOUT_BUFSZ;
+	/* Small at first: a short output never pays for the full block. */
+	w->cap = CSVOUT_FIRST;
 	w->buf = cw_malloc(w->cap);
 }
 
@@ -61,17 +63,31 @@ csvout_flush(struct csvout *w)
 	return w->err ? -1 : 0;
 }
 
-/* Room for N more bytes, flushing whole rows already built. */
+/*
+ * Room for N more bytes: the buffer doubles up to CSVOUT_BUFSZ, then what
+ * is built is handed to stdio.
+ */
 static void
 reserve(struct csvout *w, size_t n)
 {
 	if (w->n + n <= w->cap)
 		return;
+	if (w->cap < CSVOUT_BUFSZ) {
+		size_t cap = w->cap;
+
+		while (cap < CSVOUT_BUFSZ && cap < w->n + n)
+			cap *= 2;
+		if (w->n + n <= cap) {
+			w->cap = cap;
+			w->buf = cw_realloc(w->buf, w->cap);
+			return;
+		}
+	}
 	if (w->n > 0 && !w->err && fwrite(w->buf, 1, w->n, w->fp) != w->n)
 		failed(w);
 	w->n = 0;
 	if (n > w->cap) {
-		w->cap = n;
+		w->cap = n > CSVOUT_BUFSZ ? n : CSVOUT_BUFSZ;
 		w->buf = cw_realloc(w->buf, w->cap);
 	}
 }
@@ -88,12 +104,16 @@ sep(struct csvout *w)
 void
 csvout_strn(struct csvout *w, const char *s, size_t n)
 {
-	size_t i, q = 0;
+	/* The bytes that make a field quoted: one look-up a byte. */
+	static const unsigned char quoted[256] = {
+		[','] = 1, ['"'] = 1, ['\n'] = 1, ['\r'] = 1
+	};
+	size_t i;
+	unsigned q = 0;
 
 	sep(w);
 	for (i = 0; i < n; i++)
-		if (s[i] == ',' || s[i] == '"' || s[i] == '\n' || s[i] == '\r')
-			q = 1;
+		q |= quoted[(unsigned char)s[i]];
 	if (!q) {
 		reserve(w, n);
 		memcpy(w->buf + w->n, s, n);
