@@ -31,6 +31,7 @@
 
 #include "cw.h"
 #include "gzsrc.h"
+#include "pipe.h"
 
 enum {
 	GZSRC_M_START,		/* nothing seen yet */
@@ -322,6 +323,8 @@ gzsrc_open(struct gzsrc *s, const char *path)
 		s->is_stdin = 1;
 		s->name = "stdin";
 		fd = dup(STDIN_FILENO);
+		if (fd >= 0)
+			(void)pipe_widen(fd);	/* when it is a pipe */
 	} else {
 		s->name = path;
 		fd = open(path, O_RDONLY);

@@ -19,6 +19,7 @@
 
 #include "cw.h"
 #include "outf.h"
+#include "pipe.h"
 
 #define OUTF_MAX 8
 #define OUTF_HOPS 40		/* symbolic links followed, as Linux's ELOOP */
@@ -244,6 +245,7 @@ open_any(const char *path, int state)
 		o = slot();
 		o->fp = stdout;
 		setvbuf(stdout, obuf, _IOFBF, sizeof(obuf));
+		(void)pipe_widen(STDOUT_FILENO);	/* when it is a pipe */
 		return o;
 	}
 	hook();
