@@ -116,7 +116,7 @@ fuzz: deps $(FUZZBIN)
 # (clang), built apart in build/tsan/; make check runs it (tests/tsan/run).
 TSANCC    = clang
 TSANFLAGS = -g -O1 -fno-omit-frame-pointer -fsanitize=thread
-TSANSRC   = lib/gzsrc.c lib/cw.c
+TSANSRC   = lib/gzsrc.c lib/cw.c lib/pipe.c
 
 build/tsan/gzsrc_ring: tests/tsan/gzsrc_ring.c $(TSANSRC) $(LIBHDR) config.mk
 	@mkdir -p build/tsan
