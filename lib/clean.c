@@ -38,9 +38,6 @@ struct cdev {
 	cw_time last_out;	/* latest time released */
 	struct rs_point *q;	/* pending rows, sorted by time, [qh, qn) */
 	uint32_t qh, qn, qcap;
-	struct cdev *next;	/* the device whose row came after one of
-				 * this device's last time: a guess, see
-				 * guess_next() */
 	struct rs_state rs;
 	/*
 	 * --keep: the values of the pending rows, beside q (a slot of
@@ -774,19 +771,13 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	if (d == NULL || !same_name(d, name, namelen)) {
 		int isnew;
 
-		if (d != NULL && d->next != NULL &&
-		    same_name(d->next, name, namelen))
-			d = d->next;
-		else {
-			d = devtab_get(r->devs, name, namelen, &isnew);
-			if (isnew) {
-				d->max_seen = d->last_out = INT64_MIN;
-				r->st->devices++;
-				if (c->nkeep > 0)
-					d->kv = cw_calloc(2, r->kstride);
-			}
-			if (r->last != NULL)
-				r->last->next = d;
+		/* devtab_get() tries the follower of r->last first. */
+		d = devtab_get(r->devs, name, namelen, &isnew);
+		if (isnew) {
+			d->max_seen = d->last_out = INT64_MIN;
+			r->st->devices++;
+			if (c->nkeep > 0)
+				d->kv = cw_calloc(2, r->kstride);
 		}
 		r->last = d;
 		guess_next(d);
@@ -949,7 +940,7 @@ same_name(const struct cdev *d, const char *name, size_t n)
  * Logs of many devices merged by time repeat the devices in much the same
  * order, and each row's state is a cache miss at thousands of devices.
  * The device that followed D last time is likely to come next: its name
- * is tried before the table (on_row), and the memory the next two rows
+ * is tried before the hash (devtab_get()), and the memory the next two rows
  * are likely to touch is fetched now, while this row is worked on: the
  * state of the one after next (its entry, name included) and the reorder
  * window ends of the next, whose state a previous row fetched.  A wrong
@@ -958,7 +949,7 @@ same_name(const struct cdev *d, const char *name, size_t n)
 static void
 guess_next(const struct cdev *d)
 {
-	const struct cdev *n = d->next;
+	const struct cdev *n = (const struct cdev *)d->e.next;
 
 	if (n == NULL)
 		return;
@@ -966,8 +957,8 @@ guess_next(const struct cdev *d)
 		DEVTAB_PREFETCH(n->q + n->qh);
 		DEVTAB_PREFETCH(n->q + n->qn - 1);
 	}
-	if (n->next != NULL)
-		devtab_prefetch(n->next, (int)((DEVTAB_INLINE +
+	if (n->e.next != NULL)
+		devtab_prefetch(n->e.next, (int)((DEVTAB_INLINE +
 		    sizeof(struct cdev) + DEVTAB_LINE - 1) / DEVTAB_LINE));
 }
 
@@ -1272,6 +1263,7 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	r.out = out;
 	r.rej = rej;
 	r.devs = devtab_new(sizeof(struct cdev));
+	devtab_set_prefetch(r.devs, 0);	/* guess_next() does it */
 	r.newest = INT64_MIN;
 	r.required = (1u << CM_TIME) | (1u << CM_VOLTAGE) | (1u << CM_CURRENT);
 	if (c->device == NULL && !c->device_from_file)

@@ -14,6 +14,14 @@
  * many, then twice that, ... up to DEVTAB_BLOCK), so that a table of a
  * few devices costs a few entries, not DEVTAB_BLOCK of them; from entry
  * DEVTAB_BLOCK on every block holds DEVTAB_BLOCK.
+ *
+ * Such a stream also repeats its devices in much the same order (a log
+ * merged by time, a cleaned stream on a grid): each entry keeps the
+ * device asked for after it last time (devent.next), and devtab_get()
+ * tries the device of the call before, then that one's follower, before
+ * hashing the name; it prefetches the follower's first lines while the
+ * caller works on this row.  A wrong guess costs a name comparison,
+ * never a wrong state.
  */
 #include <stdint.h>
 #include <stdlib.h>
@@ -49,6 +57,8 @@ struct devtab {
 	/* Names. */
 	char **nameblk;
 	size_t nnameblk, nameused;
+	struct devent *last;	/* the state devtab_get() returned last */
+	int prefetch;		/* lines of the follower to prefetch */
 	/* A small table needs no allocation but this one and its blocks. */
 	char *blk0[DEVTAB_NSMALL];
 	struct dslot slot0[DEVTAB_SLOT0];
@@ -60,6 +70,7 @@ static const char *keep_name(struct devtab *, const char *, size_t);
 static char *block_new(const struct devtab *, size_t);
 static size_t block_of(size_t, size_t *);
 static void grow_blocks(struct devtab *);
+static struct devent *lookup(struct devtab *, const char *, size_t, int *);
 
 /* Room for twice as many block pointers (blk0 is left as it is). */
 static void
@@ -139,7 +150,16 @@ devtab_new(size_t statesz)
 	t->slot = t->slot0;
 	t->blocks = t->blk0;
 	t->blockcap = DEVTAB_NSMALL;
+	devtab_set_prefetch(t, DEVTAB_PREFETCH_LINES);
 	return t;
+}
+
+void
+devtab_set_prefetch(struct devtab *t, int lines)
+{
+	int most = (int)(t->stride / DEVTAB_LINE);
+
+	t->prefetch = lines < 0 ? 0 : lines > most ? most : lines;
 }
 
 void *
@@ -210,6 +230,12 @@ keep_name(struct devtab *t, const char *s, size_t n)
 	return p;
 }
 
+static inline int
+same_name(const struct devent *d, const char *name, size_t len)
+{
+	return d->namelen == len && memcmp(d->name, name, len) == 0;
+}
+
 void *
 devtab_find(struct devtab *t, const char *name, size_t len)
 {
@@ -223,7 +249,7 @@ devtab_find(struct devtab *t, const char *name, size_t len)
 		if (t->slot[j].hash != h)
 			continue;
 		d = devtab_at(t, t->slot[j].idx - 1);
-		if (d->namelen == len && memcmp(d->name, name, len) == 0)
+		if (same_name(d, name, len))
 			return d;
 	}
 	return NULL;
@@ -231,6 +257,29 @@ devtab_find(struct devtab *t, const char *name, size_t len)
 
 void *
 devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
+{
+	struct devent *d = t->last;
+
+	if (isnew != NULL)
+		*isnew = 0;
+	if (d != NULL && same_name(d, name, len))
+		return d;
+	if (d != NULL && d->next != NULL && same_name(d->next, name, len))
+		d = d->next;
+	else {
+		d = lookup(t, name, len, isnew);
+		if (t->last != NULL)
+			t->last->next = d;
+	}
+	t->last = d;
+	if (d->next != NULL && t->prefetch > 0)
+		devtab_prefetch(d->next, t->prefetch);
+	return d;
+}
+
+/* The hash table's part of devtab_get(). */
+static struct devent *
+lookup(struct devtab *t, const char *name, size_t len, int *isnew)
 {
 	uint32_t h = fnv1a(name, len);
 	struct devent *d;
@@ -241,11 +290,8 @@ devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
 		if (t->slot[j].hash != h)
 			continue;
 		d = devtab_at(t, t->slot[j].idx - 1);
-		if (d->namelen == len && memcmp(d->name, name, len) == 0) {
-			if (isnew != NULL)
-				*isnew = 0;
+		if (same_name(d, name, len))
 			return d;
-		}
 	}
 	if (t->count >= UINT32_MAX - 1)
 		cw_die(CW_EXIT_DATA, "more than %lu devices",

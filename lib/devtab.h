@@ -16,6 +16,9 @@ struct devent {
 	size_t index;		/* insertion order, from 0 */
 	cw_time last_t;		/* last time seen, for order checks */
 	unsigned long nrows;	/* rows seen */
+	/* The device looked up after this one, the last time that was
+	 * another device: devtab_get()'s first guess (a hint only). */
+	struct devent *next;
 };
 
 struct devtab;
@@ -51,9 +54,19 @@ devtab_prefetch(const void *state, int lines)
 
 /* STATESZ: size of the tool's state struct, which starts with a devent. */
 struct devtab *devtab_new(size_t statesz);
-/* The state of NAME[0..LEN), created zeroed (but for its devent) if new;
- * *ISNEW (if not NULL) tells which. */
+/*
+ * The state of NAME[0..LEN), created zeroed (but for its devent) if new;
+ * *ISNEW (if not NULL) tells which.  The device of the call before and
+ * the one that followed it last time are tried before the hash table,
+ * and the state likely to be asked for next is prefetched
+ * (devtab_set_prefetch()).
+ */
 void	*devtab_get(struct devtab *t, const char *name, size_t len, int *isnew);
+/* How many cache lines of the likely next entry devtab_get() prefetches
+ * (its inline name included): 0 for none; at most the entry's.  The
+ * default is DEVTAB_PREFETCH_LINES. */
+void	devtab_set_prefetch(struct devtab *t, int lines);
+#define DEVTAB_PREFETCH_LINES 4
 /* The state of NAME, or NULL. */
 void	*devtab_find(struct devtab *t, const char *name, size_t len);
 size_t	devtab_count(const struct devtab *t);

@@ -220,6 +220,109 @@ test_empty(void **st)
 	devtab_free(NULL);
 }
 
+/*
+ * The follower guess (devtab_get() tries the device of the call before
+ * and the one that followed it last time before the hash): rows of 300
+ * devices in a fixed order, then in that order with every seventh row
+ * swapped with the next, then reversed, then a new device in the middle
+ * of a known order.  Every call must give the state of its own name
+ * (its id), ISNEW only for a name seen first, whatever the guesses
+ * were; after the fixed order, each device's follower is the next one.
+ */
+#define NFOL 300
+
+static struct state *
+get_named(struct devtab *t, int k, int *isnew)
+{
+	char name[16];
+	struct state *s;
+
+	snprintf(name, sizeof(name), "F-%d", k);
+	s = devtab_get(t, name, strlen(name), isnew);
+	assert_non_null(s);
+	assert_string_equal(s->d.name, name);
+	return s;
+}
+
+static void
+test_follower(void **st)
+{
+	struct devtab *t = devtab_new(sizeof(struct state));
+	struct state *s, *ids[NFOL];
+	int k, round, isnew, order[NFOL];
+
+	(void)st;
+	for (k = 0; k < NFOL; k++) {
+		s = get_named(t, k, &isnew);
+		assert_int_equal(isnew, 1);
+		s->id = k;
+		ids[k] = s;
+		/* The same device twice: the call before. */
+		assert_ptr_equal(get_named(t, k, &isnew), s);
+		assert_int_equal(isnew, 0);
+	}
+	for (round = 0; round < 3; round++)
+		for (k = 0; k < NFOL; k++) {
+			s = get_named(t, k, &isnew);
+			assert_int_equal(isnew, 0);
+			assert_int_equal(s->id, k);
+		}
+	for (k = 0; k + 1 < NFOL; k++)
+		assert_ptr_equal(ids[k]->d.next, &ids[k + 1]->d);
+	/* Guesses that are wrong now and then, or always. */
+	for (k = 0; k < NFOL; k++)
+		order[k] = k;
+	for (k = 0; k + 1 < NFOL; k += 7) {
+		int x = order[k];
+
+		order[k] = order[k + 1];
+		order[k + 1] = x;
+	}
+	for (round = 0; round < 2; round++)
+		for (k = 0; k < NFOL; k++) {
+			s = get_named(t, order[k], &isnew);
+			assert_int_equal(isnew, 0);
+			assert_int_equal(s->id, order[k]);
+		}
+	for (k = NFOL - 1; k >= 0; k--) {
+		s = get_named(t, k, &isnew);
+		assert_int_equal(isnew, 0);
+		assert_int_equal(s->id, k);
+	}
+	/* A new name where the guess is a known device. */
+	get_named(t, 10, &isnew);
+	s = get_named(t, NFOL, &isnew);
+	assert_int_equal(isnew, 1);
+	assert_int_equal(s->id, 0);	/* zeroed */
+	s->id = NFOL;
+	assert_int_equal(get_named(t, 11, &isnew)->id, 11);
+	assert_int_equal(isnew, 0);
+	assert_int_equal(devtab_count(t), NFOL + 1);
+	devtab_free(t);
+}
+
+/* Prefetch settings only change hints: any count, the same states. */
+static void
+test_prefetch_setting(void **st)
+{
+	static const int lines[] = { -5, 0, 1, 4, 1000 };
+	size_t i;
+	int k, isnew;
+
+	(void)st;
+	for (i = 0; i < sizeof(lines) / sizeof(lines[0]); i++) {
+		struct devtab *t = devtab_new(sizeof(struct state));
+
+		devtab_set_prefetch(t, lines[i]);
+		for (k = 0; k < 2 * NFOL; k++)
+			get_named(t, k % NFOL, &isnew)->id = k % NFOL;
+		for (k = 0; k < NFOL; k++)
+			assert_int_equal(get_named(t, k, &isnew)->id, k);
+		assert_int_equal(devtab_count(t), NFOL);
+		devtab_free(t);
+	}
+}
+
 int
 main(void)
 {
@@ -228,6 +331,8 @@ main(void)
 		cmocka_unit_test(test_odd_names),
 		cmocka_unit_test(test_unsigned_order),
 		cmocka_unit_test(test_empty),
+		cmocka_unit_test(test_follower),
+		cmocka_unit_test(test_prefetch_setting),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
