@@ -1263,7 +1263,6 @@ clean_run(const struct clean_conf *c, char **files, int n,
 	r.out = out;
 	r.rej = rej;
 	r.devs = devtab_new(sizeof(struct cdev));
-	devtab_set_prefetch(r.devs, 0);	/* guess_next() does it */
 	r.newest = INT64_MIN;
 	r.required = (1u << CM_TIME) | (1u << CM_VOLTAGE) | (1u << CM_CURRENT);
 	if (c->device == NULL && !c->device_from_file)

@@ -19,9 +19,10 @@
  * merged by time, a cleaned stream on a grid): each entry keeps the
  * device asked for after it last time (devent.next), and devtab_get()
  * tries the device of the call before, then that one's follower, before
- * hashing the name; it prefetches the follower's first lines while the
- * caller works on this row.  A wrong guess costs a name comparison,
- * never a wrong state.
+ * hashing the name: the hash slot is then not touched, one cache miss
+ * less a row.  A wrong guess costs a name comparison, never a wrong
+ * state.  (Prefetching the follower's state as well made no difference
+ * that could be measured for cw-wear: BENCHMARKS.md.)
  */
 #include <stdint.h>
 #include <stdlib.h>
@@ -58,7 +59,6 @@ struct devtab {
 	char **nameblk;
 	size_t nnameblk, nameused;
 	struct devent *last;	/* the state devtab_get() returned last */
-	int prefetch;		/* lines of the follower to prefetch */
 	/* A small table needs no allocation but this one and its blocks. */
 	char *blk0[DEVTAB_NSMALL];
 	struct dslot slot0[DEVTAB_SLOT0];
@@ -150,16 +150,7 @@ devtab_new(size_t statesz)
 	t->slot = t->slot0;
 	t->blocks = t->blk0;
 	t->blockcap = DEVTAB_NSMALL;
-	devtab_set_prefetch(t, DEVTAB_PREFETCH_LINES);
 	return t;
-}
-
-void
-devtab_set_prefetch(struct devtab *t, int lines)
-{
-	int most = (int)(t->stride / DEVTAB_LINE);
-
-	t->prefetch = lines < 0 ? 0 : lines > most ? most : lines;
 }
 
 void *
@@ -272,8 +263,6 @@ devtab_get(struct devtab *t, const char *name, size_t len, int *isnew)
 			t->last->next = d;
 	}
 	t->last = d;
-	if (d->next != NULL && t->prefetch > 0)
-		devtab_prefetch(d->next, t->prefetch);
 	return d;
 }
 

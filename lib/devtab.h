@@ -57,16 +57,9 @@ struct devtab *devtab_new(size_t statesz);
 /*
  * The state of NAME[0..LEN), created zeroed (but for its devent) if new;
  * *ISNEW (if not NULL) tells which.  The device of the call before and
- * the one that followed it last time are tried before the hash table,
- * and the state likely to be asked for next is prefetched
- * (devtab_set_prefetch()).
+ * the one that followed it last time are tried before the hash table.
  */
 void	*devtab_get(struct devtab *t, const char *name, size_t len, int *isnew);
-/* How many cache lines of the likely next entry devtab_get() prefetches
- * (its inline name included): 0 for none; at most the entry's.  The
- * default is DEVTAB_PREFETCH_LINES. */
-void	devtab_set_prefetch(struct devtab *t, int lines);
-#define DEVTAB_PREFETCH_LINES 4
 /* The state of NAME, or NULL. */
 void	*devtab_find(struct devtab *t, const char *name, size_t len);
 size_t	devtab_count(const struct devtab *t);

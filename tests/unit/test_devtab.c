@@ -301,28 +301,6 @@ test_follower(void **st)
 	devtab_free(t);
 }
 
-/* Prefetch settings only change hints: any count, the same states. */
-static void
-test_prefetch_setting(void **st)
-{
-	static const int lines[] = { -5, 0, 1, 4, 1000 };
-	size_t i;
-	int k, isnew;
-
-	(void)st;
-	for (i = 0; i < sizeof(lines) / sizeof(lines[0]); i++) {
-		struct devtab *t = devtab_new(sizeof(struct state));
-
-		devtab_set_prefetch(t, lines[i]);
-		for (k = 0; k < 2 * NFOL; k++)
-			get_named(t, k % NFOL, &isnew)->id = k % NFOL;
-		for (k = 0; k < NFOL; k++)
-			assert_int_equal(get_named(t, k, &isnew)->id, k);
-		assert_int_equal(devtab_count(t), NFOL);
-		devtab_free(t);
-	}
-}
-
 int
 main(void)
 {
@@ -332,7 +310,6 @@ main(void)
 		cmocka_unit_test(test_unsigned_order),
 		cmocka_unit_test(test_empty),
 		cmocka_unit_test(test_follower),
-		cmocka_unit_test(test_prefetch_setting),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
