@@ -1,7 +1,8 @@
 #!/bin/sh
 # make bench: how fast cellwear is next to its physical floors and to a
 # pandas script doing the same cleaning.  Results go to stdout and to
-# BENCHMARKS.md (or $BENCH_OUT).  Timing is never asserted: this reports.
+# BENCHMARKS.md (or $BENCH_OUT), above its marker line; the notes below
+# the marker are kept.  Timing is never asserted: this reports.
 #
 #   scripts/bench.sh            the full run (5.2 million rows and more)
 #   scripts/bench.sh --tiny     a few thousand rows, to keep the script
@@ -287,4 +288,14 @@ echo
 dayreport
 } >"$work/report.md"
 cat "$work/report.md"
-cp "$work/report.md" "$out"
+# The notes of earlier runs, from the marker line on, stay in $out: a run
+# replaces only what is above it.
+marker='<!-- scripts/bench.sh keeps everything below this line -->'
+{
+	cat "$work/report.md"
+	if [ -f "$out" ] && grep -qxF "$marker" "$out"; then
+		echo
+		awk -v m="$marker" 'k || $0 == m { k = 1; print }' "$out"
+	fi
+} >"$work/out.md"
+cp "$work/out.md" "$out"
