@@ -141,7 +141,6 @@ static double pct(double *, int, double);
 static void keep_row(struct run *, const struct csvin_rec *);
 static void emit(void *, const struct rs_point *);
 static void drain(struct run *, struct cdev *, cw_time);
-static int same_name(const struct cdev *, const char *, size_t);
 static void guess_next(const struct cdev *);
 static size_t strip_ext(const char *, size_t, const char *const *, size_t);
 static size_t strip_date(const char *, size_t);
@@ -767,11 +766,13 @@ on_row(void *ctx, const struct csvin_rec *rec)
 	if (c->nkeep > 0)
 		keep_row(r, rec);
 
-	d = r->last;
-	if (d == NULL || !same_name(d, name, namelen)) {
+	{
 		int isnew;
 
-		/* devtab_get() tries the follower of r->last first. */
+		/*
+		 * devtab_get() tries the device of the row before and its
+		 * follower before it hashes the name.
+		 */
 		d = devtab_get(r->devs, name, namelen, &isnew);
 		if (isnew) {
 			d->max_seen = d->last_out = INT64_MIN;
@@ -779,8 +780,10 @@ on_row(void *ctx, const struct csvin_rec *rec)
 			if (c->nkeep > 0)
 				d->kv = cw_calloc(2, r->kstride);
 		}
-		r->last = d;
-		guess_next(d);
+		if (d != r->last) {
+			r->last = d;
+			guess_next(d);
+		}
 	}
 	if (p.t > c->max_time)
 		return reject(r, rec, CR_FUTURE);
@@ -928,12 +931,6 @@ place(struct run *r, struct cdev *d, const struct rs_point *pp,
 		d->max_seen = p.t;
 	drain(r, d, d->max_seen - c->reorder);
 	return 0;
-}
-
-static int
-same_name(const struct cdev *d, const char *name, size_t n)
-{
-	return d->e.namelen == n && memcmp(d->e.name, name, n) == 0;
 }
 
 /*
