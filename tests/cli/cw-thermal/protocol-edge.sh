@@ -6,6 +6,7 @@
 # In binary floating point 41.2 / 10 > 4.10 + 0.02, which judged the first
 # over-voltage once (a reviewer's find).
 # source: hand: the limits above, from cw-thermal(1)'s rules
+cd "$TMPDIR_CASE" || exit 2
 for row in "C1 5 41.0 5.25" "C2 5 41.0 5.26" "W1 50 41.2 1" "W2 50 41.21 1"
 do
 	set -- $row
