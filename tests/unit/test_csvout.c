@@ -379,6 +379,62 @@ date_of(cw_time t)
  * between, for random days of 1970..9999 against the POSIX formula; days
  * round down before the epoch; an empty field outside 0000..9999.
  */
+/*
+ * RFC 4180's rule, written out byte by byte here, against csvout_strn():
+ * random fields of 0 to 40 bytes drawn mostly from the four bytes that
+ * force quotes, NUL and bytes above 0x7f, at each offset from an aligned
+ * buffer.
+ */
+static void
+test_quoting_random(void **st)
+{
+	static const char pool[] = { ',', '"', '\n', '\r', '\0', 'a', ' ',
+	    (char)0x80, (char)0xff, (char)0x2b, (char)0x2d, (char)0x0b };
+	char field[48], want[128], *out = NULL;
+	size_t outlen = 0, n, k, m;
+	struct csvout w;
+	FILE *fp;
+	int round, quote;
+
+	(void)st;
+	for (round = 0; round < 20000; round++) {
+		size_t off = (size_t)round % 8;
+
+		n = (size_t)(rnd() % 41);
+		for (k = 0; k < n; k++)
+			field[off + k] = rnd() % 4 == 0 ? pool[rnd() % 4] :
+			    pool[rnd() % sizeof(pool)];
+		quote = 0;
+		for (k = 0; k < n; k++)
+			if (strchr(",\"\n\r", field[off + k]) != NULL &&
+			    field[off + k] != '\0')
+				quote = 1;
+		m = 0;
+		if (quote)
+			want[m++] = '"';
+		for (k = 0; k < n; k++) {
+			if (field[off + k] == '"')
+				want[m++] = '"';
+			want[m++] = field[off + k];
+		}
+		if (quote)
+			want[m++] = '"';
+		want[m++] = '\n';
+		fp = open_memstream(&out, &outlen);
+		assert_non_null(fp);
+		csvout_init(&w, fp);
+		csvout_strn(&w, field + off, n);
+		csvout_endrow(&w);
+		assert_int_equal(csvout_flush(&w), 0);
+		csvout_free(&w);
+		fclose(fp);
+		assert_int_equal(outlen, m);
+		assert_memory_equal(out, want, m);
+		free(out);
+		out = NULL;
+	}
+}
+
 static void
 test_date(void **st)
 {
@@ -523,6 +579,7 @@ main(void)
 		cmocka_unit_test(test_shortest),
 		cmocka_unit_test(test_fixed),
 		cmocka_unit_test(test_quoting),
+		cmocka_unit_test(test_quoting_random),
 		cmocka_unit_test(test_date),
 		cmocka_unit_test(test_large_output),
 		cmocka_unit_test(test_write_error),
